@@ -1,0 +1,78 @@
+using System.CommandLine;
+using System.Reflection;
+using BcPrep.Cli.Commands;
+
+namespace BcPrep.Cli;
+
+/// <summary>
+/// Builds the command tree, parses, runs, and maps every failure to one documented exit code. Usage errors are
+/// reported on standard error (never help text on standard output), and no exception reaches the user as a
+/// stack trace.
+/// </summary>
+public static class BcPrepApp
+{
+    public static string Version =>
+        typeof(BcPrepApp).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion.Split('+')[0] ?? "0.0.0";
+
+    public static int Run(string[] args, CliContext context)
+    {
+        var common = new CommonOptions();
+        var root = new RootCommand("BcPrep turns a test day's raw logger files into boundary conditions with uncertainties.\n" +
+                                   "Example: bcprep process sample-logs/marten-rig.toml sample-logs/*.csv --out out");
+        common.AddTo(root);
+        foreach (var command in CommandCatalog.Build(common, context))
+        {
+            root.Subcommands.Add(command);
+        }
+        // '@file' expansion is switched off: a log file named '@x' must stay a file name.
+        var parse = root.Parse(args, new ParserConfiguration { ResponseFileTokenReplacer = null });
+        if (parse.Errors.Count > 0)
+        {
+            foreach (var error in parse.Errors)
+            {
+                context.Error.WriteLine("error: " + error.Message);
+            }
+            var name = parse.CommandResult.Command == root ? "bcprep" : "bcprep " + parse.CommandResult.Command.Name;
+            context.Error.WriteLine($"See '{name} --help'.");
+            return ExitCodes.UsageOrRigFile;
+        }
+        try
+        {
+            return parse.Invoke(new InvocationConfiguration
+            {
+                Output = IsHelpOrVersion(args) ? context.Out : context.Error,
+                Error = context.Error,
+                EnableDefaultExceptionHandler = false,
+            });
+        }
+        catch (BcPrepFailure failure)
+        {
+            foreach (var problem in failure.Problems)
+            {
+                context.Error.WriteLine("error: " + problem);
+            }
+            return ExitCodes.For(failure.Kind);
+        }
+        catch (BcPrepDataException e)
+        {
+            context.Error.WriteLine("error: " + e.Message);
+            return ExitCodes.BadInputData;
+        }
+        catch (IOException e) when (IsBrokenPipe(e))
+        {
+            return ExitCodes.Success;
+        }
+        catch (Exception e)
+        {
+            context.Error.WriteLine($"error: internal error ({e.GetType().Name}): {e.Message}");
+            context.Error.WriteLine("This is a bug in bcprep; please report it with the command line that caused it.");
+            return ExitCodes.InternalError;
+        }
+    }
+
+    private static bool IsHelpOrVersion(string[] args) =>
+        args.Any(a => a is "--help" or "-h" or "-?" or "--version");
+
+    private static bool IsBrokenPipe(IOException e) =>
+        e.HResult == 32 || e.Message.Contains("Broken pipe", StringComparison.OrdinalIgnoreCase);
+}

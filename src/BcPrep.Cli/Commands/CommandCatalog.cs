@@ -1,0 +1,12 @@
+using System.CommandLine;
+
+namespace BcPrep.Cli.Commands;
+
+/// <summary>All commands of bcprep, one file each.</summary>
+public static class CommandCatalog
+{
+    public static IEnumerable<Command> Build(CommonOptions common, CliContext context) =>
+    [
+        CheckCommand.Create(common, context),
+    ];
+}

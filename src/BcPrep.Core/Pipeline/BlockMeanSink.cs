@@ -1,0 +1,75 @@
+namespace BcPrep.Pipeline;
+
+/// <summary>
+/// Averages every channel over fixed blocks of time (e.g. 1 s) during the scan. The block means are what steady
+/// detection and the day plots look at: small (one value per block) whatever the sample rate.
+/// </summary>
+public sealed class BlockMeanSink : IChannelSink
+{
+    private readonly double _originS;
+    private readonly double _blockS;
+    private readonly Dictionary<string, (List<double> Sum, List<int> Count)> _channels = new(StringComparer.Ordinal);
+
+    public BlockMeanSink(double originS, double blockS)
+    {
+        _originS = originS;
+        _blockS = blockS;
+    }
+
+    public double BlockS => _blockS;
+
+    public double OriginS => _originS;
+
+    public void Accept(string channel, ReadOnlySpan<double> timeS, ReadOnlySpan<double> valueSi)
+    {
+        if (!_channels.TryGetValue(channel, out var acc))
+        {
+            acc = ([], []);
+            _channels[channel] = acc;
+        }
+        for (var i = 0; i < timeS.Length; i++)
+        {
+            var v = valueSi[i];
+            if (double.IsNaN(v))
+            {
+                continue;
+            }
+            var index = (int)Math.Floor((timeS[i] - _originS) / _blockS);
+            while (acc.Sum.Count <= index)
+            {
+                acc.Sum.Add(0.0);
+                acc.Count.Add(0);
+            }
+            acc.Sum[index] += v;
+            acc.Count[index]++;
+        }
+    }
+
+    public void Complete(string channel)
+    {
+    }
+
+    /// <summary>Block means of a channel on the common block grid; NaN where a block had no sample.</summary>
+    public double[] Means(string channel, int length)
+    {
+        var result = new double[length];
+        Array.Fill(result, double.NaN);
+        if (_channels.TryGetValue(channel, out var acc))
+        {
+            for (var i = 0; i < Math.Min(length, acc.Sum.Count); i++)
+            {
+                if (acc.Count[i] > 0)
+                {
+                    result[i] = acc.Sum[i] / acc.Count[i];
+                }
+            }
+        }
+        return result;
+    }
+
+    /// <summary>Number of blocks covering every channel's data.</summary>
+    public int Length => _channels.Count == 0 ? 0 : _channels.Values.Max(a => a.Sum.Count);
+
+    /// <summary>Block centre times on the log clock (s).</summary>
+    public double[] Times(int length) => Enumerable.Range(0, length).Select(i => _originS + (i + 0.5) * _blockS).ToArray();
+}

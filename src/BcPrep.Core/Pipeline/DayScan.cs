@@ -1,0 +1,130 @@
+using System.Globalization;
+using BcPrep.Reading;
+using BcPrep.Rig;
+
+namespace BcPrep.Pipeline;
+
+/// <summary>
+/// One streaming pass over a test day: each logger's files in time order, each block calibrated channel by channel
+/// and handed to the sinks. Holds one block per logger in memory, whatever the file size.
+/// </summary>
+public static class DayScan
+{
+    public const int BlockRows = 8192;
+
+    public static void Run(
+        RigDescription rig,
+        DayPlan plan,
+        IReadOnlyDictionary<string, SampleConverter> converters,
+        IReadOnlyList<IChannelSink> sinks)
+    {
+        foreach (var logger in plan.Loggers)
+        {
+            ScanLogger(rig, logger, converters, sinks);
+        }
+    }
+
+    private static void ScanLogger(RigDescription rig, LoggerFiles logger, IReadOnlyDictionary<string, SampleConverter> converters, IReadOnlyList<IChannelSink> sinks)
+    {
+        var channels = OrderByDependency(logger.Channels, rig);
+        var columns = logger.Channels.Select(c => c.Column).ToList();
+        var block = new LogBlock(columns.Count, BlockRows);
+        var si = channels.ToDictionary(c => c.Id, _ => new double[BlockRows], StringComparer.Ordinal);
+        var previousEnd = double.NegativeInfinity;
+        string? previousFile = null;
+        foreach (var file in logger.Files)
+        {
+            using var reader = new LogFileReader(file, rig.Log, columns);
+            var first = true;
+            while (reader.ReadBlock(block))
+            {
+                if (first && block.TimeS[0] <= previousEnd)
+                {
+                    throw new BcPrepFailure(FailureKind.InputData, new SourceLocation(file.DisplayName, (int)block.LineNumbers[0], null, rig.Log.TimeColumn),
+                        $"this file starts at {Fmt(block.TimeS[0])} s, before the end of {previousFile} ({Fmt(previousEnd)} s): the files overlap in time");
+                }
+                first = false;
+                ConvertBlock(file, block, logger, channels, converters, si);
+                var times = block.TimeS.AsSpan(0, block.Count);
+                foreach (var channel in channels)
+                {
+                    var values = si[channel.Id].AsSpan(0, block.Count);
+                    foreach (var sink in sinks)
+                    {
+                        sink.Accept(channel.Id, times, values);
+                    }
+                }
+                previousEnd = block.TimeS[block.Count - 1];
+            }
+            previousFile = file.DisplayName;
+        }
+        foreach (var channel in channels)
+        {
+            foreach (var sink in sinks)
+            {
+                sink.Complete(channel.Id);
+            }
+        }
+    }
+
+    private static void ConvertBlock(LogInput file, LogBlock block, LoggerFiles logger, IReadOnlyList<ChannelSpec> channels,
+        IReadOnlyDictionary<string, SampleConverter> converters, Dictionary<string, double[]> si)
+    {
+        foreach (var channel in channels)
+        {
+            var raw = block.Columns[IndexOf(logger, channel)];
+            var output = si[channel.Id];
+            var convert = converters[channel.Id];
+            var coldJunction = channel.Sensor is ThermocoupleSensor { ColdJunctionChannel: { } cj } ? si[cj] : null;
+            var fixedCj = channel.Sensor is ThermocoupleSensor { ColdJunctionK: { } k } ? k : double.NaN;
+            for (var i = 0; i < block.Count; i++)
+            {
+                var x = raw[i];
+                if (double.IsNaN(x))
+                {
+                    output[i] = double.NaN;
+                    continue;
+                }
+                try
+                {
+                    output[i] = convert(x, coldJunction is null ? fixedCj : coldJunction[i]);
+                }
+                catch (BcPrepDataException e) when (e is not BcPrepFailure)
+                {
+                    throw new BcPrepFailure(FailureKind.InputData, new SourceLocation(file.DisplayName, (int)block.LineNumbers[i], null, channel.Column),
+                        $"channel '{channel.Id}' at t = {Fmt(block.TimeS[i])} s reads {Fmt(x)} {channel.Sensor.RawUnit}: {e.Message}");
+                }
+            }
+        }
+    }
+
+    private static int IndexOf(LoggerFiles logger, ChannelSpec channel)
+    {
+        for (var i = 0; i < logger.Channels.Count; i++)
+        {
+            if (logger.Channels[i].Id == channel.Id)
+            {
+                return i;
+            }
+        }
+        throw new InvalidOperationException("channel not in logger");
+    }
+
+    /// <summary>Cold-junction channels are converted before the thermocouples that need them.</summary>
+    private static List<ChannelSpec> OrderByDependency(IReadOnlyList<ChannelSpec> channels, RigDescription rig)
+    {
+        var ids = channels.Select(c => c.Id).ToHashSet(StringComparer.Ordinal);
+        foreach (var c in channels)
+        {
+            if (c.Sensor is ThermocoupleSensor { ColdJunctionChannel: { } cj } && !ids.Contains(cj))
+            {
+                var where = rig.Channel(cj)?.Column ?? cj;
+                throw new BcPrepFailure(FailureKind.Configuration, c.Location with { Key = $"channel '{c.Id}'.cold_junction" },
+                    $"the cold-junction channel '{cj}' (column '{where}') must be logged by the same logger as '{c.Column}', row by row");
+            }
+        }
+        return channels.OrderBy(c => c.Sensor is ThermocoupleSensor { ColdJunctionChannel: not null } ? 1 : 0).ToList();
+    }
+
+    private static string Fmt(double value) => value.ToString("G10", CultureInfo.InvariantCulture);
+}

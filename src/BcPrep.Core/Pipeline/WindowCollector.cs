@@ -1,0 +1,105 @@
+namespace BcPrep.Pipeline;
+
+/// <summary>A time interval on the log clock (s) for which samples are gathered.</summary>
+public sealed record TimeWindow(string Id, double StartS, double EndS)
+{
+    public double DurationS => EndS - StartS;
+
+    public bool Contains(double timeS) => timeS >= StartS && timeS <= EndS;
+}
+
+/// <summary>
+/// Gathers each channel's samples inside each window and hands them over as soon as the channel has passed the
+/// window's end, so only the windows open at the current time are held in memory (in practice one operating point).
+/// </summary>
+public sealed class WindowCollector : IChannelSink
+{
+    private readonly IReadOnlyList<TimeWindow> _windows;
+    private readonly Action<TimeWindow, string, double[], double[]> _onWindowComplete;
+    private readonly Dictionary<string, ChannelState> _state = new(StringComparer.Ordinal);
+
+    /// <param name="windows">Windows to collect, any order, may overlap.</param>
+    /// <param name="onWindowComplete">Receives (window, channel, times, values) once per window and channel.</param>
+    public WindowCollector(IReadOnlyList<TimeWindow> windows, Action<TimeWindow, string, double[], double[]> onWindowComplete)
+    {
+        _windows = windows.OrderBy(w => w.StartS).ToList();
+        _onWindowComplete = onWindowComplete;
+    }
+
+    public void Accept(string channel, ReadOnlySpan<double> timeS, ReadOnlySpan<double> valueSi)
+    {
+        if (!_state.TryGetValue(channel, out var state))
+        {
+            state = new ChannelState(_windows.Count);
+            _state[channel] = state;
+        }
+        for (var i = 0; i < timeS.Length; i++)
+        {
+            var t = timeS[i];
+            for (var w = state.FirstOpen; w < _windows.Count; w++)
+            {
+                var window = _windows[w];
+                if (t < window.StartS)
+                {
+                    break;
+                }
+                if (t <= window.EndS)
+                {
+                    state.Times[w].Add(t);
+                    state.Values[w].Add(valueSi[i]);
+                }
+                else
+                {
+                    Flush(channel, state, w);
+                }
+            }
+            while (state.FirstOpen < _windows.Count && state.Done[state.FirstOpen])
+            {
+                state.FirstOpen++;
+            }
+        }
+    }
+
+    public void Complete(string channel)
+    {
+        if (!_state.TryGetValue(channel, out var state))
+        {
+            state = new ChannelState(_windows.Count);
+            _state[channel] = state;
+        }
+        for (var w = 0; w < _windows.Count; w++)
+        {
+            Flush(channel, state, w);
+        }
+    }
+
+    private void Flush(string channel, ChannelState state, int w)
+    {
+        if (state.Done[w])
+        {
+            return;
+        }
+        state.Done[w] = true;
+        _onWindowComplete(_windows[w], channel, state.Times[w].ToArray(), state.Values[w].ToArray());
+        state.Times[w] = [];
+        state.Values[w] = [];
+    }
+
+    private sealed class ChannelState
+    {
+        public ChannelState(int windows)
+        {
+            Times = Enumerable.Range(0, windows).Select(_ => new List<double>()).ToArray();
+            Values = Enumerable.Range(0, windows).Select(_ => new List<double>()).ToArray();
+            Done = new bool[windows];
+        }
+
+        public List<double>[] Times { get; }
+
+        public List<double>[] Values { get; }
+
+        public bool[] Done { get; }
+
+        public int FirstOpen { get; set; }
+    }
+}

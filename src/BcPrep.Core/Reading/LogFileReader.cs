@@ -1,0 +1,208 @@
+using System.Globalization;
+using System.Text;
+using BcPrep.Rig;
+using CsvHelper;
+
+namespace BcPrep.Reading;
+
+/// <summary>
+/// Streams one delimited log file in blocks of rows, keeping only the time column and the requested columns.
+/// Memory does not grow with the file. Every bad cell stops the read with file, line and column named.
+/// </summary>
+public sealed class LogFileReader : IDisposable
+{
+    /// <summary>Longest record accepted (bytes): guards against a file that is one enormous line.</summary>
+    public const int MaxRecordBytes = 1 << 20;
+
+    private readonly LogInput _input;
+    private readonly LogFormat _format;
+    private readonly CsvReader _csv;
+    private readonly NumberFormatInfo _numbers;
+    private readonly int _timeIndex;
+    private readonly int[] _columnIndices;
+    private readonly string[] _columnNames;
+    private readonly int _headerCount;
+    private double _lastTime = double.NegativeInfinity;
+    private long _lastLine;
+
+    public LogFileReader(LogInput input, LogFormat format, IReadOnlyList<string> columns)
+    {
+        _input = input;
+        _format = format;
+        _numbers = new NumberFormatInfo { NumberDecimalSeparator = format.DecimalSeparator.ToString(), NumberGroupSeparator = "" };
+        var stream = input.Open();
+        var separator = format.Separator ?? SniffSeparator(stream, format.DecimalSeparator);
+        _csv = CsvReader.Create(stream, new CsvReaderOptions
+        {
+            Separator = separator,
+            HasHeader = true,
+            TrackLineNumbers = true,
+            MaxRecordSize = MaxRecordBytes,
+            FormatProvider = CultureInfo.InvariantCulture,
+        }, leaveOpen: false);
+        string[] header;
+        try
+        {
+            header = _csv.Headers.Select(h => h.Trim()).ToArray();
+        }
+        catch (Exception e) when (e is CsvFormatException or InvalidDataException or DecoderFallbackException)
+        {
+            _csv.Dispose();
+            throw Fail(1, null, "the header row cannot be read: " + e.Message);
+        }
+        if (header.Length == 0 || header.All(string.IsNullOrWhiteSpace))
+        {
+            _csv.Dispose();
+            throw Fail(1, null, "the file is empty: no header row");
+        }
+        Header = header;
+        _headerCount = header.Length;
+        _timeIndex = Array.IndexOf(header, format.TimeColumn);
+        if (_timeIndex < 0)
+        {
+            _csv.Dispose();
+            throw Fail(1, null, $"no time column '{format.TimeColumn}' in the header ({string.Join(", ", header.Take(8))}{(header.Length > 8 ? ", …" : "")})");
+        }
+        _columnNames = columns.ToArray();
+        _columnIndices = columns.Select(c => Array.IndexOf(header, c)).ToArray();
+        var missing = _columnNames.Where((_, i) => _columnIndices[i] < 0).ToList();
+        if (missing.Count > 0)
+        {
+            _csv.Dispose();
+            throw Fail(1, null, $"column{(missing.Count > 1 ? "s" : "")} {string.Join(", ", missing.Select(m => $"'{m}'"))} named in the rig file {(missing.Count > 1 ? "are" : "is")} not in the header");
+        }
+    }
+
+    public IReadOnlyList<string> Header { get; }
+
+    public string Name => _input.DisplayName;
+
+    /// <summary>Reads header names only (to group files by logger before reading them).</summary>
+    public static IReadOnlyList<string> ReadHeader(LogInput input, LogFormat format)
+    {
+        using var reader = new LogFileReader(input, format, []);
+        return reader.Header;
+    }
+
+    /// <summary>Fills <paramref name="block"/> with up to its capacity of rows; false at end of file.</summary>
+    public bool ReadBlock(LogBlock block)
+    {
+        var n = 0;
+        while (n < block.Capacity && Next())
+        {
+            var line = _csv.LineNumber;
+            if (_csv.FieldCount != _headerCount)
+            {
+                throw Fail(line, null, $"the row has {_csv.FieldCount} fields but the header has {_headerCount}");
+            }
+            var time = ParseTime(line);
+            if (!(time > _lastTime))
+            {
+                var what = time == _lastTime ? "repeats" : "goes back from";
+                throw Fail(line, _timeIndex, $"the time {Format(time)} {what} the previous row's {Format(_lastTime)} (line {_lastLine}): timestamps must increase");
+            }
+            _lastTime = time;
+            _lastLine = line;
+            block.TimeS[n] = time;
+            block.LineNumbers[n] = line;
+            for (var c = 0; c < _columnIndices.Length; c++)
+            {
+                block.Columns[c][n] = ParseCell(_columnIndices[c], line);
+            }
+            n++;
+        }
+        block.Count = n;
+        return n > 0;
+    }
+
+    public void Dispose() => _csv.Dispose();
+
+    private bool Next()
+    {
+        try
+        {
+            return _csv.Read();
+        }
+        catch (CsvFormatException e)
+        {
+            throw Fail(_lastLine + 1, null, "malformed row: " + e.Message);
+        }
+        catch (Exception e) when (e is InvalidDataException or IOException)
+        {
+            throw Fail(_lastLine + 1, null, "the file cannot be read: " + e.Message);
+        }
+    }
+
+    private double ParseCell(int index, long line)
+    {
+        var span = _csv.GetSpan(index);
+        if (double.TryParse(span, NumberStyles.Float, _numbers, out var value))
+        {
+            if (double.IsInfinity(value))
+            {
+                throw Fail(line, index, "infinite value: a logger writes this for an overflow, which is no measurement");
+            }
+            return value;
+        }
+        if (IsBlank(span))
+        {
+            return double.NaN;
+        }
+        throw Fail(line, index, $"'{Truncate(Encoding.UTF8.GetString(span))}' is not a number");
+    }
+
+    private double ParseTime(long line)
+    {
+        var span = _csv.GetSpan(_timeIndex);
+        if (_format.TimeFormat == TimeFormat.Seconds)
+        {
+            if (double.TryParse(span, NumberStyles.Float, _numbers, out var seconds) && double.IsFinite(seconds))
+            {
+                return seconds;
+            }
+            throw Fail(line, _timeIndex, $"'{Truncate(Encoding.UTF8.GetString(span))}' is not a time in seconds");
+        }
+        var text = Encoding.UTF8.GetString(span);
+        if (DateTimeOffset.TryParse(text, CultureInfo.InvariantCulture, DateTimeStyles.AssumeUniversal | DateTimeStyles.AllowWhiteSpaces, out var when))
+        {
+            // Ticks keep sub-millisecond logger timestamps.
+            return (when.UtcTicks - DateTimeOffset.UnixEpoch.UtcTicks) / (double)TimeSpan.TicksPerSecond;
+        }
+        throw Fail(line, _timeIndex, $"'{Truncate(text)}' is not an ISO-8601 time");
+    }
+
+    private static bool IsBlank(ReadOnlySpan<byte> span)
+    {
+        var trimmed = span.Trim((byte)' ');
+        return trimmed.Length == 0 || trimmed.SequenceEqual("NaN"u8) || trimmed.SequenceEqual("nan"u8) || trimmed.SequenceEqual("NA"u8);
+    }
+
+    private BcPrepFailure Fail(long line, int? fieldIndex, string message)
+    {
+        var key = fieldIndex is { } i && Header is { } h && i < h.Count ? h[i] : null;
+        return new BcPrepFailure(FailureKind.InputData, new SourceLocation(_input.DisplayName, (int)Math.Min(line, int.MaxValue), fieldIndex + 1, key), message);
+    }
+
+    private static char SniffSeparator(Stream stream, char decimalSeparator)
+    {
+        // Count candidates in the first line; a decimal comma rules the comma out.
+        if (!stream.CanSeek)
+        {
+            return decimalSeparator == ',' ? ';' : ',';
+        }
+        var buffer = new byte[4096];
+        var n = stream.Read(buffer, 0, buffer.Length);
+        stream.Seek(0, SeekOrigin.Begin);
+        var firstLine = Encoding.UTF8.GetString(buffer, 0, n).Split('\n')[0];
+        var counts = new[] { ',', ';', '\t' }
+            .Where(c => !(c == ',' && decimalSeparator == ','))
+            .Select(c => (Separator: c, Count: firstLine.Count(ch => ch == c)))
+            .OrderByDescending(x => x.Count)
+            .ToList();
+        return counts[0].Count > 0 ? counts[0].Separator : ',';
+    }
+
+    private static string Format(double value) => value.ToString("R", CultureInfo.InvariantCulture);
+
+    private static string Truncate(string text) => text.Length <= 40 ? text : text[..40] + "…";
+}

@@ -1,0 +1,500 @@
+using System.Globalization;
+
+namespace BcPrep.Rig;
+
+/// <summary>
+/// Reads a rig file (TOML) into a <see cref="RigDescription"/>. Every problem found is collected; if any, a
+/// <see cref="BcPrepFailure"/> of kind <see cref="FailureKind.Configuration"/> lists them all with line and key.
+/// </summary>
+public static class RigLoader
+{
+    /// <summary>The upper bound on radial profile points (a resource limit, not physics).</summary>
+    public const int MaxRadialPoints = 10_000;
+
+    private static readonly string[] Roles =
+    [
+        "barometric_pressure", "static_pressure", "differential_pressure", "bulk_temperature", "wall_temperature",
+        "cold_junction_temperature", "mass_flow", "heater_voltage", "heater_current", "heater_power",
+        "relative_humidity", "other",
+    ];
+
+    private static readonly string[] SensorKinds = ["linear", "polynomial", "table", "thermocouple", "rtd", "direct"];
+    private static readonly string[] ThermocoupleTypes = ["K", "T", "J", "E", "N"];
+    private static readonly string[] VelocityModels = ["auto", "uniform", "laminar", "power_law", "spalding", "reichardt"];
+
+    public static RigDescription Load(string text, string fileName)
+    {
+        var (root, problems) = TomlTree.Parse(text, fileName);
+        var all = new List<Problem>(problems);
+        if (all.Count > 0)
+        {
+            throw new BcPrepFailure(FailureKind.Configuration, all);
+        }
+        var rig = Read(new TableReader(root, all), fileName, all);
+        if (all.Count > 0 || rig is null)
+        {
+            throw new BcPrepFailure(FailureKind.Configuration, all.OrderBy(p => p.Location.Line ?? 0).ToList());
+        }
+        return rig;
+    }
+
+    private static RigDescription? Read(TableReader top, string fileName, List<Problem> problems)
+    {
+        var rigTable = top.Table("rig", required: true);
+        var name = rigTable?.String("name", required: true) ?? "";
+        var fluid = rigTable?.Choice("fluid", ["dry_air"], "dry_air");
+        var coverage = rigTable?.Number("coverage_probability", min: 0.5, max: 0.9999) ?? 0.95;
+        rigTable?.RejectUnknownKeys();
+
+        var duct = ReadDuct(top.Table("duct", required: true));
+        var log = ReadLog(top.Table("log", required: true));
+        var declaredIds = new HashSet<string>(StringComparer.Ordinal);
+        var channels = top.Tables("channel").Select(t => ReadChannel(t, declaredIds)).Where(c => c is not null).Select(c => c!).ToList();
+        if (channels.Count == 0)
+        {
+            top.Report("channel", "no [[channel]] is declared");
+        }
+        var points = top.Tables("point").Select(ReadPoint).Where(p => p is not null).Select(p => p!).ToList();
+        var steady = ReadSteady(top.Table("steady"), channels, declaredIds);
+        var profiles = ReadProfiles(top.Table("inlet_profile"));
+        top.RejectUnknownKeys();
+
+        CheckReferences(channels, duct, points, problems);
+        return duct is null || log is null
+            ? null
+            : new RigDescription(name, fileName, duct, log, channels, points, steady, profiles, coverage);
+    }
+
+    private static DuctGeometry? ReadDuct(TableReader? t)
+    {
+        if (t is null)
+        {
+            return null;
+        }
+        var diameter = t.Quantity("inner_diameter", Dimension.Length, required: true, minSi: 1e-3, maxSi: 10);
+        var diameterStd = t.Quantity("inner_diameter_uncertainty", Dimension.Length, minSi: 0) ?? 0.0;
+        var roughness = t.Quantity("wall_roughness", Dimension.Length, minSi: 0, maxSi: 0.01) ?? 0.0;
+        var heated = t.Quantity("heated_length", Dimension.Length, minSi: 0, maxSi: 1000) ?? 0.0;
+        var loss = t.Quantity("heater_loss_fraction", Dimension.Dimensionless, minSi: 0, maxSi: 0.99) ?? 0.0;
+        var lossStd = t.Quantity("heater_loss_fraction_uncertainty", Dimension.Dimensionless, minSi: 0, maxSi: 1) ?? 0.0;
+        var planes = new Dictionary<string, double>(StringComparer.Ordinal);
+        var planeTable = t.Table("planes", required: true);
+        if (planeTable is not null)
+        {
+            foreach (var key in planeTable.Node.Keys.ToList())
+            {
+                if (planeTable.Quantity(key, Dimension.Length) is { } z)
+                {
+                    planes[key] = z;
+                }
+            }
+            foreach (var needed in new[] { "inlet", "outlet" })
+            {
+                if (!planes.ContainsKey(needed) && !planeTable.Node.TryGet(needed, out _))
+                {
+                    planeTable.Report(needed, $"plane '{needed}' must be given (its axial position, e.g. \"0.2 m\")");
+                }
+            }
+            if (planes.TryGetValue("inlet", out var zIn) && planes.TryGetValue("outlet", out var zOut) && zOut <= zIn)
+            {
+                planeTable.Report("outlet", "the outlet plane must lie downstream of the inlet plane (larger axial position)");
+            }
+        }
+        if (diameter is { } d && roughness >= d / 2)
+        {
+            t.Report("wall_roughness", "wall roughness is not smaller than the radius: impossible geometry");
+        }
+        t.RejectUnknownKeys();
+        return diameter is null ? null : new DuctGeometry(diameter.Value, diameterStd, roughness, heated, loss, lossStd, planes);
+    }
+
+    private static LogFormat? ReadLog(TableReader? t)
+    {
+        if (t is null)
+        {
+            return null;
+        }
+        var timeColumn = t.String("time_column", required: true) ?? "time";
+        var format = t.Choice("time_format", ["seconds", "iso8601"], "seconds") == "iso8601" ? TimeFormat.Iso8601 : TimeFormat.Seconds;
+        var separatorText = t.Choice("separator", ["auto", ",", ";", "tab"], "auto");
+        char? separator = separatorText switch { "," => ',', ";" => ';', "tab" => '\t', _ => null };
+        var decimalText = t.Choice("decimal", [".", ","], ".");
+        var decimalSeparator = decimalText[0];
+        if (separator == ',' && decimalSeparator == ',')
+        {
+            t.Report("decimal", "a decimal comma needs another column separator (';' or tab)");
+        }
+        t.RejectUnknownKeys();
+        return new LogFormat(timeColumn, format, separator, decimalSeparator);
+    }
+
+    private static ChannelSpec? ReadChannel(TableReader t, HashSet<string> declaredIds)
+    {
+        var id = t.String("id", required: true);
+        if (id is not null)
+        {
+            declaredIds.Add(id);
+        }
+        var column = t.String("column") ?? id;
+        var roleText = t.TryChoice("measures", Roles, "other");
+        if (roleText is null)
+        {
+            // Units and coefficients cannot be judged without knowing what is measured: report only the role.
+            t.AcceptAllKeys();
+            return null;
+        }
+        var role = ParseRole(roleText);
+        var dimension = DimensionOf(role);
+        var plane = t.String("plane");
+        var position = t.Quantity("position", Dimension.Length);
+        var reference = t.String("reference");
+        var isKey = t.Bool("key", false);
+        var sensor = ReadSensor(t, dimension);
+        var uncertainty = t.Tables("uncertainty").Select(u => ReadUncertainty(u, dimension)).Where(u => u is not null).Select(u => u!).ToList();
+        TareSpec? tare = null;
+        if (t.Table("tare") is { } tareTable)
+        {
+            var start = ReadTime(tareTable, "from");
+            var end = ReadTime(tareTable, "to");
+            tareTable.RejectUnknownKeys();
+            tare = start is null || end is null ? null : new TareSpec(start, end);
+        }
+        var record = ReadRecord(t);
+        if (role == ChannelRole.WallTemperature && position is null)
+        {
+            t.Report("position", "a wall_temperature channel needs its axial position, e.g. position = \"0.5 m\"");
+        }
+        if (role is ChannelRole.StaticPressure or ChannelRole.BulkTemperature && plane is null)
+        {
+            t.Report("plane", $"a {roleText} channel needs the plane it measures, e.g. plane = \"inlet\"");
+        }
+        t.RejectUnknownKeys();
+        return id is null || sensor is null
+            ? null
+            : new ChannelSpec(id, column!, role, dimension, plane, position, reference, sensor, uncertainty, tare, record, isKey, t.Location with { Key = $"channel '{id}'" });
+    }
+
+    private static SensorSpec? ReadSensor(TableReader t, Dimension dimension)
+    {
+        var kind = t.Choice("sensor", SensorKinds, "direct");
+        switch (kind)
+        {
+            case "thermocouple":
+            {
+                var rawUnit = t.String("raw_unit") ?? "mV";
+                var rawToSi = AffineOf(t, "raw_unit", rawUnit, Dimension.Voltage);
+                var type = t.Choice("type", ThermocoupleTypes, "K");
+                var cjChannel = t.String("cold_junction");
+                var cjFixed = t.Quantity("cold_junction_temperature", Dimension.Temperature, minSi: 173.15, maxSi: 423.15);
+                if (cjChannel is null && cjFixed is null)
+                {
+                    t.Report("cold_junction", "a thermocouple needs cold-junction compensation: cold_junction = \"<RTD channel id>\" or cold_junction_temperature = \"0 degC\"");
+                }
+                var tolerance = t.Choice("tolerance_class", ["1", "2", "3"], "2");
+                return rawToSi is null ? null : new ThermocoupleSensor(rawUnit, rawToSi.Value, type, cjChannel, cjFixed, t.Has("tolerance_class") ? tolerance : null);
+            }
+            case "rtd":
+            {
+                var rawUnit = t.String("raw_unit") ?? "ohm";
+                var rawToSi = AffineOf(t, "raw_unit", rawUnit, Dimension.Resistance);
+                var r0 = t.Quantity("r0", Dimension.Resistance, minSi: 1, maxSi: 1e5) ?? 100.0;
+                var tolerance = t.Choice("tolerance_class", ["AA", "A", "B", "C"], "B");
+                return rawToSi is null ? null : new RtdSensor(rawUnit, rawToSi.Value, r0, t.Has("tolerance_class") ? tolerance : null);
+            }
+            case "direct":
+            {
+                var unit = t.String("unit") ?? UnitText.SiSymbol(dimension);
+                var unitToSi = AffineOf(t, "unit", unit, dimension);
+                return unitToSi is null ? null : new DirectSensor(unit, unitToSi.Value);
+            }
+            default:
+            {
+                var rawUnit = t.String("raw_unit", required: true) ?? "V";
+                var unit = t.String("unit") ?? UnitText.SiSymbol(dimension);
+                var unitToSi = AffineOf(t, "unit", unit, dimension);
+                // Raw signals of generic sensors may be volts, amps or ohms: accept any of those.
+                var rawToSi = AffineOfAny(t, "raw_unit", rawUnit, [Dimension.Voltage, Dimension.Current, Dimension.Resistance, Dimension.Frequency, dimension]);
+                if (unitToSi is null || rawToSi is null)
+                {
+                    return null;
+                }
+                return kind switch
+                {
+                    "linear" => t.Number("gain", required: true) is { } gain
+                        ? new LinearSensor(rawUnit, unit, rawToSi.Value, unitToSi.Value, gain, t.Number("offset") ?? 0.0)
+                        : null,
+                    "polynomial" => ReadNumbers(t, "coefficients") is { Count: > 0 } c
+                        ? new PolynomialSensor(rawUnit, unit, rawToSi.Value, unitToSi.Value, c)
+                        : null,
+                    _ => ReadTable(t, rawUnit, unit, rawToSi.Value, unitToSi.Value),
+                };
+            }
+        }
+    }
+
+    private static TableSensor? ReadTable(TableReader t, string rawUnit, string unit, Affine rawToSi, Affine unitToSi)
+    {
+        var points = t.Array("points", required: true);
+        var degree = (int)(t.Number("degree", min: 1, max: 5) ?? 1);
+        if (points is null)
+        {
+            return null;
+        }
+        var raw = new List<double>();
+        var values = new List<double>();
+        foreach (var point in points)
+        {
+            if (point.Value is List<TomlEntry> { Count: 2 } pair && pair[0].Value is double x && pair[1].Value is double y)
+            {
+                raw.Add(x);
+                values.Add(y);
+            }
+            else
+            {
+                t.Report("points", $"each calibration point must be [raw, value]; {point.Path} is not");
+                return null;
+            }
+        }
+        if (raw.Count < degree + 2)
+        {
+            t.Report("points", $"a degree-{degree} fit needs at least {degree + 2} points to estimate its residual; found {raw.Count}");
+            return null;
+        }
+        return new TableSensor(rawUnit, unit, rawToSi, unitToSi, raw, values, degree);
+    }
+
+    private static List<double>? ReadNumbers(TableReader t, string key)
+    {
+        var items = t.Array(key, required: true);
+        if (items is null)
+        {
+            return null;
+        }
+        var numbers = new List<double>();
+        foreach (var item in items)
+        {
+            if (item.Value is double d)
+            {
+                numbers.Add(d);
+            }
+            else
+            {
+                t.Report(key, $"{item.Path} is not a number");
+                return null;
+            }
+        }
+        return numbers;
+    }
+
+    private static UncertaintyTerm? ReadUncertainty(TableReader t, Dimension dimension)
+    {
+        var spread = dimension == Dimension.Temperature ? Dimension.TemperatureDifference : dimension;
+        var kind = t.Choice("kind", ["certificate", "reading", "span", "absolute", "resolution", "class"], "absolute");
+        var source = t.String("source") ?? kind;
+        var reliability = t.Quantity("reliability", Dimension.Dimensionless, minSi: 0.01, maxSi: 1);
+        // GUM G.4.2: nu = 1/2 (relative uncertainty of u)^-2; no statement means the term is taken as exact.
+        var dof = reliability is { } r ? 0.5 / (r * r) : double.PositiveInfinity;
+        var distribution = t.Choice("distribution", ["rectangular", "normal", "triangular", "arcsine"], kind == "certificate" ? "normal" : "rectangular");
+        UncertaintyTerm? term = kind switch
+        {
+            "certificate" => t.Quantity("expanded", spread, required: true, minSi: 0) is { } u
+                ? new UncertaintyTerm(UncertaintyTermKind.Certificate, u, t.Number("k", min: 1, max: 10) ?? 2.0, "normal", dof, source, null)
+                : null,
+            "reading" => t.Quantity("value", Dimension.Dimensionless, required: true, minSi: 0, maxSi: 1) is { } f
+                ? new UncertaintyTerm(UncertaintyTermKind.PercentOfReading, f, 1, distribution, dof, source, null)
+                : null,
+            "span" => (t.Quantity("value", Dimension.Dimensionless, required: true, minSi: 0, maxSi: 1), t.Quantity("span", spread, required: true, minSi: 0)) is ({ } f, { } s)
+                ? new UncertaintyTerm(UncertaintyTermKind.PercentOfSpan, f * s, 1, distribution, dof, source, null)
+                : null,
+            "absolute" => t.Quantity("value", spread, required: true, minSi: 0) is { } a
+                ? new UncertaintyTerm(UncertaintyTermKind.Absolute, a, 1, distribution, dof, source, null)
+                : null,
+            "resolution" => t.Quantity("value", spread, required: true, minSi: 0) is { } step
+                ? new UncertaintyTerm(UncertaintyTermKind.Resolution, step, 1, "rectangular", dof, source, null)
+                : null,
+            _ => t.String("class", required: true) is { } c
+                ? new UncertaintyTerm(UncertaintyTermKind.ToleranceClass, 0, 1, "rectangular", dof, source, c)
+                : null,
+        };
+        t.RejectUnknownKeys();
+        return term;
+    }
+
+    private static CalibrationRecord? ReadRecord(TableReader t)
+    {
+        var certificate = t.String("certificate");
+        var calibrated = ReadDate(t, "calibrated");
+        var due = ReadDate(t, "calibration_due");
+        return certificate is null && calibrated is null && due is null ? null : new CalibrationRecord(certificate, calibrated, due);
+    }
+
+    private static DateOnly? ReadDate(TableReader t, string key)
+    {
+        var entry = t.Has(key) ? t.Node.TryGet(key, out var e) ? e : null : null;
+        if (entry is null)
+        {
+            return null;
+        }
+        var text = entry.Value as string ?? "";
+        if (DateOnly.TryParseExact(text.Trim(), "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var date))
+        {
+            return date;
+        }
+        t.Report(key, $"'{text}' is not a date written yyyy-mm-dd");
+        return null;
+    }
+
+    private static PointSpec? ReadPoint(TableReader t)
+    {
+        var id = t.String("id", required: true);
+        var start = ReadTime(t, "start");
+        var end = ReadTime(t, "end");
+        if (start is not null && end is not null && start.IsAbsolute == end.IsAbsolute && end.Seconds <= start.Seconds)
+        {
+            t.Report("end", "the window ends before it starts");
+        }
+        t.RejectUnknownKeys();
+        return id is null || start is null || end is null ? null : new PointSpec(id, start, end, t.Location with { Key = $"point '{id}'" });
+    }
+
+    private static TimeBound? ReadTime(TableReader t, string key)
+    {
+        if (!t.Has(key))
+        {
+            t.Report(key, $"required key '{key}' is missing (a time since the first sample, e.g. \"40 min\", or an ISO-8601 time)");
+            return null;
+        }
+        t.Node.TryGet(key, out var entry);
+        if (entry.Value is string text && DateTimeOffset.TryParse(text, CultureInfo.InvariantCulture, DateTimeStyles.AssumeUniversal, out var when) && text.Contains('-', StringComparison.Ordinal))
+        {
+            return new TimeBound(when.ToUnixTimeMilliseconds() / 1000.0, true);
+        }
+        return t.Quantity(key, Dimension.Duration, required: true, minSi: 0) is { } seconds ? new TimeBound(seconds, false) : null;
+    }
+
+    private static SteadySettings ReadSteady(TableReader? t, IReadOnlyList<ChannelSpec> channels, HashSet<string> declaredIds)
+    {
+        if (t is null)
+        {
+            return new SteadySettings(1.0, 300.0, 300.0, 180.0, []);
+        }
+        var block = t.Quantity("block", Dimension.Duration, minSi: 0.01, maxSi: 600) ?? 1.0;
+        var window = t.Quantity("window", Dimension.Duration, minSi: 1, maxSi: 86400) ?? 300.0;
+        var minDuration = t.Quantity("min_duration", Dimension.Duration, minSi: 1, maxSi: 86400) ?? window;
+        var tail = t.Quantity("settled_tail", Dimension.Duration, minSi: 1, maxSi: 86400) ?? minDuration;
+        var keys = new List<SteadyKey>();
+        foreach (var k in t.Tables("key"))
+        {
+            var channelId = k.String("channel", required: true);
+            var channel = channels.FirstOrDefault(c => c.Id == channelId);
+            if (channelId is not null && channel is null)
+            {
+                if (!declaredIds.Contains(channelId))
+                {
+                    k.Report("channel", $"no channel with id '{channelId}'{TableReader.Suggest(channelId, declaredIds)}");
+                }
+                k.AcceptAllKeys();
+                continue;
+            }
+            var spread = channel?.Dimension == Dimension.Temperature ? Dimension.TemperatureDifference : channel?.Dimension ?? Dimension.Dimensionless;
+            var change = k.Quantity("max_change", spread, required: true, minSi: 0);
+            var scatter = k.Quantity("max_scatter", spread, required: true, minSi: 0);
+            var step = k.Quantity("step", spread, minSi: 0);
+            k.RejectUnknownKeys();
+            if (channelId is not null && change is not null && scatter is not null)
+            {
+                keys.Add(new SteadyKey(channelId, change.Value, scatter.Value, step ?? 4 * scatter.Value));
+            }
+        }
+        t.RejectUnknownKeys();
+        return new SteadySettings(block, window, minDuration, tail, keys);
+    }
+
+    private static ProfileSettings ReadProfiles(TableReader? t)
+    {
+        if (t is null)
+        {
+            return new ProfileSettings(41, "auto", null, null);
+        }
+        var points = t.Number("points", min: 3, max: MaxRadialPoints) ?? 41;
+        var model = t.Choice("velocity_model", VelocityModels, "auto");
+        var intensity = t.Quantity("turbulence_intensity", Dimension.Dimensionless, minSi: 0, maxSi: 1);
+        var length = t.Quantity("length_scale", Dimension.Length, minSi: 0);
+        t.RejectUnknownKeys();
+        return new ProfileSettings((int)points, model, intensity, length);
+    }
+
+    private static void CheckReferences(List<ChannelSpec> channels, DuctGeometry? duct, List<PointSpec> points, List<Problem> problems)
+    {
+        var ids = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var channel in channels)
+        {
+            if (!ids.Add(channel.Id))
+            {
+                problems.Add(new Problem(channel.Location, $"channel id '{channel.Id}' is used twice"));
+            }
+        }
+        foreach (var channel in channels)
+        {
+            if (channel.ReferenceChannel is { } reference && channels.All(c => c.Id != reference))
+            {
+                problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.reference" }, $"no channel with id '{reference}'{TableReader.Suggest(reference, ids)}"));
+            }
+            if (channel.Sensor is ThermocoupleSensor { ColdJunctionChannel: { } cj } && channels.All(c => c.Id != cj))
+            {
+                problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.cold_junction" }, $"no channel with id '{cj}'{TableReader.Suggest(cj, ids)}"));
+            }
+            if (channel.Plane is { } plane && duct is not null && !duct.PlanePositionsM.ContainsKey(plane))
+            {
+                problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.plane" }, $"no plane '{plane}' in [duct.planes]{TableReader.Suggest(plane, duct.PlanePositionsM.Keys)}"));
+            }
+        }
+        var pointIds = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var point in points.Where(p => !pointIds.Add(p.Id)))
+        {
+            problems.Add(new Problem(point.Location, $"point id '{point.Id}' is used twice"));
+        }
+    }
+
+    private static Affine? AffineOf(TableReader t, string key, string unit, Dimension dimension) => AffineOfAny(t, key, unit, [dimension]);
+
+    private static Affine? AffineOfAny(TableReader t, string key, string unit, IReadOnlyList<Dimension> dimensions)
+    {
+        foreach (var dimension in dimensions)
+        {
+            if (UnitText.TryUnitToSi(0.0, unit, dimension, out var shift, out _) && UnitText.TryUnitToSi(1.0, unit, dimension, out var one, out _))
+            {
+                return new Affine(one - shift, shift);
+            }
+        }
+        t.Report(key, $"'{unit}' is not a unit of {string.Join(" or ", dimensions.Distinct().Select(d => d.ToString().ToLowerInvariant()))}");
+        return null;
+    }
+
+    private static ChannelRole ParseRole(string text) => text switch
+    {
+        "barometric_pressure" => ChannelRole.BarometricPressure,
+        "static_pressure" => ChannelRole.StaticPressure,
+        "differential_pressure" => ChannelRole.DifferentialPressure,
+        "bulk_temperature" => ChannelRole.BulkTemperature,
+        "wall_temperature" => ChannelRole.WallTemperature,
+        "cold_junction_temperature" => ChannelRole.ColdJunctionTemperature,
+        "mass_flow" => ChannelRole.MassFlow,
+        "heater_voltage" => ChannelRole.HeaterVoltage,
+        "heater_current" => ChannelRole.HeaterCurrent,
+        "heater_power" => ChannelRole.HeaterPower,
+        "relative_humidity" => ChannelRole.RelativeHumidity,
+        _ => ChannelRole.Other,
+    };
+
+    private static Dimension DimensionOf(ChannelRole role) => role switch
+    {
+        ChannelRole.BarometricPressure or ChannelRole.StaticPressure or ChannelRole.DifferentialPressure => Dimension.Pressure,
+        ChannelRole.BulkTemperature or ChannelRole.WallTemperature or ChannelRole.ColdJunctionTemperature => Dimension.Temperature,
+        ChannelRole.MassFlow => Dimension.MassFlow,
+        ChannelRole.HeaterVoltage => Dimension.Voltage,
+        ChannelRole.HeaterCurrent => Dimension.Current,
+        ChannelRole.HeaterPower => Dimension.Power,
+        _ => Dimension.Dimensionless,
+    };
+}
