@@ -73,7 +73,7 @@ public static class RigLoader
         }
         var diameter = t.Quantity("inner_diameter", Dimension.Length, required: true, minSi: 1e-3, maxSi: 10);
         var diameterStd = t.Quantity("inner_diameter_uncertainty", Dimension.Length, minSi: 0) ?? 0.0;
-        var roughness = t.Quantity("wall_roughness", Dimension.Length, minSi: 0, maxSi: 0.01) ?? 0.0;
+        var roughness = t.Quantity("wall_roughness", Dimension.Length, minSi: 0) ?? 0.0;
         var heated = t.Quantity("heated_length", Dimension.Length, minSi: 0, maxSi: 1000) ?? 0.0;
         var loss = t.Quantity("heater_loss_fraction", Dimension.Dimensionless, minSi: 0, maxSi: 0.99) ?? 0.0;
         var lossStd = t.Quantity("heater_loss_fraction_uncertainty", Dimension.Dimensionless, minSi: 0, maxSi: 1) ?? 0.0;

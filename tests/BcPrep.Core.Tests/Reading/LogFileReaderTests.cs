@@ -1,0 +1,127 @@
+using System.IO.Compression;
+using System.Text;
+using BcPrep.Reading;
+using BcPrep.Rig;
+
+namespace BcPrep.Tests.Reading;
+
+public class LogFileReaderTests
+{
+    private static readonly LogFormat Seconds = new("t", TimeFormat.Seconds, null, '.');
+
+    private static (double[] Time, double[][] Columns) ReadAll(string path, LogFormat format, params string[] columns)
+    {
+        using var reader = new LogFileReader(LogInput.FromPath(path), format, columns);
+        var block = new LogBlock(columns.Length, 3); // small blocks exercise block boundaries
+        var time = new List<double>();
+        var values = columns.Select(_ => new List<double>()).ToArray();
+        while (reader.ReadBlock(block))
+        {
+            for (var i = 0; i < block.Count; i++)
+            {
+                time.Add(block.TimeS[i]);
+                for (var c = 0; c < columns.Length; c++)
+                {
+                    values[c].Add(block.Columns[c][i]);
+                }
+            }
+        }
+        return (time.ToArray(), values.Select(v => v.ToArray()).ToArray());
+    }
+
+    [Fact]
+    public void Reads_comma_separated_columns_by_name_across_blocks()
+    {
+        using var files = new TempFiles();
+        var path = files.Write("a.csv", "t,a,b\n0,1.5,10\n0.5,2.5,20\n1.0,3.5,30\n1.5,4.5,40\n2.0,,50\n");
+        var (time, columns) = ReadAll(path, Seconds, "b", "a");
+        Assert.Equal([0, 0.5, 1.0, 1.5, 2.0], time);
+        Assert.Equal([10, 20, 30, 40, 50], columns[0]);
+        Assert.Equal(3.5, columns[1][2]);
+        Assert.True(double.IsNaN(columns[1][4])); // empty cell is a gap, not zero
+    }
+
+    [Fact]
+    public void Reads_semicolon_with_decimal_comma_BOM_and_CRLF()
+    {
+        using var files = new TempFiles();
+        var path = files.Write("eu.csv", "t;a\r\n0;1,25\r\n1;-2,5e-1\r\n", bom: true);
+        var (time, columns) = ReadAll(path, Seconds with { DecimalSeparator = ',' }, "a");
+        Assert.Equal([0.0, 1.0], time);
+        Assert.Equal([1.25, -0.25], columns[0]);
+    }
+
+    [Fact]
+    public void Reads_gzip_by_content_and_tab_separator()
+    {
+        using var files = new TempFiles();
+        using var memory = new MemoryStream();
+        using (var gz = new GZipStream(memory, CompressionLevel.Fastest, leaveOpen: true))
+        {
+            gz.Write(Encoding.UTF8.GetBytes("t\ta\n0\t7\n1\t8\n"));
+        }
+        var path = files.WriteBytes("day.csv.gz", memory.ToArray());
+        var (_, columns) = ReadAll(path, Seconds with { Separator = '\t' }, "a");
+        Assert.Equal([7.0, 8.0], columns[0]);
+    }
+
+    [Fact]
+    public void Reads_ISO_8601_timestamps_as_seconds_since_epoch()
+    {
+        using var files = new TempFiles();
+        var path = files.Write("iso.csv", "stamp,a\n2026-11-24T09:00:00.000,1\n2026-11-24T09:00:00.500,2\n");
+        var (time, _) = ReadAll(path, new LogFormat("stamp", TimeFormat.Iso8601, ',', '.'), "a");
+        var expected = new DateTimeOffset(2026, 11, 24, 9, 0, 0, TimeSpan.Zero).ToUnixTimeSeconds();
+        Assert.Equal(expected, time[0], 6);
+        Assert.Equal(0.5, time[1] - time[0], 9);
+    }
+
+    [Theory]
+    [InlineData("t,a\n0,1\n1,x\n", 3, 2, "'x' is not a number")]
+    [InlineData("t,a\n0,1\n1,2,3\n", 3, null, "3 fields but the header has 2")]
+    [InlineData("t,a\n0,1\n0,2\n", 3, 1, "repeats")]
+    [InlineData("t,a\n1,1\n0,2\n", 3, 1, "goes back")]
+    [InlineData("t,a\n0,1\n1,Infinity\n", 3, 2, "infinite")]
+    [InlineData("t,a\n0,1\n\n1,oops\n", 4, 2, "not a number")]
+    public void Bad_rows_name_file_line_and_column(string text, int line, int? column, string fragment)
+    {
+        using var files = new TempFiles();
+        var path = files.Write("bad.csv", text);
+        var failure = Assert.Throws<BcPrepFailure>(() => ReadAll(path, Seconds, "a"));
+        Assert.Equal(FailureKind.InputData, failure.Kind);
+        var problem = Assert.Single(failure.Problems);
+        Assert.Equal(path, problem.Location.File);
+        Assert.Equal(line, problem.Location.Line);
+        Assert.Equal(column, problem.Location.Column);
+        Assert.Contains(fragment, problem.Message, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("", "empty")]
+    [InlineData("x,a\n0,1\n", "no time column 't'")]
+    [InlineData("t,b\n0,1\n", "'a' named in the rig file is not in the header")]
+    public void Bad_headers_are_reported(string text, string fragment)
+    {
+        using var files = new TempFiles();
+        var path = files.Write("h.csv", text);
+        var failure = Assert.Throws<BcPrepFailure>(() => ReadAll(path, Seconds, "a"));
+        Assert.Contains(fragment, Assert.Single(failure.Problems).Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_directory_given_as_a_log_is_reported_as_such()
+    {
+        using var files = new TempFiles();
+        var failure = Assert.Throws<BcPrepFailure>(() => ReadAll(files.Root, Seconds, "a"));
+        Assert.Contains("directory", failure.Problems[0].Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_huge_line_is_refused_rather_than_buffered()
+    {
+        using var files = new TempFiles();
+        var path = files.Write("huge.csv", "t,a\n0,1\n1,\"" + new string('9', LogFileReader.MaxRecordBytes * 3) + "\n");
+        var failure = Assert.Throws<BcPrepFailure>(() => ReadAll(path, Seconds, "a"));
+        Assert.Equal(3, failure.Problems[0].Location.Line);
+    }
+}
