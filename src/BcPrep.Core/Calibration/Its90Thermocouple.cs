@@ -39,7 +39,7 @@ public static class Its90Thermocouple
     public static CalibrationRange InverseRangeV(ThermocoupleType type)
     {
         var limits = Limits[(int)type];
-        return new CalibrationRange(limits.MinMv / MillivoltsPerVolt, limits.MaxMv / MillivoltsPerVolt);
+        return new CalibrationRange(limits.MinV, limits.MaxV);
     }
 
     /// <summary>
@@ -80,11 +80,12 @@ public static class Its90Thermocouple
 
         var table = Its90Coefficients.For(type);
         var limits = Limits[(int)type];
-        double e = emfV * MillivoltsPerVolt;
-        if (!(e >= limits.MinMv && e <= limits.MaxMv))
+        if (!(emfV >= limits.MinV && emfV <= limits.MaxV))
         {
             throw InverseRangeV(type).OutOfRange(emfV, Invariant($"Type {type} thermocouple emf (V)"));
         }
+
+        double e = emfV * MillivoltsPerVolt;
 
         double t = InversePolynomialC(table, e);
         if (method == ThermocoupleInverseMethod.ExactNewton)
@@ -98,9 +99,11 @@ public static class Its90Thermocouple
     internal static double DirectMv(Its90Table table, double t)
     {
         var pieces = table.Direct;
-        var piece = t <= pieces[0].MaxC ? pieces[0] : pieces[1];
-        double e = Polynomial.Evaluate(piece.Coefficients, t);
-        if (table.HasExponentialTerm && t >= 0.0)
+        bool upper = t > pieces[0].MaxC;
+        double e = Polynomial.Evaluate((upper ? pieces[1] : pieces[0]).Coefficients, t);
+
+        // The type K exponential term belongs to the 0 … 1372 °C piece only.
+        if (upper && table.HasExponentialTerm)
         {
             double d = t - Its90Coefficients.KExpA2;
             e += Its90Coefficients.KExpA0 * Math.Exp(Its90Coefficients.KExpA1 * d * d);
@@ -112,9 +115,9 @@ public static class Its90Thermocouple
     internal static double DirectSlopeMvPerC(Its90Table table, double t)
     {
         var pieces = table.Direct;
-        var piece = t <= pieces[0].MaxC ? pieces[0] : pieces[1];
-        double slope = Polynomial.Derivative(piece.Coefficients, t);
-        if (table.HasExponentialTerm && t >= 0.0)
+        bool upper = t > pieces[0].MaxC;
+        double slope = Polynomial.Derivative((upper ? pieces[1] : pieces[0]).Coefficients, t);
+        if (upper && table.HasExponentialTerm)
         {
             double d = t - Its90Coefficients.KExpA2;
             slope += Its90Coefficients.KExpA0 * Math.Exp(Its90Coefficients.KExpA1 * d * d) * 2.0 * Its90Coefficients.KExpA1 * d;
@@ -172,14 +175,14 @@ public static class Its90Thermocouple
             var first = table.Inverse[0];
             var last = table.Inverse[^1];
             limits[(int)type] = new InverseLimits(
-                Math.Min(first.MinMv, DirectMv(table, first.MinC)),
-                Math.Max(last.MaxMv, DirectMv(table, last.MaxC)));
+                Math.Min(first.MinMv, DirectMv(table, first.MinC)) / MillivoltsPerVolt,
+                Math.Max(last.MaxMv, DirectMv(table, last.MaxC)) / MillivoltsPerVolt);
         }
 
         return limits;
     }
 
-    private readonly record struct InverseLimits(double MinMv, double MaxMv);
+    private readonly record struct InverseLimits(double MinV, double MaxV);
 
     private readonly struct DirectFunction(Its90Table table) : IDifferentiableFunction
     {
