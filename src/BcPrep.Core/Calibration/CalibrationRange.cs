@@ -43,5 +43,21 @@ public readonly record struct CalibrationRange
     public BcPrepDataException OutOfRange(double value, string quantity) =>
         new(Invariant($"{quantity} {value:R} is outside the valid range [{Min:R}, {Max:R}]; refusing to extrapolate."));
 
+    /// <summary>
+    /// Returns <paramref name="value"/> clamped into the range when it lies outside by no more than rounding
+    /// (1e-9 of the range's scale), so that an inverse computed at an end point is not rejected; otherwise returns
+    /// the value unchanged for the caller to reject.
+    /// </summary>
+    internal double ClampRounding(double value)
+    {
+        double slack = 1e-9 * Math.Max(Max - Min, Math.Max(Math.Abs(Min), Math.Abs(Max)));
+        if (value < Min && value >= Min - slack)
+        {
+            return Min;
+        }
+
+        return value > Max && value <= Max + slack ? Max : value;
+    }
+
     public override string ToString() => Invariant($"[{Min:R}, {Max:R}]");
 }
