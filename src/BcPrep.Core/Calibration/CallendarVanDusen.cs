@@ -1,0 +1,105 @@
+using static System.FormattableString;
+
+namespace BcPrep.Calibration;
+
+/// <summary>
+/// Platinum RTD resistance–temperature relation of IEC 60751 (Callendar–Van Dusen, α = 0.00385):
+/// R(t) = R0(1 + A t + B t²) for 0 … 850 °C and R(t) = R0[1 + A t + B t² + C (t − 100) t³] for −200 … 0 °C,
+/// A = 3.9083E-3 °C⁻¹, B = −5.775E-7 °C⁻², C = −4.183E-12 °C⁻⁴. Temperatures in K, resistance in Ω.
+/// NaN inputs return NaN; values outside −200 … 850 °C (or the matching resistance span) throw
+/// <see cref="BcPrepDataException"/>.
+/// </summary>
+public static class CallendarVanDusen
+{
+    public const double A = 3.9083E-3;
+    public const double B = -5.775E-7;
+    public const double C = -4.183E-12;
+
+    private const double MinC = -200.0;
+    private const double MaxC = 850.0;
+    private const double BoundarySlackC = 1e-9;
+    private const double NewtonToleranceC = 1e-10;
+
+    /// <summary>Valid temperature range: −200 … 850 °C, in K.</summary>
+    public static CalibrationRange RangeK { get; } =
+        new(MinC + Its90Thermocouple.KelvinOffset, MaxC + Its90Thermocouple.KelvinOffset);
+
+    /// <summary>Valid resistance range (Ω) of a sensor with nominal <paramref name="nominal"/>: [R(−200 °C), R(850 °C)].</summary>
+    public static CalibrationRange ResistanceRangeOhm(RtdNominal nominal)
+    {
+        double r0 = CheckedR0(nominal);
+        return new CalibrationRange(r0 * Ratio(MinC), r0 * Ratio(MaxC));
+    }
+
+    /// <summary>Resistance R (Ω) at <paramref name="temperatureK"/> by the CVD equation.</summary>
+    public static double ResistanceOhm(RtdNominal nominal, double temperatureK) =>
+        CheckedR0(nominal) * Ratio(CheckedCelsius(temperatureK));
+
+    /// <summary>Slope dR/dT (Ω/K) at <paramref name="temperatureK"/>: the analytic derivative of the CVD equation.</summary>
+    public static double SlopeOhmPerK(RtdNominal nominal, double temperatureK) =>
+        CheckedR0(nominal) * RatioSlope(CheckedCelsius(temperatureK));
+
+    /// <summary>
+    /// Temperature (K) for a measured resistance (Ω): closed-form root of the quadratic for R ≥ R0, safeguarded
+    /// Newton on the quartic (seeded by the quadratic root, to 1e-10 °C) for R &lt; R0.
+    /// </summary>
+    public static double TemperatureK(RtdNominal nominal, double resistanceOhm)
+    {
+        double r0 = CheckedR0(nominal);
+        if (double.IsNaN(resistanceOhm))
+        {
+            return double.NaN;
+        }
+
+        double ratio = resistanceOhm / r0;
+        if (!(ratio >= Ratio(MinC) && ratio <= Ratio(MaxC)))
+        {
+            throw ResistanceRangeOhm(nominal).OutOfRange(resistanceOhm, Invariant($"RTD (R0 = {r0:R} ohm) resistance (ohm)"));
+        }
+
+        double t = QuadraticRootC(ratio);
+        if (ratio < 1.0)
+        {
+            t = MonotoneSolver.Solve(new LowRangeRatio(), ratio, MinC, 0.0, t, NewtonToleranceC);
+        }
+
+        return t + Its90Thermocouple.KelvinOffset;
+    }
+
+    private static double QuadraticRootC(double ratio)
+    {
+        // Rationalised root of B t² + A t − (ratio − 1) = 0: no cancellation near ratio = 1.
+        double x = ratio - 1.0;
+        return 2.0 * x / (A + Math.Sqrt((A * A) + (4.0 * B * x)));
+    }
+
+    private static double Ratio(double t) => t >= 0.0
+        ? 1.0 + (t * (A + (t * B)))
+        : 1.0 + (t * (A + (t * (B + (t * (t - 100.0) * C)))));
+
+    private static double RatioSlope(double t) => t >= 0.0
+        ? A + (2.0 * B * t)
+        : A + (t * ((2.0 * B) + (t * ((4.0 * C * t) - (300.0 * C)))));
+
+    private static double CheckedCelsius(double temperatureK)
+    {
+        double t = temperatureK - Its90Thermocouple.KelvinOffset;
+        if (!(t >= MinC - BoundarySlackC && t <= MaxC + BoundarySlackC) && !double.IsNaN(t))
+        {
+            throw RangeK.OutOfRange(temperatureK, "RTD temperature (K)");
+        }
+
+        return Math.Clamp(t, MinC, MaxC);
+    }
+
+    private static double CheckedR0(RtdNominal nominal) => nominal.R0Ohm > 0.0
+        ? nominal.R0Ohm
+        : throw new BcPrepDataException("RTD nominal resistance R0 is not set (must be positive).");
+
+    private readonly struct LowRangeRatio : IDifferentiableFunction
+    {
+        public double Value(double x) => Ratio(x);
+
+        public double Slope(double x) => RatioSlope(x);
+    }
+}

@@ -1,0 +1,193 @@
+using static System.FormattableString;
+
+namespace BcPrep.Calibration;
+
+/// <summary>
+/// ITS-90 thermocouple reference functions of NIST Monograph 175 for types K, T, J, E, N (reference junction at
+/// 0 °C). Public API in SI: temperature in K, emf in V. Coefficients and ranges: <see cref="Its90Coefficients"/>.
+/// NaN inputs return NaN; out-of-range inputs throw <see cref="BcPrepDataException"/> (never extrapolated).
+/// </summary>
+public static class Its90Thermocouple
+{
+    /// <summary>T(K) = t90(°C) + 273.15.</summary>
+    public const double KelvinOffset = 273.15;
+
+    private const double MillivoltsPerVolt = 1000.0;
+
+    // Slack for the K→°C conversion: 73.15 − 273.15 is not exactly −200 in binary floating point.
+    private const double BoundarySlackC = 1e-9;
+
+    private const double NewtonToleranceC = 1e-9;
+
+    private static readonly InverseLimits[] Limits = BuildInverseLimits();
+
+    /// <summary>
+    /// Valid temperature range (K) of the direct function E(T): K −270…1372 °C, T −270…400 °C, J −210…1200 °C,
+    /// E −270…1000 °C, N −270…1300 °C.
+    /// </summary>
+    public static CalibrationRange DirectRangeK(ThermocoupleType type)
+    {
+        var direct = Its90Coefficients.For(type).Direct;
+        return new CalibrationRange(direct[0].MinC + KelvinOffset, direct[^1].MaxC + KelvinOffset);
+    }
+
+    /// <summary>
+    /// Valid emf range (V) of the inverse functions: the emf span of the inverse temperature range (K, T, E, N from
+    /// −200 °C; J from −210 °C), taking the wider of the published mV limit and the direct function at the end
+    /// temperature (they differ by less than the published 1 µV rounding).
+    /// </summary>
+    public static CalibrationRange InverseRangeV(ThermocoupleType type)
+    {
+        var limits = Limits[(int)type];
+        return new CalibrationRange(limits.MinV, limits.MaxV);
+    }
+
+    /// <summary>
+    /// Thermoelectric emf E (V) of a thermocouple at <paramref name="temperatureK"/> with its reference junction at
+    /// 0 °C: E = Σ c_i t^i (t in °C, Horner), plus a0·exp(a1(t − a2)²) for type K at t ≥ 0 °C.
+    /// Throws <see cref="BcPrepDataException"/> outside <see cref="DirectRangeK"/>.
+    /// </summary>
+    public static double EmfV(ThermocoupleType type, double temperatureK)
+    {
+        var table = Its90Coefficients.For(type);
+        double t = CheckedCelsius(type, table, temperatureK);
+        return DirectMv(table, t) / MillivoltsPerVolt;
+    }
+
+    /// <summary>
+    /// Seebeck coefficient dE/dT (V/K) at <paramref name="temperatureK"/>: the analytic derivative of the direct
+    /// function. Throws <see cref="BcPrepDataException"/> outside <see cref="DirectRangeK"/>.
+    /// </summary>
+    public static double SeebeckVPerK(ThermocoupleType type, double temperatureK)
+    {
+        var table = Its90Coefficients.For(type);
+        double t = CheckedCelsius(type, table, temperatureK);
+        return DirectSlopeMvPerC(table, t) / MillivoltsPerVolt;
+    }
+
+    /// <summary>
+    /// Temperature (K) of the measuring junction for emf <paramref name="emfV"/> (reference junction at 0 °C), by the
+    /// NIST inverse polynomial (default) or the exact inverse of the direct function (<paramref name="method"/>).
+    /// Throws <see cref="BcPrepDataException"/> naming the value and range outside <see cref="InverseRangeV"/>.
+    /// </summary>
+    public static double TemperatureK(
+        ThermocoupleType type, double emfV, ThermocoupleInverseMethod method = ThermocoupleInverseMethod.NistPolynomial)
+    {
+        if (double.IsNaN(emfV))
+        {
+            return double.NaN;
+        }
+
+        var table = Its90Coefficients.For(type);
+        var limits = Limits[(int)type];
+        if (!(emfV >= limits.MinV && emfV <= limits.MaxV))
+        {
+            throw InverseRangeV(type).OutOfRange(emfV, Invariant($"Type {type} thermocouple emf (V)"));
+        }
+
+        double e = emfV * MillivoltsPerVolt;
+
+        double t = InversePolynomialC(table, e);
+        if (method == ThermocoupleInverseMethod.ExactNewton)
+        {
+            t = ExactInverseC(table, e, t);
+        }
+
+        return t + KelvinOffset;
+    }
+
+    internal static double DirectMv(Its90Table table, double t)
+    {
+        var pieces = table.Direct;
+        bool upper = t > pieces[0].MaxC;
+        double e = Polynomial.Evaluate((upper ? pieces[1] : pieces[0]).Coefficients, t);
+
+        // The type K exponential term belongs to the 0 … 1372 °C piece only.
+        if (upper && table.HasExponentialTerm)
+        {
+            double d = t - Its90Coefficients.KExpA2;
+            e += Its90Coefficients.KExpA0 * Math.Exp(Its90Coefficients.KExpA1 * d * d);
+        }
+
+        return e;
+    }
+
+    internal static double DirectSlopeMvPerC(Its90Table table, double t)
+    {
+        var pieces = table.Direct;
+        bool upper = t > pieces[0].MaxC;
+        double slope = Polynomial.Derivative((upper ? pieces[1] : pieces[0]).Coefficients, t);
+        if (upper && table.HasExponentialTerm)
+        {
+            double d = t - Its90Coefficients.KExpA2;
+            slope += Its90Coefficients.KExpA0 * Math.Exp(Its90Coefficients.KExpA1 * d * d) * 2.0 * Its90Coefficients.KExpA1 * d;
+        }
+
+        return slope;
+    }
+
+    /// <summary>Inverse polynomial piece for E (mV): interior boundaries at the published mV limits, lower piece wins ties.</summary>
+    internal static InversePiece InversePieceFor(Its90Table table, double e)
+    {
+        var pieces = table.Inverse;
+        for (int i = 0; i < pieces.Length - 1; i++)
+        {
+            if (e <= pieces[i].MaxMv)
+            {
+                return pieces[i];
+            }
+        }
+
+        return pieces[^1];
+    }
+
+    private static double InversePolynomialC(Its90Table table, double e) =>
+        Polynomial.Evaluate(InversePieceFor(table, e).Coefficients, e);
+
+    private static double ExactInverseC(Its90Table table, double e, double seedC)
+    {
+        // One degree of slack either side so that emf inside the published (rounded) limits still brackets a root.
+        double lo = table.Inverse[0].MinC - 1.0;
+        double hi = table.Inverse[^1].MaxC + 1.0;
+        return MonotoneSolver.Solve(new DirectFunction(table), e, lo, hi, seedC, NewtonToleranceC);
+    }
+
+    private static double CheckedCelsius(ThermocoupleType type, Its90Table table, double temperatureK)
+    {
+        double t = temperatureK - KelvinOffset;
+        double min = table.Direct[0].MinC;
+        double max = table.Direct[^1].MaxC;
+        if (!(t >= min - BoundarySlackC && t <= max + BoundarySlackC) && !double.IsNaN(t))
+        {
+            throw DirectRangeK(type).OutOfRange(temperatureK, Invariant($"Type {type} thermocouple temperature (K)"));
+        }
+
+        return Math.Clamp(t, min, max);
+    }
+
+    private static InverseLimits[] BuildInverseLimits()
+    {
+        var types = Enum.GetValues<ThermocoupleType>();
+        var limits = new InverseLimits[types.Length];
+        foreach (var type in types)
+        {
+            var table = Its90Coefficients.For(type);
+            var first = table.Inverse[0];
+            var last = table.Inverse[^1];
+            limits[(int)type] = new InverseLimits(
+                Math.Min(first.MinMv, DirectMv(table, first.MinC)) / MillivoltsPerVolt,
+                Math.Max(last.MaxMv, DirectMv(table, last.MaxC)) / MillivoltsPerVolt);
+        }
+
+        return limits;
+    }
+
+    private readonly record struct InverseLimits(double MinV, double MaxV);
+
+    private readonly struct DirectFunction(Its90Table table) : IDifferentiableFunction
+    {
+        public double Value(double x) => DirectMv(table, x);
+
+        public double Slope(double x) => DirectSlopeMvPerC(table, x);
+    }
+}
