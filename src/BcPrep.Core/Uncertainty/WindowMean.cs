@@ -9,6 +9,12 @@ namespace BcPrep.Uncertainty;
 /// u(x̄) = s·√[(n − 1)/(n(n_eff − 1))] corrects for E[s²] = σ²(n − γ_n)/(n − 1) (Zhang 2006, Metrologia 43 S276).
 /// ρ̂(k) comes from MathNet's FFT autocorrelation, so the cost is O(n log n) (10⁶ samples in well under a second).
 /// </summary>
+/// <remarks>
+/// Degrees of freedom: ν = min(n_eff − 1, n/(2M + 1)). The first term is the common practice; alone it ignores that
+/// γ̂_n itself is an estimate, and 95 % intervals then cover AR(1) truths only ~93 % of the time (tested). The second
+/// term is the reliability of u through γ̂: var(γ̂)/γ² ≈ 2(2M + 1)/n for a window summed to lag M (Sokal 1997, from
+/// memory), so Δu/u ≈ √((2M + 1)/(2n)) and GUM G.3 gives ν = ½(Δu/u)⁻² = n/(2M + 1).
+/// </remarks>
 public static class WindowMean
 {
     /// <summary>
@@ -36,7 +42,7 @@ public static class WindowMean
         var naive = s / Math.Sqrt(n);
         if (isConstant)
         {
-            return new WindowMeanResult(mean, 0.0, n, 0, true, 1.0, 1.0, n, 0.0, n - 1.0, 0.0, true, options.Cutoff);
+            return new WindowMeanResult(mean, 0.0, n, 0, true, 1.0, 1.0, n, 0.0, n - 1.0, n - 1.0, double.PositiveInfinity, 0.0, true, options.Cutoff);
         }
 
         var rho = Correlation.Auto(samples, 0, n - 1);
@@ -52,7 +58,9 @@ public static class WindowMean
         }
 
         var u = s * Math.Sqrt((n - 1.0) / (n * (nEff - 1.0)));
-        return new WindowMeanResult(mean, s, n, cutoff, converged, gammaRaw, gamma, nEff, u, nEff - 1.0, naive, false, options.Cutoff);
+        var nuGamma = n / (2.0 * cutoff + 1.0);
+        return new WindowMeanResult(mean, s, n, cutoff, converged, gammaRaw, gamma, nEff, u,
+            Math.Min(nEff - 1.0, nuGamma), nEff - 1.0, nuGamma, naive, false, options.Cutoff);
     }
 
     private static (double Mean, double StandardDeviation, bool IsConstant) MeanAndStandardDeviation(double[] x)

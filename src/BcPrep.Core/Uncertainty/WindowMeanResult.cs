@@ -14,7 +14,9 @@ namespace BcPrep.Uncertainty;
 /// <param name="IntegratedAutocorrelation">γ_n used: max(γ̂_n, 1), so anti-correlation never claims more than n independent samples ("common practice", conservative).</param>
 /// <param name="EffectiveSampleCount">n_eff = n/γ_n.</param>
 /// <param name="StandardUncertainty">u(x̄) = s·√[(n − 1)/(n(n_eff − 1))] (bias-corrected, Zhang 2006); 0 for a constant channel.</param>
-/// <param name="DegreesOfFreedom">ν = n_eff − 1 ("common practice"; not standardised).</param>
+/// <param name="DegreesOfFreedom">ν used for coverage factors: min(<paramref name="EffectiveSampleDegreesOfFreedom"/>, <paramref name="AutocorrelationEstimateDegreesOfFreedom"/>).</param>
+/// <param name="EffectiveSampleDegreesOfFreedom">n_eff − 1 ("common practice"; not standardised).</param>
+/// <param name="AutocorrelationEstimateDegreesOfFreedom">n/(2M + 1): reliability of u through the estimated γ_n (GUM G.3 with Sokal's variance of γ̂, from memory); +∞ for a constant channel.</param>
 /// <param name="NaiveStandardUncertainty">s/√n, valid only for uncorrelated samples; for comparison.</param>
 /// <param name="IsConstant">All samples equal (e.g. a stuck channel or a quantised constant): u = 0 is reported, not NaN.</param>
 /// <param name="Cutoff">The cut-off rule used.</param>
@@ -29,6 +31,8 @@ public sealed record WindowMeanResult(
     double EffectiveSampleCount,
     double StandardUncertainty,
     double DegreesOfFreedom,
+    double EffectiveSampleDegreesOfFreedom,
+    double AutocorrelationEstimateDegreesOfFreedom,
     double NaiveStandardUncertainty,
     bool IsConstant,
     AutocorrelationCutoff Cutoff)
