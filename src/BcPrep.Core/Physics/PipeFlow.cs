@@ -46,4 +46,18 @@ public static class PipeFlow
 
     /// <summary>True when Ma &gt; <see cref="CompressibilityWarningMach"/>.</summary>
     public static bool IsCompressibilityWarning(double mach) => mach > CompressibilityWarningMach;
+
+    /// <summary>Wall shear stress τ_w = (f/8) ρ U², Pa, from a Darcy friction factor.</summary>
+    public static double WallShearStress(double darcyFrictionFactor, double densityKgPerM3, double bulkVelocityMPerS) =>
+        Require.Positive(darcyFrictionFactor, "Darcy friction factor", "") / 8.0 * Require.Positive(densityKgPerM3, "density", "kg/m3")
+        * Require.NonNegative(bulkVelocityMPerS, "bulk velocity", "m/s") * bulkVelocityMPerS;
+
+    /// <summary>Friction velocity u_τ = U √(f/8), m/s, from a Darcy friction factor.</summary>
+    public static double FrictionVelocity(double bulkVelocityMPerS, double darcyFrictionFactor) =>
+        Require.NonNegative(bulkVelocityMPerS, "bulk velocity", "m/s") * Math.Sqrt(Require.Positive(darcyFrictionFactor, "Darcy friction factor", "") / 8.0);
+
+    /// <summary>Fully developed pressure gradient magnitude dp/dx = (f/D) ½ ρ U², Pa/m (Darcy–Weisbach).</summary>
+    public static double PressureGradient(double darcyFrictionFactor, double diameterM, double densityKgPerM3, double bulkVelocityMPerS) =>
+        Require.Positive(darcyFrictionFactor, "Darcy friction factor", "") / Require.Positive(diameterM, "pipe diameter", "m")
+        * 0.5 * Require.Positive(densityKgPerM3, "density", "kg/m3") * Require.NonNegative(bulkVelocityMPerS, "bulk velocity", "m/s") * bulkVelocityMPerS;
 }
