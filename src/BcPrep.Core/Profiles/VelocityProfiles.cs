@@ -113,12 +113,16 @@ public static class VelocityProfiles
 
             case VelocityProfileModel.PowerLaw:
                 {
-                    var f = FrictionFactor.Colebrook(reynolds, request.RelativeRoughness);
+                    // With a given n the friction factor is only reported, so it is left NaN in laminar flow.
+                    var f = request.PowerLawExponent is null || reynolds > LaminarReynoldsLimit
+                        ? FrictionFactor.Colebrook(reynolds, request.RelativeRoughness)
+                        : double.NaN;
                     var n = request.PowerLawExponent is { } given
                         ? Require.InRange(given, 1.0, 20.0, "power-law exponent", "", "the power-law profile")
                         : 1.0 / Math.Sqrt(f);
                     var uMax = bulk / PowerLawBulkToCentrelineRatio(n);
-                    return new ModelShape(r => uMax * Math.Pow(Math.Max(1.0 - (r / radius), 0.0), 1.0 / n), f, PipeFlow.FrictionVelocity(bulk, f), n, true, radius);
+                    var uTau = double.IsNaN(f) ? double.NaN : PipeFlow.FrictionVelocity(bulk, f);
+                    return new ModelShape(r => uMax * Math.Pow(Math.Max(1.0 - (r / radius), 0.0), 1.0 / n), f, uTau, n, true, radius);
                 }
 
             case VelocityProfileModel.Spalding:

@@ -116,6 +116,14 @@ public class VelocityProfileTests
     }
 
     [Fact]
+    public void Given_power_law_exponent_works_in_laminar_flow_and_reports_no_friction_factor()
+    {
+        var result = VelocityProfiles.Build(new VelocityProfileRequest(MassFlowFor(1000.0, 0.05), Rho, Mu, 0.05, VelocityProfileModel.PowerLaw, PowerLawExponent: 7.0));
+        Assert.True(double.IsNaN(result.DarcyFrictionFactor));
+        Assert.Equal(7.0, result.PowerLawExponent);
+    }
+
+    [Fact]
     public void Uniform_profile_equals_bulk_velocity()
     {
         var result = VelocityProfiles.Build(new VelocityProfileRequest(0.02, 1.17662, 1.846e-5, 0.05, VelocityProfileModel.Uniform));
