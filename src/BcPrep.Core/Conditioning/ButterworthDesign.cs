@@ -23,15 +23,17 @@ public static class ButterworthDesign
         Validate(order, cutoffHz, sampleRateHz);
         double k = Math.Tan(Math.PI * cutoffHz / sampleRateHz); // Ω_c / (2 f_s)
         var poles = new Complex[order];
+        var gainProduct = Complex.One;
         for (int i = 1; i <= order; i++)
         {
             var s = Complex.FromPolarCoordinates(k, Math.PI * ((2 * i) + order - 1) / (2.0 * order));
             poles[i - 1] = (1.0 + s) / (1.0 - s);
+            gainProduct *= -s / (1.0 - s); // (1 − p)/2 without the cancellation of 1 − p near z = 1
         }
 
         double[] a = Polynomial.FromRoots(poles);
         double[] b = Binomial(order);
-        double gain = a.Sum() / Math.Pow(2.0, order);
+        double gain = gainProduct.Real;
         for (int i = 0; i < b.Length; i++)
         {
             b[i] *= gain;
