@@ -60,10 +60,14 @@ public static class MainsNotch
         return IirFilter.FromSections(sections);
     }
 
-    /// <summary>Applies <see cref="WithHarmonics"/> zero-phase (forward–backward, odd padding); the notch depth is squared.</summary>
+    /// <summary>
+    /// Applies <see cref="WithHarmonics"/> zero-phase (forward–backward, odd padding); the notch depth is squared.
+    /// Pad length: <see cref="ZeroPhaseFilter.SettlingPadLength"/> (narrow notches ring for ~f_s·Q/(π·f0) samples).
+    /// </summary>
+    /// <exception cref="BcPrepDataException">Series not longer than that pad, or invalid notch settings.</exception>
     public static double[] Apply(ReadOnlySpan<double> x, double mainsHz, double qualityFactor, int harmonicCount, double sampleRateHz)
     {
         var filter = WithHarmonics(mainsHz, qualityFactor, harmonicCount, sampleRateHz);
-        return ZeroPhaseFilter.FiltFilt(filter.Sections, x);
+        return ZeroPhaseFilter.FiltFilt(filter.Sections, x, ZeroPhaseFilter.SettlingPadLength(filter.Sections));
     }
 }
