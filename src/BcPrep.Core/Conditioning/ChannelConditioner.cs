@@ -1,0 +1,90 @@
+namespace BcPrep.Conditioning;
+
+/// <summary>Runs the conditioning chain on one channel.</summary>
+public static class ChannelConditioner
+{
+    /// <summary>Text written to the manifest for the edge handling of zero-phase filtering.</summary>
+    public const string PaddingMethod =
+        "odd extension, steady-state initial conditions (pad); pad length = samples for the slowest pole to decay to 1e-3, capped at segment length − 1";
+
+    /// <summary>
+    /// Gaps are bridged first (<see cref="GapBridging.Bridge"/>); Hampel spike removal runs on the result; notch and
+    /// low-pass run zero-phase on each gap-free segment separately (NaN cells and unbridged time jumps cut segments),
+    /// because filtering across a gap would smear invented values. Sample rate = 1 / nominal interval.
+    /// Pad length: <see cref="ZeroPhaseFilter.SettlingPadLength"/> (1e-3 residual), capped at segment length − 1; segments not
+    /// longer than the scipy default pad are set to NaN and counted in the report.
+    /// </summary>
+    /// <exception cref="BcPrepDataException">Invalid settings or time stamps (see the step functions).</exception>
+    public static ConditionedSeries Condition(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values, ConditioningSettings settings)
+    {
+        ArgumentNullException.ThrowIfNull(settings);
+        var gaps = GapBridging.Bridge(timesS, values, settings.MaxBridgeS);
+        var hampel = HampelFilter.Apply(gaps.Values, settings.HampelHalfWindow, settings.HampelSigmas, settings.HampelScaleFloor);
+        double[] x = hampel.Values;
+        double fs = 1.0 / gaps.Report.NominalIntervalS;
+
+        var sections = new List<SecondOrderSection>();
+        var notches = new List<double>();
+        if (settings.MainsHz is double mains)
+        {
+            var notch = MainsNotch.WithHarmonics(mains, settings.NotchQ, settings.NotchHarmonics, fs);
+            sections.AddRange(notch.Sections);
+            notches.AddRange(Enumerable.Range(1, notch.Sections.Count).Select(k => k * mains));
+        }
+
+        if (settings.LowPassCutoffHz is double cutoff)
+        {
+            sections.AddRange(ButterworthDesign.LowPass(settings.LowPassOrder, cutoff, fs).Sections);
+        }
+
+        int segments = 0, unfiltered = 0;
+        if (sections.Count > 0)
+        {
+            (segments, unfiltered) = FilterSegments(gaps.TimesS, x, sections, 1.5 * gaps.Report.NominalIntervalS);
+        }
+
+        var spikeTimes = hampel.ReplacedIndices.Select(i => gaps.TimesS[i]).ToArray();
+        var report = new ConditioningReport(gaps.Report, hampel.ReplacedIndices.Count, spikeTimes, notches,
+            settings.LowPassCutoffHz, segments, unfiltered, sections.Count > 0 ? PaddingMethod : "none");
+        return new ConditionedSeries(gaps.TimesS, x, gaps.Interpolated, report);
+    }
+
+    private static (int Segments, int Unfiltered) FilterSegments(double[] t, double[] x, List<SecondOrderSection> sections, double jumpS)
+    {
+        int minimumPad = ZeroPhaseFilter.DefaultPadLength(sections);
+        int settlingPad = ZeroPhaseFilter.SettlingPadLength(sections);
+        int segments = 0, unfiltered = 0;
+        int start = 0;
+        while (start < x.Length)
+        {
+            if (!double.IsFinite(x[start]))
+            {
+                start++;
+                continue;
+            }
+
+            int end = start + 1;
+            while (end < x.Length && double.IsFinite(x[end]) && t[end] - t[end - 1] <= jumpS)
+            {
+                end++;
+            }
+
+            int length = end - start;
+            if (length > minimumPad)
+            {
+                int pad = Math.Min(settlingPad, length - 1);
+                ZeroPhaseFilter.FiltFilt(sections, x.AsSpan(start, length), pad).CopyTo(x.AsSpan(start, length));
+                segments++;
+            }
+            else
+            {
+                x.AsSpan(start, length).Fill(double.NaN);
+                unfiltered += length;
+            }
+
+            start = end;
+        }
+
+        return (segments, unfiltered);
+    }
+}

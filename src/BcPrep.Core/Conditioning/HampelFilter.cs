@@ -1,0 +1,178 @@
+using System.Globalization;
+
+namespace BcPrep.Conditioning;
+
+/// <summary>Result of <see cref="HampelFilter.Apply"/>: the cleaned series and the 0-based indices replaced.</summary>
+public sealed record HampelResult(double[] Values, IReadOnlyList<int> ReplacedIndices);
+
+/// <summary>Moving-window Hampel identifier for spike removal.</summary>
+public static class HampelFilter
+{
+    /// <summary>MAD-to-σ factor for Gaussian data, 1/Φ⁻¹(0.75).</summary>
+    public const double MadToSigma = 1.482602218505602;
+
+    /// <summary>
+    /// For each sample i, over the window i−k…i+k (truncated at the ends; non-finite samples excluded), takes the
+    /// median m_i and MAD_i = median|x_j − m_i|; replaces x_i by m_i when |x_i − m_i| &gt; n_σ·max(1.4826·MAD_i, floor).
+    /// Windows are built from the original samples (not from already replaced ones).
+    /// Flat-window rule: when MAD_i = 0 (more than half the window identical) and <paramref name="scaleFloor"/> is 0,
+    /// nothing is flagged in that window; give the sensor resolution as the floor to catch spikes on a quantised,
+    /// flat signal. NaN/∞ samples are passed through unchanged and never counted as replaced.
+    /// Cost O(n·k) with a sorted window, no per-sample allocation.
+    /// </summary>
+    /// <param name="x">Samples (any unit).</param>
+    /// <param name="halfWindow">k ≥ 1 neighbours per side (default 3).</param>
+    /// <param name="sigmaThreshold">n_σ &gt; 0 (default 3).</param>
+    /// <param name="scaleFloor">Lower bound of the robust σ, same unit as x, ≥ 0 (default 0).</param>
+    /// <exception cref="BcPrepDataException">k &lt; 1, n_σ ≤ 0 or floor &lt; 0.</exception>
+    public static HampelResult Apply(ReadOnlySpan<double> x, int halfWindow = 3, double sigmaThreshold = 3.0, double scaleFloor = 0.0)
+    {
+        Validate(halfWindow, sigmaThreshold, scaleFloor);
+        int n = x.Length;
+        var output = x.ToArray();
+        var replaced = new List<int>();
+        var window = new SortedWindow((2 * halfWindow) + 1);
+
+        int right = -1;
+        for (int i = 0; i < n; i++)
+        {
+            int leaving = i - halfWindow - 1;
+            if (leaving >= 0)
+            {
+                window.Remove(x[leaving]);
+            }
+
+            while (right < Math.Min(n - 1, i + halfWindow))
+            {
+                right++;
+                window.Add(x[right]);
+            }
+
+            if (!double.IsFinite(x[i]) || window.Count == 0)
+            {
+                continue;
+            }
+
+            double median = window.Median();
+            double scale = Math.Max(MadToSigma * window.MedianAbsoluteDeviation(median), scaleFloor);
+            if (scale > 0.0 && Math.Abs(x[i] - median) > sigmaThreshold * scale)
+            {
+                output[i] = median;
+                replaced.Add(i);
+            }
+        }
+
+        return new HampelResult(output, replaced);
+    }
+
+    private static void Validate(int halfWindow, double sigmaThreshold, double scaleFloor)
+    {
+        if (halfWindow < 1)
+        {
+            throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture,
+                $"Hampel half-window {halfWindow} must be at least 1."));
+        }
+
+        if (!(sigmaThreshold > 0.0) || !double.IsFinite(sigmaThreshold))
+        {
+            throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture,
+                $"Hampel threshold {sigmaThreshold} (multiples of σ) must be positive and finite."));
+        }
+
+        if (!(scaleFloor >= 0.0) || !double.IsFinite(scaleFloor))
+        {
+            throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture,
+                $"Hampel scale floor {scaleFloor} must be zero or positive."));
+        }
+    }
+
+    /// <summary>A small sorted multiset of finite values with median and MAD by merging the two sides of the median.</summary>
+    private sealed class SortedWindow(int capacity)
+    {
+        private readonly double[] _sorted = new double[capacity];
+
+        public int Count { get; private set; }
+
+        public void Add(double value)
+        {
+            if (!double.IsFinite(value))
+            {
+                return;
+            }
+
+            int pos = LowerBound(value);
+            Array.Copy(_sorted, pos, _sorted, pos + 1, Count - pos);
+            _sorted[pos] = value;
+            Count++;
+        }
+
+        public void Remove(double value)
+        {
+            if (!double.IsFinite(value))
+            {
+                return;
+            }
+
+            int pos = LowerBound(value);
+            Array.Copy(_sorted, pos + 1, _sorted, pos, Count - pos - 1);
+            Count--;
+        }
+
+        public double Median()
+        {
+            int h = Count / 2;
+            return (Count % 2 == 1) ? _sorted[h] : 0.5 * (_sorted[h - 1] + _sorted[h]);
+        }
+
+        /// <summary>
+        /// Deviations below the median (m − s[i], i descending) and above it (s[j] − m, j ascending) are each sorted,
+        /// so the middle order statistics of |s − m| come from a merge that stops halfway.
+        /// </summary>
+        public double MedianAbsoluteDeviation(double median)
+        {
+            int lo = LowerBound(median) - 1;
+            int hi = lo + 1;
+            int h = Count / 2;
+            double previous = 0.0;
+            double current = 0.0;
+            for (int rank = 0; rank <= h; rank++)
+            {
+                previous = current;
+                double dLow = lo >= 0 ? median - _sorted[lo] : double.PositiveInfinity;
+                double dHigh = hi < Count ? _sorted[hi] - median : double.PositiveInfinity;
+                if (dLow <= dHigh)
+                {
+                    current = dLow;
+                    lo--;
+                }
+                else
+                {
+                    current = dHigh;
+                    hi++;
+                }
+            }
+
+            return (Count % 2 == 1) ? current : 0.5 * (previous + current);
+        }
+
+        private int LowerBound(double value)
+        {
+            int lo = 0;
+            int hi = Count;
+            while (lo < hi)
+            {
+                int mid = (lo + hi) >>> 1;
+                if (_sorted[mid] < value)
+                {
+                    lo = mid + 1;
+                }
+                else
+                {
+                    hi = mid;
+                }
+            }
+
+            return lo;
+        }
+    }
+}
