@@ -98,7 +98,9 @@ internal static class Program
                 wallK[w] += (steadyWall - wallK[w]) * (1 - Math.Exp(-dt / 480.0));
             }
             var inletGauge = RigPhysics.InletGaugePa(massFlow);
-            var outletGauge = inletGauge - RigPhysics.FrictionDropPa(massFlow, baroPa + inletGauge, ambientK, RigPhysics.OutletPlaneM - RigPhysics.InletPlaneM);
+            var outletGauge = inletGauge
+                - RigPhysics.FrictionDropPa(massFlow, baroPa + inletGauge, 0.5 * (ambientK + outletK), RigPhysics.OutletPlaneM - RigPhysics.InletPlaneM)
+                - RigPhysics.AccelerationDropPa(massFlow, baroPa + inletGauge, ambientK, outletK);
             const double heaterOhm = 24.0;
             var volts = Math.Sqrt(heaterPower * heaterOhm);
             var amps = volts / heaterOhm;

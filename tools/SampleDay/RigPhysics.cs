@@ -42,6 +42,13 @@ internal static class RigPhysics
         return f * lengthM / DiameterM * 0.5 * rho * u * u;
     }
 
+    /// <summary>Static-pressure drop of a heated flow that accelerates as its density falls: G²(1/ρ_out − 1/ρ_in).</summary>
+    public static double AccelerationDropPa(double massFlowKgS, double pressurePa, double inletK, double outletK)
+    {
+        var g = massFlowKgS / AreaM2;
+        return g * g * ((1 / Density(pressurePa, outletK)) - (1 / Density(pressurePa, inletK)));
+    }
+
     public static double OutletBulkK(double inletK, double massFlowKgS, double heaterPowerW) =>
         massFlowKgS <= 1e-6 ? inletK : inletK + (heaterPowerW * (1 - HeaterLossFraction) / (massFlowKgS * CpJkgK));
 

@@ -8,5 +8,6 @@ public static class CommandCatalog
     public static IEnumerable<Command> Build(CommonOptions common, CliContext context) =>
     [
         CheckCommand.Create(common, context),
+        ProcessCommand.Create(common, context),
     ];
 }

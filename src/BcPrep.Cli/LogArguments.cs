@@ -1,0 +1,68 @@
+using System.Security.Cryptography;
+using BcPrep.Reading;
+using BcPrep.Writing;
+
+namespace BcPrep.Cli;
+
+/// <summary>
+/// Resolves the LOG arguments: '-' means standard input, which is copied to a temporary file first (the day is
+/// read twice when operating points are detected); everything else is a path.
+/// </summary>
+public sealed class LogArguments : IDisposable
+{
+    private readonly List<string> _temporary = [];
+
+    public LogArguments(IReadOnlyList<string> arguments, CliContext context)
+    {
+        if (arguments.Count(a => a == "-") > 1)
+        {
+            throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation("(command line)"), "standard input ('-') can be given only once");
+        }
+        Inputs = arguments.Select(a => a == "-" ? SpillStandardInput(context) : LogInput.FromPath(a)).ToList();
+    }
+
+    public IReadOnlyList<LogInput> Inputs { get; }
+
+    public static InputFingerprint Fingerprint(string displayName, string path)
+    {
+        try
+        {
+            using var stream = File.OpenRead(path);
+            var hash = SHA256.HashData(stream);
+            return new InputFingerprint(displayName, stream.Length, Convert.ToHexStringLower(hash));
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            var reason = Directory.Exists(path) ? "it is a directory, not a file" : e.Message;
+            throw new BcPrepFailure(FailureKind.InputData, new SourceLocation(displayName), "cannot read: " + reason);
+        }
+    }
+
+    public IReadOnlyList<InputFingerprint> Fingerprints() => Inputs.Select(i => Fingerprint(i.DisplayName, i.Path)).ToList();
+
+    public void Dispose()
+    {
+        foreach (var path in _temporary)
+        {
+            try
+            {
+                File.Delete(path);
+            }
+            catch (IOException)
+            {
+            }
+        }
+    }
+
+    private LogInput SpillStandardInput(CliContext context)
+    {
+        var path = Path.Combine(Path.GetTempPath(), "bcprep-stdin-" + Guid.NewGuid().ToString("N") + ".log");
+        _temporary.Add(path);
+        using (var target = File.Create(path))
+        using (var source = context.OpenStandardInput())
+        {
+            source.CopyTo(target);
+        }
+        return new LogInput("(standard input)", path);
+    }
+}

@@ -1,0 +1,113 @@
+using BcPrep.Calibration;
+using BcPrep.Rig;
+using BcPrep.Uncertainty;
+
+namespace BcPrep.Pipeline;
+
+/// <summary>
+/// One channel's value in the measurement model: its window mean (Type A input), minus a tare mean, plus every
+/// Type B error input with its sensitivity. Inputs shared between channels (a cold-junction sensor's error acting
+/// on every thermocouple it serves) appear in several channels' terms, which is how their correlation arises.
+/// </summary>
+public sealed class ChannelInputs
+{
+    private readonly List<(int Index, double Coefficient)> _terms = [];
+
+    public ChannelInputs(string channel, int meanIndex)
+    {
+        Channel = channel;
+        MeanIndex = meanIndex;
+    }
+
+    public string Channel { get; }
+
+    public int MeanIndex { get; }
+
+    public int? TareIndex { get; set; }
+
+    public IReadOnlyList<(int Index, double Coefficient)> Terms => _terms;
+
+    public void AddTerm(int index, double coefficient) => _terms.Add((index, coefficient));
+
+    public double ValueAt(double[] x)
+    {
+        var value = x[MeanIndex];
+        if (TareIndex is { } tare)
+        {
+            value -= x[tare];
+        }
+        foreach (var (index, coefficient) in _terms)
+        {
+            value += coefficient * x[index];
+        }
+        return value;
+    }
+}
+
+/// <summary>Turns a channel's rig-file uncertainty terms into standard uncertainties at the reading.</summary>
+public static class TypeBTerms
+{
+    /// <summary>Standard uncertainty (SI) of one term at the channel's mean reading.</summary>
+    public static double StandardUncertainty(UncertaintyTerm term, ChannelSpec channel, double meanSi)
+    {
+        var halfWidthOrU = term.Kind switch
+        {
+            UncertaintyTermKind.Certificate => TypeB.FromCertificate(term.ValueSi, term.CoverageFactor),
+            UncertaintyTermKind.PercentOfReading => term.ValueSi * Math.Abs(meanSi),
+            UncertaintyTermKind.PercentOfSpan => term.ValueSi,
+            UncertaintyTermKind.Absolute => term.ValueSi,
+            UncertaintyTermKind.Resolution => TypeB.FromResolution(term.ValueSi),
+            UncertaintyTermKind.ToleranceClass => ToleranceHalfWidth(term, channel, meanSi),
+            _ => throw new ArgumentOutOfRangeException(nameof(term)),
+        };
+        if (term.Kind is UncertaintyTermKind.Certificate or UncertaintyTermKind.Resolution)
+        {
+            return halfWidthOrU;
+        }
+        return term.Distribution switch
+        {
+            "normal" => halfWidthOrU,
+            "triangular" => TypeB.FromTriangularHalfWidth(halfWidthOrU),
+            "arcsine" => TypeB.FromArcSineHalfWidth(halfWidthOrU),
+            _ => TypeB.FromRectangularHalfWidth(halfWidthOrU),
+        };
+    }
+
+    public static DistributionKind Distribution(UncertaintyTerm term) => term.Kind switch
+    {
+        UncertaintyTermKind.Certificate => DistributionKind.Normal,
+        UncertaintyTermKind.Resolution => DistributionKind.Rectangular,
+        _ => term.Distribution switch
+        {
+            "normal" => DistributionKind.Normal,
+            "triangular" => DistributionKind.Triangular,
+            "arcsine" => DistributionKind.ArcSine,
+            _ => DistributionKind.Rectangular,
+        },
+    };
+
+    private static double ToleranceHalfWidth(UncertaintyTerm term, ChannelSpec channel, double temperatureK)
+    {
+        var cls = term.ToleranceClass ?? "";
+        switch (channel.Sensor)
+        {
+            case ThermocoupleSensor tc:
+                var tcClass = cls switch
+                {
+                    "1" => ThermocoupleToleranceClass.Class1,
+                    "2" => ThermocoupleToleranceClass.Class2,
+                    "3" => ThermocoupleToleranceClass.Class3,
+                    _ => throw new BcPrepFailure(FailureKind.Configuration, channel.Location, $"thermocouple tolerance class '{cls}' is not 1, 2 or 3 (IEC 60584-1)"),
+                };
+                return ToleranceClasses.ThermocoupleHalfWidthK(ChannelConversion.ThermocoupleTypeOf(tc), tcClass, temperatureK);
+            case RtdSensor:
+                if (!Enum.TryParse<RtdToleranceClass>(cls, out var rtdClass))
+                {
+                    throw new BcPrepFailure(FailureKind.Configuration, channel.Location, $"RTD tolerance class '{cls}' is not AA, A, B or C (IEC 60751)");
+                }
+                return ToleranceClasses.RtdHalfWidthK(rtdClass, RtdElementKind.WireWound, temperatureK);
+            default:
+                throw new BcPrepFailure(FailureKind.Configuration, channel.Location, "a tolerance class applies only to thermocouples and RTDs");
+        }
+    }
+}

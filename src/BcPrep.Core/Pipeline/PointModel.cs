@@ -1,0 +1,296 @@
+using System.Collections.Immutable;
+using BcPrep.Calibration;
+using BcPrep.Profiles;
+using BcPrep.Rig;
+using BcPrep.Uncertainty;
+
+namespace BcPrep.Pipeline;
+
+/// <summary>
+/// The measurement model of one operating point: the list of uncertainty inputs (window means, tares, every Type B
+/// term, geometry and property-model factors) and the function from those inputs to every boundary-condition
+/// quantity and profile point. GUM propagation, Monte Carlo and ensembles all evaluate this same function.
+/// </summary>
+public sealed class PointModel
+{
+    // Property-model uncertainty, rectangular half-widths: Sutherland's law against Incropera Table A.4 deviates by
+    // 0.2–0.7 % (reference sheet §7, table from memory); ideal-gas cp against 1-atm tables by 0.2–0.4 %.
+    public const double ViscosityModelHalfWidth = 0.007;
+    public const double CpModelHalfWidth = 0.004;
+
+    private readonly List<UncertaintyInput> _inputs = [];
+    private readonly Dictionary<string, ChannelInputs> _channels = new(StringComparer.Ordinal);
+    private readonly PointSettings _settings;
+    private int _diameter;
+    private int _loss;
+    private int _viscosityFactor;
+    private int _cpFactor;
+    private Func<double[], double> _inletPressure = null!;
+    private Func<double[], double> _outletPressure = null!;
+    private Func<double[], double> _inletTemperature = null!;
+    private Func<double[], double> _outletTemperature = null!;
+    private Func<double[], double> _massFlow = null!;
+    private Func<double[], double> _heaterPower = null!;
+    private IReadOnlyList<ChannelSpec> _wallChannels = [];
+
+    private PointModel(PointSettings settings) => _settings = settings;
+
+    public IReadOnlyList<UncertaintyInput> Inputs => _inputs;
+
+    public IReadOnlyList<QuantityDefinition> Outputs { get; private set; } = [];
+
+    public ImmutableArray<double> ProfileRadiiM { get; private set; } = [];
+
+    public PointSettings Settings => _settings;
+
+    public static PointModel Build(
+        RigDescription rig,
+        IReadOnlyDictionary<string, ChannelWindowStats> window,
+        IReadOnlyDictionary<string, ChannelWindowStats> tares)
+    {
+        var model = new PointModel(SettingsOf(rig));
+        model.AddChannelInputs(rig, window, tares);
+        model.AddModelInputs(rig);
+        model.ResolveRoles(rig);
+        model.DefineOutputs();
+        return model;
+    }
+
+    public static PointSettings SettingsOf(RigDescription rig)
+    {
+        var spacing = rig.Duct.PlanePositionsM["outlet"] - rig.Duct.PlanePositionsM["inlet"];
+        var model = rig.Profiles.VelocityModel switch
+        {
+            "uniform" => VelocityProfileModel.Uniform,
+            "laminar" => VelocityProfileModel.Laminar,
+            "power_law" => VelocityProfileModel.PowerLaw,
+            "spalding" => VelocityProfileModel.Spalding,
+            "reichardt" => VelocityProfileModel.Reichardt,
+            _ => VelocityProfileModel.Auto,
+        };
+        return new PointSettings(rig.Duct.WallRoughnessM, rig.Duct.HeatedLengthM, spacing, model, rig.Profiles.RadialPoints,
+            rig.Profiles.TurbulenceIntensity, rig.Profiles.LengthScaleM);
+    }
+
+    /// <summary>Input estimates as a vector (the point of expansion).</summary>
+    public double[] Estimates() => _inputs.Select(i => i.Estimate).ToArray();
+
+    public PointMeasurements MeasurementsAt(double[] x) => new(
+        _inletPressure(x), _outletPressure(x), _inletTemperature(x), _outletTemperature(x), _massFlow(x), _heaterPower(x),
+        [.. _wallChannels.Select(c => _channels[c.Id].ValueAt(x))],
+        x[_diameter], x[_loss], x[_viscosityFactor], x[_cpFactor]);
+
+    /// <summary>The model function: inputs → every output of <see cref="Outputs"/>, in that order.</summary>
+    public double[] Evaluate(double[] x) => Flatten(MeasurementsAt(x), PointPhysics.Evaluate(MeasurementsAt(x), _settings), includeAll: false);
+
+    public PointQuantities Physics(double[] x) => PointPhysics.Evaluate(MeasurementsAt(x), _settings);
+
+    private void AddChannelInputs(RigDescription rig, IReadOnlyDictionary<string, ChannelWindowStats> window, IReadOnlyDictionary<string, ChannelWindowStats> tares)
+    {
+        foreach (var channel in rig.Channels)
+        {
+            if (!window.TryGetValue(channel.Id, out var stats))
+            {
+                continue;
+            }
+            var typeA = stats.TypeA;
+            var mean = Add(new UncertaintyInput($"{channel.Id} window mean", typeA.Mean, typeA.StandardUncertainty,
+                typeA.DegreesOfFreedom, DistributionKind.Normal, EvaluationType.TypeA, "window mean, autocorrelation-corrected (Type A)"));
+            var inputs = new ChannelInputs(channel.Id, mean);
+            if (channel.Tare is not null && tares.TryGetValue(channel.Id, out var tare))
+            {
+                inputs.TareIndex = Add(new UncertaintyInput($"{channel.Id} tare mean", tare.TypeA.Mean, tare.TypeA.StandardUncertainty,
+                    tare.TypeA.DegreesOfFreedom, DistributionKind.Normal, EvaluationType.TypeA, "no-flow tare reading (Type A)"));
+            }
+            foreach (var term in channel.Uncertainty)
+            {
+                var u = TypeBTerms.StandardUncertainty(term, channel, typeA.Mean);
+                inputs.AddTerm(Add(new UncertaintyInput($"{channel.Id}: {term.Source}", 0.0, u, term.DegreesOfFreedom,
+                    TypeBTerms.Distribution(term), EvaluationType.TypeB, term.Source)), 1.0);
+            }
+            if (channel.Sensor is TableSensor table)
+            {
+                var fit = ChannelConversion.Fit(table);
+                var u = fit.ResidualStandardDeviation * Math.Abs(table.UnitToSi.Scale);
+                inputs.AddTerm(Add(new UncertaintyInput($"{channel.Id}: calibration fit residual", 0.0, u, fit.DegreesOfFreedom,
+                    DistributionKind.Normal, EvaluationType.TypeB, "residual standard deviation of the calibration fit")), 1.0);
+            }
+            _channels[channel.Id] = inputs;
+        }
+        CoupleColdJunctions(rig, window);
+    }
+
+    /// <summary>A cold-junction sensor's error enters each thermocouple scaled by S(T_cj)/S(T_hot) (emf addition).</summary>
+    private void CoupleColdJunctions(RigDescription rig, IReadOnlyDictionary<string, ChannelWindowStats> window)
+    {
+        foreach (var channel in rig.Channels)
+        {
+            if (channel.Sensor is not ThermocoupleSensor { ColdJunctionChannel: { } cj } tc || !_channels.TryGetValue(channel.Id, out var hot) || !_channels.TryGetValue(cj, out var cold))
+            {
+                continue;
+            }
+            var sensitivity = ColdJunction.SensitivityToReferenceJunction(ChannelConversion.ThermocoupleTypeOf(tc), window[channel.Id].Mean, window[cj].Mean);
+            foreach (var (index, coefficient) in cold.Terms)
+            {
+                hot.AddTerm(index, coefficient * sensitivity);
+            }
+        }
+    }
+
+    private void AddModelInputs(RigDescription rig)
+    {
+        _diameter = Add(new UncertaintyInput("duct inner diameter", rig.Duct.InnerDiameterM, rig.Duct.InnerDiameterStdM, double.PositiveInfinity,
+            DistributionKind.Normal, EvaluationType.TypeB, "rig file: duct.inner_diameter_uncertainty"));
+        _loss = Add(new UncertaintyInput("heater loss fraction", rig.Duct.HeaterLossFraction, rig.Duct.HeaterLossFractionStd, double.PositiveInfinity,
+            DistributionKind.Normal, EvaluationType.TypeB, "rig file: duct.heater_loss_fraction_uncertainty"));
+        _viscosityFactor = Add(new UncertaintyInput("viscosity model (Sutherland)", 1.0, TypeB.FromRectangularHalfWidth(ViscosityModelHalfWidth), double.PositiveInfinity,
+            DistributionKind.Rectangular, EvaluationType.TypeB, "Sutherland's law against handbook tables, ±0.7 %"));
+        _cpFactor = Add(new UncertaintyInput("cp model (ideal gas)", 1.0, TypeB.FromRectangularHalfWidth(CpModelHalfWidth), double.PositiveInfinity,
+            DistributionKind.Rectangular, EvaluationType.TypeB, "ideal-gas cp against 1-atm tables, ±0.4 %"));
+    }
+
+    private void ResolveRoles(RigDescription rig)
+    {
+        var problems = new List<Problem>();
+        _inletPressure = Required(rig, ChannelRole.StaticPressure, "inlet", problems, absolute: true);
+        _outletPressure = Required(rig, ChannelRole.StaticPressure, "outlet", problems, absolute: true);
+        _inletTemperature = Required(rig, ChannelRole.BulkTemperature, "inlet", problems, absolute: false);
+        _outletTemperature = Optional(rig, ChannelRole.BulkTemperature, "outlet") ?? _inletTemperature;
+        _massFlow = Required(rig, ChannelRole.MassFlow, null, problems, absolute: false);
+        _heaterPower = HeaterPower(rig);
+        _wallChannels = rig.WithRole(ChannelRole.WallTemperature).Where(c => _channels.ContainsKey(c.Id)).OrderBy(c => c.AxialPositionM).ToList();
+        if (problems.Count > 0)
+        {
+            throw new BcPrepFailure(FailureKind.Configuration, problems);
+        }
+    }
+
+    private Func<double[], double> Required(RigDescription rig, ChannelRole role, string? plane, List<Problem> problems, bool absolute)
+    {
+        var found = Optional(rig, role, plane, absolute);
+        if (found is null)
+        {
+            var what = role.ToString();
+            problems.Add(new Problem(new SourceLocation(rig.SourceFile, Key: "channel"),
+                $"no channel measures {what}{(plane is null ? "" : $" at the {plane} plane")}: the boundary conditions need one"));
+            return _ => double.NaN;
+        }
+        return found;
+    }
+
+    /// <summary>The average of every channel with the role (and plane); gauge pressures get their reference added.</summary>
+    private Func<double[], double>? Optional(RigDescription rig, ChannelRole role, string? plane, bool absolute = false)
+    {
+        var matches = rig.WithRole(role).Where(c => (plane is null || c.Plane == plane) && _channels.ContainsKey(c.Id)).ToList();
+        if (matches.Count == 0)
+        {
+            return null;
+        }
+        var readers = matches.Select(c =>
+        {
+            var own = _channels[c.Id];
+            if (absolute && c.ReferenceChannel is { } reference && _channels.TryGetValue(reference, out var refInputs))
+            {
+                return (Func<double[], double>)(x => own.ValueAt(x) + refInputs.ValueAt(x));
+            }
+            return own.ValueAt;
+        }).ToList();
+        return x =>
+        {
+            var sum = 0.0;
+            foreach (var read in readers)
+            {
+                sum += read(x);
+            }
+            return sum / readers.Count;
+        };
+    }
+
+    private Func<double[], double> HeaterPower(RigDescription rig)
+    {
+        var power = Optional(rig, ChannelRole.HeaterPower, null);
+        if (power is not null)
+        {
+            return power;
+        }
+        var volts = Optional(rig, ChannelRole.HeaterVoltage, null);
+        var amps = Optional(rig, ChannelRole.HeaterCurrent, null);
+        return volts is not null && amps is not null ? x => BcPrep.Physics.HeatTransfer.HeaterPower(volts(x), amps(x)) : _ => 0.0;
+    }
+
+    private void DefineOutputs()
+    {
+        var x = Estimates();
+        var nominal = PointPhysics.Evaluate(MeasurementsAt(x), _settings);
+        ProfileRadiiM = nominal.Velocity.Profile.RadiusM;
+        var all = Definitions(nominal.Velocity.Profile.RadiusM.Length);
+        var values = Flatten(MeasurementsAt(x), nominal, includeAll: true);
+        _included = all.Select((d, i) => double.IsFinite(values[i])).ToArray();
+        Outputs = all.Where((d, i) => _included[i]).ToList();
+    }
+
+    private bool[] _included = [];
+
+    private List<QuantityDefinition> Definitions(int profilePoints)
+    {
+        var list = new List<QuantityDefinition>
+        {
+            new("inlet.static_pressure", "Pa", "absolute static pressure at the inlet plane"),
+            new("outlet.static_pressure", "Pa", "absolute static pressure at the outlet plane"),
+            new("inlet.temperature", "K", "bulk temperature at the inlet plane"),
+            new("outlet.temperature", "K", "bulk temperature at the outlet plane"),
+            new("mass_flow", "kg/s", "mass flow through the duct"),
+            new("heater_power", "W", "electrical heater power"),
+            new("wall.heat_flux", "W/m2", "wall heat flux over the heated length, losses removed"),
+            new("inlet.density", "kg/m3", "ideal-gas density at the inlet plane"),
+            new("inlet.viscosity", "Pa s", "dynamic viscosity at the inlet plane (Sutherland)"),
+            new("inlet.bulk_velocity", "m/s", "bulk velocity at the inlet plane"),
+            new("reynolds", "1", "Reynolds number on diameter at inlet conditions"),
+            new("mach", "1", "Mach number at the inlet plane"),
+            new("inlet.turbulence_intensity", "1", "turbulence intensity"),
+            new("inlet.turbulent_kinetic_energy", "m2/s2", "k"),
+            new("inlet.turbulence_length_scale", "m", "length scale l"),
+            new("inlet.dissipation_rate", "m2/s3", "epsilon = Cmu^(3/4) k^(3/2) / l"),
+            new("inlet.specific_dissipation_rate", "1/s", "omega = k^(1/2) / (Cmu^(1/4) l)"),
+            new("pressure_drop.measured", "Pa", "inlet minus outlet static pressure"),
+            new("pressure_drop.expected", "Pa", "friction (Colebrook) plus flow acceleration between the planes"),
+            new("energy_balance.mismatch", "1", "(P(1-loss) - m cp (T_out - T_in)) / (P(1-loss))"),
+        };
+        list.AddRange(_wallChannels.Select(c => new QuantityDefinition($"wall.temperature.{c.Id}", "K", $"wall temperature at z = {c.AxialPositionM:G6} m")));
+        list.AddRange(Enumerable.Range(0, profilePoints).Select(i => new QuantityDefinition($"inlet.velocity.{i}", "m/s", "axial velocity at profile point " + i)));
+        return list;
+    }
+
+    private double[] Flatten(PointMeasurements m, PointQuantities q, bool includeAll)
+    {
+        var values = new List<double>
+        {
+            m.InletPressurePa, m.OutletPressurePa, m.InletTemperatureK, m.OutletTemperatureK, m.MassFlowKgS, m.HeaterPowerW,
+            q.WallHeatFlux, q.InletDensity, q.InletViscosity, q.BulkVelocity, q.Reynolds, q.Mach,
+            q.TurbulenceIntensity, q.TurbulentKineticEnergy, q.TurbulenceLengthScale, q.DissipationRate, q.SpecificDissipationRate,
+            q.PressureDropMeasured, q.PressureDropExpected, q.EnergyBalanceMismatch,
+        };
+        values.AddRange(m.WallTemperaturesK);
+        values.AddRange(q.Velocity.Profile.Values);
+        if (includeAll)
+        {
+            return values.ToArray();
+        }
+        var result = new double[Outputs.Count];
+        var j = 0;
+        for (var i = 0; i < values.Count; i++)
+        {
+            if (_included[i])
+            {
+                result[j++] = values[i];
+            }
+        }
+        return result;
+    }
+
+    private int Add(UncertaintyInput input)
+    {
+        _inputs.Add(input);
+        return _inputs.Count - 1;
+    }
+}

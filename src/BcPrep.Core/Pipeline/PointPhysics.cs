@@ -1,0 +1,111 @@
+using System.Collections.Immutable;
+using BcPrep.Physics;
+using BcPrep.Profiles;
+
+namespace BcPrep.Pipeline;
+
+/// <summary>The measured values of one operating point that the physics needs, in SI.</summary>
+public sealed record PointMeasurements(
+    double InletPressurePa,
+    double OutletPressurePa,
+    double InletTemperatureK,
+    double OutletTemperatureK,
+    double MassFlowKgS,
+    double HeaterPowerW,
+    ImmutableArray<double> WallTemperaturesK,
+    double DiameterM,
+    double HeaterLossFraction,
+    double ViscosityFactor,
+    double CpFactor);
+
+/// <summary>Fixed geometry and settings that are not uncertain inputs.</summary>
+public sealed record PointSettings(
+    double WallRoughnessM,
+    double HeatedLengthM,
+    double PlaneSpacingM,
+    VelocityProfileModel VelocityModel,
+    int RadialPoints,
+    double? TurbulenceIntensity,
+    double? LengthScaleM);
+
+/// <summary>Every derived boundary-condition quantity of a point.</summary>
+public sealed record PointQuantities(
+    double InletDensity,
+    double InletViscosity,
+    double BulkVelocity,
+    double Reynolds,
+    double Mach,
+    double WallHeatFlux,
+    double TurbulenceIntensity,
+    double TurbulentKineticEnergy,
+    double TurbulenceLengthScale,
+    double DissipationRate,
+    double SpecificDissipationRate,
+    double PressureDropMeasured,
+    double PressureDropExpected,
+    double EnergyBalanceMismatch,
+    VelocityProfileResult Velocity);
+
+/// <summary>
+/// The physics of one operating point as a pure function of the measured values, so that the uncertainty stage
+/// can re-evaluate it under perturbed inputs (GUM sensitivities, Monte Carlo, ensembles).
+/// </summary>
+public static class PointPhysics
+{
+    public static PointQuantities Evaluate(PointMeasurements m, PointSettings s)
+    {
+        var rhoIn = DryAir.Density(m.InletPressurePa, m.InletTemperatureK);
+        var muIn = DryAir.Viscosity(m.InletTemperatureK) * m.ViscosityFactor;
+        var bulk = PipeFlow.BulkVelocity(m.MassFlowKgS, rhoIn, m.DiameterM);
+        var reynolds = PipeFlow.ReynoldsFromMassFlow(m.MassFlowKgS, m.DiameterM, muIn);
+        var mach = PipeFlow.Mach(bulk, DryAir.SpeedOfSound(m.InletTemperatureK));
+        var heatFlux = s.HeatedLengthM > 0 ? HeatTransfer.WallHeatFlux(m.HeaterPowerW, m.HeaterLossFraction, m.DiameterM, s.HeatedLengthM) : 0.0;
+
+        var velocity = VelocityProfiles.Build(new VelocityProfileRequest(
+            m.MassFlowKgS, rhoIn, muIn, m.DiameterM, s.VelocityModel, s.RadialPoints, s.WallRoughnessM / m.DiameterM));
+        var turbulence = Turbulence(m, s, bulk, muIn / rhoIn, reynolds);
+
+        var (dpMeasured, dpExpected) = PressureDrop(m, s);
+        var absorbed = m.HeaterPowerW * (1 - m.HeaterLossFraction);
+        var meanT = 0.5 * (m.InletTemperatureK + m.OutletTemperatureK);
+        var carried = m.MassFlowKgS * DryAir.SpecificHeatCp(meanT) * m.CpFactor * (m.OutletTemperatureK - m.InletTemperatureK);
+        var mismatch = absorbed > 0 ? (absorbed - carried) / absorbed : double.NaN;
+
+        return new PointQuantities(rhoIn, muIn, bulk, reynolds, mach, heatFlux,
+            turbulence?.Intensity ?? double.NaN, turbulence?.KineticEnergyM2PerS2 ?? double.NaN, turbulence?.LengthScaleM ?? double.NaN,
+            turbulence?.DissipationRateM2PerS3 ?? double.NaN, turbulence?.SpecificDissipationRatePerS ?? double.NaN,
+            dpMeasured, dpExpected, mismatch, velocity);
+    }
+
+    private static InletTurbulenceState? Turbulence(PointMeasurements m, PointSettings s, double bulk, double kinematic, double reynolds)
+    {
+        if (reynolds < FrictionFactor.LaminarLimitReynolds && s.TurbulenceIntensity is null)
+        {
+            return null; // laminar inlet: no turbulence quantities to prescribe
+        }
+        var intensity = s.TurbulenceIntensity ?? InletTurbulence.PipeIntensity(reynolds);
+        var length = s.LengthScaleM ?? InletTurbulence.LengthScaleToDiameter * m.DiameterM;
+        return InletTurbulence.FromIntensityAndLengthScale(bulk, intensity, length, kinematic);
+    }
+
+    /// <summary>
+    /// Measured static-pressure drop between the planes against friction (Colebrook, at the mean bulk state) plus
+    /// the momentum change of the heated, accelerating flow G²(1/ρ_out − 1/ρ_in).
+    /// </summary>
+    private static (double Measured, double Expected) PressureDrop(PointMeasurements m, PointSettings s)
+    {
+        var measured = m.InletPressurePa - m.OutletPressurePa;
+        var rhoIn = DryAir.Density(m.InletPressurePa, m.InletTemperatureK);
+        var rhoOut = DryAir.Density(m.OutletPressurePa, m.OutletTemperatureK);
+        var meanT = 0.5 * (m.InletTemperatureK + m.OutletTemperatureK);
+        var rhoMean = 0.5 * (rhoIn + rhoOut);
+        var mu = DryAir.Viscosity(meanT) * m.ViscosityFactor;
+        var re = PipeFlow.ReynoldsFromMassFlow(m.MassFlowKgS, m.DiameterM, mu);
+        var f = re <= FrictionFactor.LaminarLimitReynolds ? FrictionFactor.Laminar(re) : FrictionFactor.Colebrook(re, s.WallRoughnessM / m.DiameterM);
+        var u = PipeFlow.BulkVelocity(m.MassFlowKgS, rhoMean, m.DiameterM);
+        var friction = f * s.PlaneSpacingM / m.DiameterM * 0.5 * rhoMean * u * u;
+        var g = m.MassFlowKgS / PipeFlow.Area(m.DiameterM);
+        var acceleration = g * g * ((1 / rhoOut) - (1 / rhoIn));
+        return (measured, friction + acceleration);
+    }
+}

@@ -1,0 +1,58 @@
+using BcPrep.Rig;
+using BcPrep.Steady;
+using BcPrep.Uncertainty;
+
+namespace BcPrep.Pipeline;
+
+/// <summary>How a point's averaging window was chosen.</summary>
+public enum WindowOrigin
+{
+    /// <summary>Pinned by hand in the rig file.</summary>
+    RigFile,
+    /// <summary>Found by steady detection.</summary>
+    Detected,
+}
+
+/// <summary>A pass/warn verdict with the numbers behind it, for the manifest and summary.</summary>
+public sealed record CheckResult(string Name, bool Passed, double Value, double Limit, string Unit, string Basis);
+
+/// <summary>Everything worked out for one operating point.</summary>
+public sealed record PointResult(
+    string Id,
+    TimeWindow Window,
+    WindowOrigin Origin,
+    IReadOnlyDictionary<string, ChannelWindowStats> Channels,
+    PointModel Model,
+    GumResult Gum,
+    PointQuantities Nominal,
+    IReadOnlyList<CheckResult> Checks,
+    IReadOnlyList<string> Warnings,
+    MonteCarloResult? MonteCarlo,
+    IReadOnlyList<GufValidation>? Validation)
+{
+    public int OutputIndex(string name)
+    {
+        for (var i = 0; i < Model.Outputs.Count; i++)
+        {
+            if (Model.Outputs[i].Name == name)
+            {
+                return i;
+            }
+        }
+        return -1;
+    }
+
+    public GumOutput? Output(string name) => OutputIndex(name) is var i and >= 0 ? Gum.Outputs[i] : null;
+}
+
+/// <summary>The result of processing a test day.</summary>
+public sealed record DayResult(
+    RigDescription Rig,
+    double DayStartS,
+    IReadOnlyList<PointResult> Points,
+    BlockSeries Blocks,
+    SteadyDetectionResult? Detection,
+    IReadOnlyList<string> Warnings);
+
+/// <summary>Block means of every channel over the day (for detection evidence and plots).</summary>
+public sealed record BlockSeries(double[] TimesS, IReadOnlyDictionary<string, double[]> Means);

@@ -1,0 +1,136 @@
+using System.Globalization;
+using BcPrep.Pipeline;
+using BcPrep.Profiles;
+using BcPrep.Rig;
+using BcPrep.Uncertainty;
+
+namespace BcPrep.Writing;
+
+/// <summary>
+/// The CSV tables of a processed day, in BcPrep's own layout: a summary with one row per operating point, and per
+/// point the inlet profile, the outlet plane, the wall, every scalar with its uncertainty, and the budgets.
+/// </summary>
+public static class BoundaryTables
+{
+    /// <summary>Quantities repeated in the summary, in this order.</summary>
+    public static readonly string[] SummaryQuantities =
+    [
+        "mass_flow", "inlet.bulk_velocity", "reynolds", "inlet.temperature", "outlet.temperature", "inlet.static_pressure",
+        "outlet.static_pressure", "heater_power", "wall.heat_flux", "energy_balance.mismatch",
+    ];
+
+    public static CsvTable Summary(DayResult day)
+    {
+        var header = new List<string> { "point", "origin", "start [s]", "end [s]", "duration [s]" };
+        foreach (var name in SummaryQuantities)
+        {
+            var unit = UnitOf(day, name);
+            header.AddRange([$"{name} [{unit}]", $"u({name}) [{unit}]", $"U({name}) [{unit}]", $"k({name})"]);
+        }
+        header.AddRange(["checks", "warnings"]);
+        var table = new CsvTable(header)
+            .Comment($"BcPrep summary; rig '{day.Rig.Name}'; times in s since the first sample of the day; u = standard uncertainty, U = expanded uncertainty at p = {day.Rig.CoverageProbability.ToString(CultureInfo.InvariantCulture)} with coverage factor k");
+        foreach (var point in day.Points)
+        {
+            var row = new List<object?>
+            {
+                point.Id, point.Origin == WindowOrigin.RigFile ? "rig file" : "detected",
+                point.Window.StartS - day.DayStartS, point.Window.EndS - day.DayStartS, point.Window.DurationS,
+            };
+            foreach (var name in SummaryQuantities)
+            {
+                var output = point.Output(name);
+                row.AddRange([output?.Estimate ?? double.NaN, output?.StandardUncertainty ?? double.NaN, output?.ExpandedUncertainty ?? double.NaN, output?.CoverageFactor ?? double.NaN]);
+            }
+            row.Add(point.Checks.All(c => c.Passed) ? "pass" : "warn: " + string.Join("; ", point.Checks.Where(c => !c.Passed).Select(c => c.Name)));
+            row.Add(point.Warnings.Count);
+            table.Add([.. row]);
+        }
+        return table;
+    }
+
+    public static CsvTable InletProfile(PointResult point)
+    {
+        var velocity = point.Nominal.Velocity;
+        var temperature = point.Output("inlet.temperature");
+        var table = new CsvTable([
+            "r [m]", "axial_velocity [m/s]", "u(axial_velocity) [m/s]", "temperature [K]", "u(temperature) [K]",
+            "k [m2/s2]", "u(k) [m2/s2]", "epsilon [m2/s3]", "u(epsilon) [m2/s3]", "omega [1/s]", "u(omega) [1/s]",
+        ])
+            .Comment($"BcPrep inlet profile; point {point.Id}; velocity model {velocity.ModelUsed}; profile integrates to the measured mass flow (raw grid error {velocity.RawDiscretisationRelativeError.ToString("E2", CultureInfo.InvariantCulture)})")
+            .Comment(InletTurbulence.ConventionDescription)
+            .Comment("u(...) is the standard uncertainty propagated from the measurements; the profile shape model and the turbulence correlations carry no model-form uncertainty here");
+        var k = point.Output("inlet.turbulent_kinetic_energy");
+        var eps = point.Output("inlet.dissipation_rate");
+        var omega = point.Output("inlet.specific_dissipation_rate");
+        for (var i = 0; i < velocity.Profile.RadiusM.Length; i++)
+        {
+            var u = point.Output($"inlet.velocity.{i}");
+            table.Add(velocity.Profile.RadiusM[i], u?.Estimate ?? velocity.Profile.Values[i], u?.StandardUncertainty ?? double.NaN,
+                temperature?.Estimate, temperature?.StandardUncertainty,
+                k?.Estimate ?? double.NaN, k?.StandardUncertainty ?? double.NaN, eps?.Estimate ?? double.NaN, eps?.StandardUncertainty ?? double.NaN,
+                omega?.Estimate ?? double.NaN, omega?.StandardUncertainty ?? double.NaN);
+        }
+        return table;
+    }
+
+    public static CsvTable OutletPlane(PointResult point) =>
+        Scalars(point, ["outlet.static_pressure", "outlet.temperature"], $"BcPrep outlet plane; point {point.Id}; absolute static pressure");
+
+    public static CsvTable Wall(PointResult point, DayResult day)
+    {
+        var table = new CsvTable(["z [m]", "channel", "temperature [K]", "u(temperature) [K]", "U(temperature) [K]", "heat_flux [W/m2]", "u(heat_flux) [W/m2]"])
+            .Comment($"BcPrep wall; point {point.Id}; uniform heat flux over the heated length {day.Rig.Duct.HeatedLengthM.ToString("R", CultureInfo.InvariantCulture)} m; wall temperatures at the thermocouple positions (interpolate linearly between them)");
+        var flux = point.Output("wall.heat_flux");
+        foreach (var channel in day.Rig.Channels.Where(c => c.Role == ChannelRole.WallTemperature).OrderBy(c => c.AxialPositionM))
+        {
+            var t = point.Output($"wall.temperature.{channel.Id}");
+            table.Add(channel.AxialPositionM ?? double.NaN, channel.Id, t?.Estimate ?? double.NaN, t?.StandardUncertainty ?? double.NaN, t?.ExpandedUncertainty ?? double.NaN,
+                flux?.Estimate ?? double.NaN, flux?.StandardUncertainty ?? double.NaN);
+        }
+        return table;
+    }
+
+    /// <summary>Every scalar output of a point (profile points excluded) with value and uncertainty.</summary>
+    public static CsvTable Scalars(PointResult point, IReadOnlyCollection<string>? only = null, string? comment = null)
+    {
+        var table = new CsvTable(["quantity", "unit", "value", "standard_uncertainty", "expanded_uncertainty", "coverage_factor", "degrees_of_freedom", "description"])
+            .Comment(comment ?? $"BcPrep scalars; point {point.Id}");
+        for (var i = 0; i < point.Model.Outputs.Count; i++)
+        {
+            var definition = point.Model.Outputs[i];
+            if (definition.Name.StartsWith("inlet.velocity.", StringComparison.Ordinal) || (only is not null && !only.Contains(definition.Name)))
+            {
+                continue;
+            }
+            var g = point.Gum.Outputs[i];
+            table.Add(definition.Name, definition.Unit, g.Estimate, g.StandardUncertainty, g.ExpandedUncertainty, g.CoverageFactor, Dof(g.DegreesOfFreedom), definition.Description);
+        }
+        return table;
+    }
+
+    /// <summary>The uncertainty budget: every input's contribution to every scalar output.</summary>
+    public static CsvTable Budget(PointResult point, bool includeProfile = false)
+    {
+        var table = new CsvTable(["point", "quantity", "unit", "input", "type", "input_estimate", "input_standard_uncertainty", "sensitivity", "contribution", "variance_share", "source"]);
+        for (var i = 0; i < point.Model.Outputs.Count; i++)
+        {
+            var definition = point.Model.Outputs[i];
+            if (!includeProfile && definition.Name.StartsWith("inlet.velocity.", StringComparison.Ordinal))
+            {
+                continue;
+            }
+            foreach (var line in point.Gum.Outputs[i].Budget.Where(b => b.SensitivityCoefficient != 0 && b.StandardUncertainty > 0))
+            {
+                table.Add(point.Id, definition.Name, definition.Unit, line.InputName, line.Evaluation == EvaluationType.TypeA ? "A" : "B",
+                    line.Estimate, line.StandardUncertainty, line.SensitivityCoefficient, line.Contribution, line.VarianceShare, line.Source);
+            }
+        }
+        return table;
+    }
+
+    private static string UnitOf(DayResult day, string name) =>
+        day.Points.SelectMany(p => p.Model.Outputs).FirstOrDefault(o => o.Name == name)?.Unit ?? "";
+
+    private static double Dof(double nu) => double.IsPositiveInfinity(nu) ? double.NaN : nu;
+}

@@ -1,0 +1,35 @@
+using BcPrep.Pipeline;
+
+namespace BcPrep.Writing;
+
+/// <summary>Lays out every file of a processed day (paths relative to the output folder).</summary>
+public static class DayOutputs
+{
+    public const string ManifestName = "manifest.json";
+
+    public static OutputFileSet Build(DayResult day, RunProvenance provenance)
+    {
+        var files = new OutputFileSet();
+        files.Add("summary.csv", BoundaryTables.Summary(day).ToString());
+        foreach (var point in day.Points)
+        {
+            var folder = "points/" + SafeName(point.Id) + "/";
+            files.Add(folder + "inlet-profile.csv", BoundaryTables.InletProfile(point).ToString());
+            files.Add(folder + "outlet-plane.csv", BoundaryTables.OutletPlane(point).ToString());
+            files.Add(folder + "wall.csv", BoundaryTables.Wall(point, day).ToString());
+            files.Add(folder + "scalars.csv", BoundaryTables.Scalars(point).ToString());
+            files.Add(folder + "budget.csv", BoundaryTables.Budget(point).ToString());
+        }
+        var names = files.Files.Select(f => f.RelativePath).Append(ManifestName).ToList();
+        files.Add(ManifestName, ManifestWriter.Write(day, provenance, names));
+        return files;
+    }
+
+    /// <summary>Point ids become folder names: anything but letters, digits, '-', '_' and '.' becomes '_'.</summary>
+    public static string SafeName(string id)
+    {
+        var chars = id.Select(c => char.IsAsciiLetterOrDigit(c) || c is '-' or '_' or '.' ? c : '_').ToArray();
+        var name = new string(chars);
+        return name is "." or ".." || name.Length == 0 ? "_" + name : name;
+    }
+}

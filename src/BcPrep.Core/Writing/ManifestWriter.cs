@@ -1,0 +1,185 @@
+using System.Text;
+using System.Text.Json;
+using BcPrep.Pipeline;
+using BcPrep.Profiles;
+
+namespace BcPrep.Writing;
+
+/// <summary>
+/// Writes the run manifest: provenance (tool version, SHA-256 of the rig file and of every log), the conventions
+/// used, and per operating point its window, conditioning actions, checks, warnings and every quantity with its
+/// uncertainty and budget. Keys are in a fixed order and nothing depends on the clock, so the same inputs give
+/// the same bytes.
+/// </summary>
+public static class ManifestWriter
+{
+    public const int FormatVersion = 1;
+
+    public static string Write(DayResult day, RunProvenance provenance, IReadOnlyList<string> files)
+    {
+        using var stream = new MemoryStream();
+        using (var json = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }))
+        {
+            json.WriteStartObject();
+            json.WriteString("format", "bcprep-manifest");
+            json.WriteNumber("format_version", FormatVersion);
+            json.WriteStartObject("tool");
+            json.WriteString("name", "bcprep");
+            json.WriteString("version", provenance.ToolVersion);
+            json.WriteEndObject();
+            json.WriteString("run_key", provenance.Key);
+            WriteStrings(json, "cautions", Cautions.All);
+            json.WriteStartObject("rig");
+            json.WriteString("name", day.Rig.Name);
+            WriteFingerprint(json, provenance.Rig);
+            json.WriteEndObject();
+            json.WriteStartArray("logs");
+            foreach (var log in provenance.Logs)
+            {
+                json.WriteStartObject();
+                WriteFingerprint(json, log);
+                json.WriteEndObject();
+            }
+            json.WriteEndArray();
+            WriteConventions(json, day);
+            json.WriteStartArray("points");
+            foreach (var point in day.Points)
+            {
+                WritePoint(json, day, point);
+            }
+            json.WriteEndArray();
+            WriteStrings(json, "files", files);
+            json.WriteEndObject();
+        }
+        return Encoding.UTF8.GetString(stream.ToArray()) + "\n";
+    }
+
+    private static void WriteFingerprint(Utf8JsonWriter json, InputFingerprint fingerprint)
+    {
+        json.WriteString("file", fingerprint.Name);
+        json.WriteNumber("bytes", fingerprint.Bytes);
+        json.WriteString("sha256", fingerprint.Sha256);
+    }
+
+    private static void WriteConventions(Utf8JsonWriter json, DayResult day)
+    {
+        json.WriteStartObject("conventions");
+        json.WriteString("units", "SI throughout: Pa (absolute), K, kg/s, m, W");
+        json.WriteString("time", "window times in s since the first sample of the day; day_start in s since 1970-01-01 UTC when the log has dates, else on the logger clock");
+        Number(json, "day_start", day.DayStartS);
+        Number(json, "coverage_probability", day.Rig.CoverageProbability);
+        json.WriteString("expanded_uncertainty", "U = k u, k from Student's t at the effective degrees of freedom (Welch-Satterthwaite; conservative rule with correlated inputs)");
+        json.WriteString("type_a", "window mean of de-spiked, unfiltered samples; standard uncertainty corrected for autocorrelation (integrated autocorrelation time, Sokal window)");
+        json.WriteString("turbulence", InletTurbulence.ConventionDescription);
+        json.WriteString("properties", Physics.DryAir.PropertySourceDescription);
+        json.WriteEndObject();
+    }
+
+    private static void WritePoint(Utf8JsonWriter json, DayResult day, PointResult point)
+    {
+        json.WriteStartObject();
+        json.WriteString("id", point.Id);
+        json.WriteString("window_origin", point.Origin == WindowOrigin.RigFile ? "rig file" : "detected");
+        json.WriteStartObject("window");
+        Number(json, "start_s", point.Window.StartS - day.DayStartS);
+        Number(json, "end_s", point.Window.EndS - day.DayStartS);
+        Number(json, "duration_s", point.Window.DurationS);
+        json.WriteEndObject();
+        json.WriteStartArray("checks");
+        foreach (var check in point.Checks)
+        {
+            json.WriteStartObject();
+            json.WriteString("name", check.Name);
+            json.WriteString("verdict", check.Passed ? "pass" : "warn");
+            Number(json, "value", check.Value);
+            Number(json, "limit", check.Limit);
+            json.WriteString("unit", check.Unit);
+            json.WriteString("basis", check.Basis);
+            json.WriteEndObject();
+        }
+        json.WriteEndArray();
+        WriteStrings(json, "warnings", point.Warnings);
+        json.WriteStartArray("channels");
+        foreach (var stats in point.Channels.Values.OrderBy(s => s.Channel, StringComparer.Ordinal))
+        {
+            json.WriteStartObject();
+            json.WriteString("id", stats.Channel);
+            json.WriteNumber("samples", stats.SampleCount);
+            json.WriteNumber("missing_cells", stats.MissingCount);
+            json.WriteNumber("bridged_samples", stats.BridgedSamples);
+            json.WriteNumber("spikes_replaced", stats.SpikesReplaced);
+            Number(json, "mean", stats.Mean);
+            Number(json, "standard_deviation", stats.StandardDeviation);
+            Number(json, "type_a_standard_uncertainty", stats.TypeA.StandardUncertainty);
+            Number(json, "effective_samples", stats.TypeA.EffectiveSampleCount);
+            Number(json, "naive_standard_uncertainty", stats.TypeA.NaiveStandardUncertainty);
+            WriteStrings(json, "faults", stats.Faults.Select(f => $"{f.Kind}: {f.Evidence}").ToList());
+            json.WriteEndObject();
+        }
+        json.WriteEndArray();
+        json.WriteStartArray("quantities");
+        for (var i = 0; i < point.Model.Outputs.Count; i++)
+        {
+            var definition = point.Model.Outputs[i];
+            var g = point.Gum.Outputs[i];
+            json.WriteStartObject();
+            json.WriteString("name", definition.Name);
+            json.WriteString("unit", definition.Unit);
+            Number(json, "value", g.Estimate);
+            Number(json, "standard_uncertainty", g.StandardUncertainty);
+            Number(json, "expanded_uncertainty", g.ExpandedUncertainty);
+            Number(json, "coverage_factor", g.CoverageFactor);
+            Number(json, "degrees_of_freedom", g.DegreesOfFreedom);
+            if (point.MonteCarlo is { } mc)
+            {
+                json.WriteStartObject("monte_carlo");
+                Number(json, "value", mc.Outputs[i].Estimate);
+                Number(json, "standard_uncertainty", mc.Outputs[i].StandardUncertainty);
+                Number(json, "interval_low", mc.Outputs[i].Low);
+                Number(json, "interval_high", mc.Outputs[i].High);
+                json.WriteBoolean("gum_validated", point.Validation![i].IsValidated);
+                json.WriteEndObject();
+            }
+            if (!definition.Name.StartsWith("inlet.velocity.", StringComparison.Ordinal))
+            {
+                json.WriteStartArray("budget");
+                foreach (var line in g.Budget.Where(b => b.VarianceShare > 0).OrderByDescending(b => b.VarianceShare))
+                {
+                    json.WriteStartObject();
+                    json.WriteString("input", line.InputName);
+                    json.WriteString("type", line.Evaluation == Uncertainty.EvaluationType.TypeA ? "A" : "B");
+                    Number(json, "contribution", line.Contribution);
+                    Number(json, "variance_share", line.VarianceShare);
+                    json.WriteEndObject();
+                }
+                json.WriteEndArray();
+            }
+            json.WriteEndObject();
+        }
+        json.WriteEndArray();
+        json.WriteEndObject();
+    }
+
+    private static void WriteStrings(Utf8JsonWriter json, string name, IEnumerable<string> values)
+    {
+        json.WriteStartArray(name);
+        foreach (var value in values)
+        {
+            json.WriteStringValue(value);
+        }
+        json.WriteEndArray();
+    }
+
+    /// <summary>JSON has no NaN or infinity: those are written as null.</summary>
+    private static void Number(Utf8JsonWriter json, string name, double value)
+    {
+        if (double.IsFinite(value))
+        {
+            json.WriteNumber(name, value);
+        }
+        else
+        {
+            json.WriteNull(name);
+        }
+    }
+}

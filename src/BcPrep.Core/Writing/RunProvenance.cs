@@ -1,0 +1,12 @@
+namespace BcPrep.Writing;
+
+/// <summary>What a run was made from: tool version and the SHA-256 of the rig file and every log.</summary>
+public sealed record RunProvenance(string ToolVersion, InputFingerprint Rig, IReadOnlyList<InputFingerprint> Logs)
+{
+    /// <summary>One hash over everything, for the quick "nothing changed" test of incremental runs.</summary>
+    public string Key => Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(System.Text.Encoding.UTF8.GetBytes(
+        ToolVersion + "|" + Rig.Sha256 + "|" + string.Join("|", Logs.Select(l => l.Sha256).Order(StringComparer.Ordinal)))));
+}
+
+/// <summary>A file's name as given, size and content hash.</summary>
+public sealed record InputFingerprint(string Name, long Bytes, string Sha256);
