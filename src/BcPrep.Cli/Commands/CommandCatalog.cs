@@ -9,5 +9,6 @@ public static class CommandCatalog
     [
         CheckCommand.Create(common, context),
         ProcessCommand.Create(common, context),
+        CalibrateCommand.Create(common, context),
     ];
 }

@@ -16,20 +16,23 @@ public static class DayScan
         RigDescription rig,
         DayPlan plan,
         IReadOnlyDictionary<string, SampleConverter> converters,
-        IReadOnlyList<IChannelSink> sinks)
+        IReadOnlyList<IChannelSink> sinks,
+        IBlockSink? blockSink = null)
     {
         foreach (var logger in plan.Loggers)
         {
-            ScanLogger(rig, logger, converters, sinks);
+            ScanLogger(rig, logger, converters, sinks, blockSink);
         }
     }
 
-    private static void ScanLogger(RigDescription rig, LoggerFiles logger, IReadOnlyDictionary<string, SampleConverter> converters, IReadOnlyList<IChannelSink> sinks)
+    private static void ScanLogger(RigDescription rig, LoggerFiles logger, IReadOnlyDictionary<string, SampleConverter> converters, IReadOnlyList<IChannelSink> sinks, IBlockSink? blockSink)
     {
         var channels = OrderByDependency(logger.Channels, rig);
         var columns = logger.Channels.Select(c => c.Column).ToList();
         var block = new LogBlock(columns.Count, BlockRows);
         var si = channels.ToDictionary(c => c.Id, _ => new double[BlockRows], StringComparer.Ordinal);
+        var ids = logger.Channels.Select(c => c.Id).ToList();
+        var blockArrays = ids.Select(id => si[id]).ToList();
         var previousEnd = double.NegativeInfinity;
         string? previousFile = null;
         foreach (var file in logger.Files)
@@ -45,6 +48,7 @@ public static class DayScan
                 }
                 first = false;
                 ConvertBlock(file, block, logger, channels, converters, si);
+                blockSink?.AcceptBlock(ids, block.TimeS, blockArrays, block.Count);
                 var times = block.TimeS.AsSpan(0, block.Count);
                 foreach (var channel in channels)
                 {

@@ -1,0 +1,65 @@
+using BcPrep.Reading;
+using BcPrep.Rig;
+
+namespace BcPrep.Pipeline;
+
+/// <summary>
+/// Streams a day's calibrated (SI) time series, logger by logger, with tares applied. A tare needs its interval's
+/// mean before the first row can be corrected, so a day with tares is read twice.
+/// </summary>
+public static class CalibratedSeries
+{
+    public static void Stream(RigDescription rig, IReadOnlyList<LogInput> logs, Action<DayPlan, IReadOnlyDictionary<string, double>> onStart, IBlockSink sink)
+    {
+        var plan = DayPlan.Create(rig, logs);
+        var converters = rig.Channels.ToDictionary(c => c.Id, ChannelConversion.For, StringComparer.Ordinal);
+        var tares = TareMeans(rig, plan, converters);
+        onStart(plan, tares);
+        DayScan.Run(rig, plan, converters, [], new TareApplyingSink(tares, sink));
+    }
+
+    private static Dictionary<string, double> TareMeans(RigDescription rig, DayPlan plan, IReadOnlyDictionary<string, SampleConverter> converters)
+    {
+        var result = new Dictionary<string, double>(StringComparer.Ordinal);
+        var windows = rig.Channels.Where(c => c.Tare is not null)
+            .Select(c => new TimeWindow("tare:" + c.Id, DayProcessor.Resolve(c.Tare!.Start, plan.DayStartS), DayProcessor.Resolve(c.Tare.End, plan.DayStartS)))
+            .ToList();
+        if (windows.Count == 0)
+        {
+            return result;
+        }
+        var collector = new WindowCollector(windows, (w, channel, _, values) =>
+        {
+            if (w.Id == "tare:" + channel)
+            {
+                var finite = values.Where(double.IsFinite).ToArray();
+                if (finite.Length == 0)
+                {
+                    throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel), $"the tare interval of '{channel}' holds no samples");
+                }
+                result[channel] = finite.Average();
+            }
+        });
+        DayScan.Run(rig, plan, converters, [collector]);
+        return result;
+    }
+
+    private sealed class TareApplyingSink(IReadOnlyDictionary<string, double> tares, IBlockSink inner) : IBlockSink
+    {
+        public void AcceptBlock(IReadOnlyList<string> channels, double[] timeS, IReadOnlyList<double[]> valuesSi, int count)
+        {
+            for (var c = 0; c < channels.Count; c++)
+            {
+                if (tares.TryGetValue(channels[c], out var tare))
+                {
+                    var values = valuesSi[c];
+                    for (var i = 0; i < count; i++)
+                    {
+                        values[i] -= tare;
+                    }
+                }
+            }
+            inner.AcceptBlock(channels, timeS, valuesSi, count);
+        }
+    }
+}
