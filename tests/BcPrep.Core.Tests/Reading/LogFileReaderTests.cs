@@ -124,4 +124,37 @@ public class LogFileReaderTests
         var failure = Assert.Throws<BcPrepFailure>(() => ReadAll(path, Seconds, "a"));
         Assert.Equal(3, failure.Problems[0].Location.Line);
     }
+
+    [Theory]
+    [InlineData("t;a\n0;1,5\n", '.', "'1,5' is not a number")]
+    [InlineData("t;a\n0;1.5\n", ',', "'1.5' is not a number")]
+    [InlineData("t;a\n0;1 000\n", '.', "'1 000' is not a number")]
+    public void A_number_in_the_other_decimal_convention_is_refused_not_misread(string text, char decimalSeparator, string fragment)
+    {
+        using var files = new TempFiles();
+        var path = files.Write("dec.csv", text);
+        var failure = Assert.Throws<BcPrepFailure>(() => ReadAll(path, Seconds with { Separator = ';', DecimalSeparator = decimalSeparator }, "a"));
+        Assert.Contains(fragment, failure.Problems[0].Message, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("2026-11-24T09:00:00.500", 0.5)]
+    [InlineData("2026-11-24 09:00:00.5", 0.5)]
+    [InlineData("2026-11-24T09:00:01Z", 1.0)]
+    [InlineData("2026-11-24T10:00:01+01:00", 1.0)]
+    [InlineData("2026-11-24T08:00:01.25-01:00", 1.25)]
+    [InlineData("2026-11-24T09:00:00.0000001", 1e-7)]
+    public void ISO_timestamps_parse_to_seconds_with_zone_and_fraction(string text, double secondsAfterNine)
+    {
+        Assert.True(IsoTimestamp.TryParseSeconds(System.Text.Encoding.UTF8.GetBytes(text), out var seconds));
+        var nine = new DateTimeOffset(2026, 11, 24, 9, 0, 0, TimeSpan.Zero).ToUnixTimeSeconds();
+        Assert.Equal(secondsAfterNine, seconds - nine, 6);
+    }
+
+    [Theory]
+    [InlineData("2026-13-24T09:00:00")]
+    [InlineData("2026-02-30T09:00:00")]
+    [InlineData("yesterday")]
+    public void Impossible_ISO_timestamps_are_refused(string text) =>
+        Assert.False(IsoTimestamp.TryParseSeconds(System.Text.Encoding.UTF8.GetBytes(text), out _));
 }
