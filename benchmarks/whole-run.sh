@@ -1,0 +1,40 @@
+#!/usr/bin/env bash
+# Whole-run benchmark of `bcprep process` against a parse-only baseline (same CSV reader, same file), at three
+# file sizes, median of several runs each. Prints a Markdown table to paste into BENCHMARKS.md.
+# Usage: benchmarks/whole-run.sh [runs] [hours...]   (defaults: 5 runs; 0.5 1 2 hours of a 200 Hz day)
+set -euo pipefail
+cd "$(dirname "$0")/.."
+runs=${1:-5}; shift || true
+hours=("${@:-0.5 1 2}"); read -r -a hours <<< "${hours[*]}"
+rate=${RATE:-200}
+data=${BENCH_DATA:-/tmp/bcprep-bench}
+mkdir -p "$data"
+dotnet build -c Release src/BcPrep.Cli benchmarks/ParseBaseline tools/SampleDay -nologo -v q >/dev/null
+cli=src/BcPrep.Cli/bin/Release/net10.0/bcprep
+base=benchmarks/ParseBaseline/bin/Release/net10.0/ParseBaseline
+gen=tools/SampleDay/bin/Release/net10.0/SampleDay
+
+# One timed run: prints "seconds peak_kB".
+timed() { /usr/bin/time -f "%e %M" "$@" 2>&1 >/dev/null | tail -1; }
+median() { sort -n | awk '{a[NR]=$1} END {print (NR%2) ? a[(NR+1)/2] : (a[NR/2]+a[NR/2+1])/2}'; }
+
+echo "| day | file MB | parse-only s (MB/s) | process s (MB/s) | process / parse-only throughput | process peak RSS MB |"
+echo "|---|---|---|---|---|---|"
+for h in "${hours[@]}"; do
+  dir="$data/${rate}hz-${h}h"
+  if [ ! -f "$dir/marten-2026-11-24-am.csv" ]; then
+    mkdir -p "$dir"; "$gen" "$dir" 7 --rate "$rate" --hours "$h" --single >/dev/null
+  fi
+  file="$dir/marten-2026-11-24-am.csv"
+  mb=$(awk -v b="$(stat -c %s "$file")" 'BEGIN {printf "%.1f", b/1e6}')
+  cat "$file" > /dev/null   # page cache: both sides read from memory
+  pt=(); ct=(); rss=()
+  for _ in $(seq "$runs"); do
+    read -r s _ < <(timed "$base" "$file"); pt+=("$s")
+    rm -rf "$dir/out"
+    read -r s k < <(timed "$cli" process sample-logs/marten-rig.toml "$file" --out "$dir/out" --force); ct+=("$s"); rss+=("$k")
+  done
+  p=$(printf '%s\n' "${pt[@]}" | median); c=$(printf '%s\n' "${ct[@]}" | median); r=$(printf '%s\n' "${rss[@]}" | median)
+  awk -v h="$h" -v rate="$rate" -v mb="$mb" -v p="$p" -v c="$c" -v r="$r" 'BEGIN {
+    printf "| %s h at %s Hz, 13 ch | %s | %.2f (%.0f) | %.2f (%.0f) | %.0f %% | %.0f |\n", h, rate, mb, p, mb/p, c, mb/c, 100*p/c, r/1024 }'
+done
