@@ -1,3 +1,4 @@
+using System.Collections.Concurrent;
 using System.Globalization;
 using BcPrep.Reading;
 using BcPrep.Rig;
@@ -29,37 +30,33 @@ public static class DayScan
     {
         var channels = OrderByDependency(logger.Channels, rig);
         var columns = logger.Channels.Select(c => c.Column).ToList();
-        var block = new LogBlock(columns.Count, BlockRows);
         var si = channels.ToDictionary(c => c.Id, _ => new double[BlockRows], StringComparer.Ordinal);
         var ids = logger.Channels.Select(c => c.Id).ToList();
         var blockArrays = ids.Select(id => si[id]).ToList();
         var previousEnd = double.NegativeInfinity;
         string? previousFile = null;
-        foreach (var file in logger.Files)
+        foreach (var (file, block, first) in ReadAhead(rig, logger, columns))
         {
-            using var reader = new LogFileReader(file, rig.Log, columns);
-            var first = true;
-            while (reader.ReadBlock(block))
+            if (first)
             {
-                if (first && block.TimeS[0] <= previousEnd)
+                if (block.TimeS[0] <= previousEnd)
                 {
                     throw new BcPrepFailure(FailureKind.InputData, new SourceLocation(file.DisplayName, (int)block.LineNumbers[0], null, rig.Log.TimeColumn),
                         $"this file starts at {Fmt(block.TimeS[0])} s, before the end of {previousFile} ({Fmt(previousEnd)} s): the files overlap in time");
                 }
-                first = false;
-                ConvertBlock(file, block, logger, channels, converters, si);
-                blockSink?.AcceptBlock(ids, block.TimeS, blockArrays, block.Count);
-                var times = block.TimeS.AsSpan(0, block.Count);
-                foreach (var channel in channels)
-                {
-                    var values = si[channel.Id].AsSpan(0, block.Count);
-                    foreach (var sink in sinks)
-                    {
-                        sink.Accept(channel.Id, times, values);
-                    }
-                }
-                previousEnd = block.TimeS[block.Count - 1];
             }
+            ConvertBlock(file, block, logger, channels, converters, si);
+            blockSink?.AcceptBlock(ids, block.TimeS, blockArrays, block.Count);
+            var times = block.TimeS.AsSpan(0, block.Count);
+            foreach (var channel in channels)
+            {
+                var values = si[channel.Id].AsSpan(0, block.Count);
+                foreach (var sink in sinks)
+                {
+                    sink.Accept(channel.Id, times, values);
+                }
+            }
+            previousEnd = block.TimeS[block.Count - 1];
             previousFile = file.DisplayName;
         }
         foreach (var channel in channels)
@@ -67,6 +64,69 @@ public static class DayScan
             foreach (var sink in sinks)
             {
                 sink.Complete(channel.Id);
+            }
+        }
+    }
+
+    /// <summary>
+    /// Parses on a second thread while the caller converts, so both cores work on a large day. A few blocks
+    /// circulate between the two threads, so memory stays bounded; a failure on either side stops both and the
+    /// reader's own exception (file, line, column) reaches the caller unchanged.
+    /// </summary>
+    private static IEnumerable<(LogInput File, LogBlock Block, bool FirstOfFile)> ReadAhead(RigDescription rig, LoggerFiles logger, IReadOnlyList<string> columns)
+    {
+        const int InFlight = 3;
+        using var free = new BlockingCollection<LogBlock>();
+        using var filled = new BlockingCollection<(LogInput, LogBlock, bool)>(InFlight);
+        using var stop = new CancellationTokenSource();
+        for (var i = 0; i < InFlight + 1; i++)
+        {
+            free.Add(new LogBlock(columns.Count, BlockRows));
+        }
+        var producer = Task.Run(() =>
+        {
+            try
+            {
+                foreach (var file in logger.Files)
+                {
+                    using var reader = new LogFileReader(file, rig.Log, columns);
+                    var first = true;
+                    while (true)
+                    {
+                        var block = free.Take(stop.Token);
+                        if (!reader.ReadBlock(block))
+                        {
+                            free.Add(block);
+                            break;
+                        }
+                        filled.Add((file, block, first), stop.Token);
+                        first = false;
+                    }
+                }
+            }
+            finally
+            {
+                filled.CompleteAdding();
+            }
+        });
+        try
+        {
+            foreach (var item in filled.GetConsumingEnumerable())
+            {
+                yield return item;
+                free.Add(item.Item2);
+            }
+        }
+        finally
+        {
+            stop.Cancel();
+            try
+            {
+                producer.GetAwaiter().GetResult();
+            }
+            catch (OperationCanceledException)
+            {
+                // The consumer stopped first; its own exception (if any) is the one that matters.
             }
         }
     }
