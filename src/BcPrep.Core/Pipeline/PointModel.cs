@@ -76,10 +76,12 @@ public sealed partial class PointModel
     /// <summary>Input estimates as a vector (the point of expansion).</summary>
     public double[] Estimates() => _inputs.Select(i => i.Estimate).ToArray();
 
+    // A loss fraction of exactly 0 (the default) is stepped below 0 by the numerical Jacobian; losses cannot be
+    // negative, so the model holds them at 0 there.
     public PointMeasurements MeasurementsAt(double[] x) => WithProfileInputs(new(
         _inletPressure(x), _outletPressure(x), _inletTemperature(x), _outletTemperature(x), _massFlow(x), _heaterPower(x),
         [.. _wallChannels.Select(c => _channels[c.Id].ValueAt(x))],
-        x[_diameter], x[_loss], x[_viscosityFactor], x[_cpFactor]), x);
+        x[_diameter], Math.Max(0.0, x[_loss]), x[_viscosityFactor], x[_cpFactor]), x);
 
     /// <summary>The model function: inputs → every output of <see cref="Outputs"/>, in that order.</summary>
     public double[] Evaluate(double[] x) => Flatten(MeasurementsAt(x), PointPhysics.Evaluate(MeasurementsAt(x), _settings), includeAll: false);

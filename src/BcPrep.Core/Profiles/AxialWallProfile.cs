@@ -11,6 +11,9 @@ namespace BcPrep.Profiles;
 /// </summary>
 public static class AxialWallProfile
 {
+    /// <summary>Positions closer than this to the outermost thermocouples count as on them (rounding of the grid), m.</summary>
+    public const double PositionToleranceM = 1e-9;
+
     /// <summary>
     /// <paramref name="count"/> equally spaced positions from <paramref name="startM"/> to <paramref name="endM"/>
     /// inclusive; count ≥ 2 and end &gt; start, otherwise <see cref="BcPrepDataException"/>.
@@ -45,13 +48,13 @@ public static class AxialWallProfile
             return gridM;
         }
         var (low, high) = (thermocoupleM.Min(), thermocoupleM.Max());
-        return gridM.Where(z => z >= low && z <= high).ToImmutableArray();
+        return gridM.Where(z => z >= low - PositionToleranceM && z <= high + PositionToleranceM).ToImmutableArray();
     }
 
     /// <summary>
     /// T(z) by linear interpolation of (z_i, T_i), z_i strictly increasing (at least one point). Outside
-    /// [z_0, z_last] the end value is held when <paramref name="clampOutside"/>; otherwise
-    /// <see cref="BcPrepDataException"/>. NaN temperatures propagate.
+    /// [z_0, z_last] (beyond <see cref="PositionToleranceM"/>) the end value is held when <paramref name="clampOutside"/>;
+    /// otherwise <see cref="BcPrepDataException"/>. NaN temperatures propagate.
     /// </summary>
     public static double At(ImmutableArray<double> thermocoupleM, ImmutableArray<double> temperatureK, double zM, bool clampOutside)
     {
@@ -68,7 +71,8 @@ public static class AxialWallProfile
         }
         if (zM < thermocoupleM[0] || zM > thermocoupleM[^1])
         {
-            if (!clampOutside)
+            var onEnd = zM >= thermocoupleM[0] - PositionToleranceM && zM <= thermocoupleM[^1] + PositionToleranceM;
+            if (!clampOutside && !onEnd)
             {
                 throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture,
                     $"z = {zM:R} m lies outside the wall thermocouples [{thermocoupleM[0]:R}, {thermocoupleM[^1]:R}] m and extrapolation is not allowed."));
