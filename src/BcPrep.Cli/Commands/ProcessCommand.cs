@@ -29,14 +29,16 @@ public static class ProcessCommand
             using var inputs = new LogArguments(parse.GetValue(logs)!, context);
             var outDir = parse.GetValue(output)!;
             var provenance = new RunProvenance(BcPrepApp.Version, LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!), inputs.Fingerprints());
-            if (!parse.GetValue(force) && IsUpToDate(outDir, provenance))
+            var facePoints = FacePoints.Read(description, parse.GetValue(rig)!);
+            // The face points file is not among the hashed inputs, so a configured face always recomputes.
+            if (!parse.GetValue(force) && facePoints is null && IsUpToDate(outDir, provenance))
             {
                 diagnostics.Info($"{outDir}: up to date (inputs, rig file and tool version unchanged); nothing to do. Use --force to recompute.");
                 return ExitCodes.Success;
             }
             diagnostics.Detail($"reading {inputs.Inputs.Count} log file(s)");
             var day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)));
-            var files = DayOutputs.Build(day, provenance);
+            var files = DayOutputs.Build(day, provenance, facePoints);
             files.Commit(outDir);
             foreach (var point in day.Points)
             {

@@ -167,6 +167,7 @@ public static class DayProcessor
         {
             warnings.Add(string.Create(CultureInfo.InvariantCulture, $"Mach {point.Nominal.Mach:F2} > 0.3: compressibility matters; incompressible boundary conditions are doubtful"));
         }
+        warnings.AddRange(point.Model.ModelWarnings);
         foreach (var failed in checks.Where(c => !c.Passed))
         {
             warnings.Add($"check '{failed.Name}' did not pass: {failed.Basis}");

@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using System.Globalization;
 using BcPrep.Calibration;
 using BcPrep.Profiles;
 using BcPrep.Rig;
@@ -11,7 +12,7 @@ namespace BcPrep.Pipeline;
 /// term, geometry and property-model factors) and the function from those inputs to every boundary-condition
 /// quantity and profile point. GUM propagation, Monte Carlo and ensembles all evaluate this same function.
 /// </summary>
-public sealed class PointModel
+public sealed partial class PointModel
 {
     // Property-model uncertainty, rectangular half-widths: Sutherland's law against Incropera Table A.4 deviates by
     // 0.2–0.7 % (reference sheet §7, table from memory); ideal-gas cp against 1-atm tables by 0.2–0.4 %.
@@ -75,10 +76,12 @@ public sealed class PointModel
     /// <summary>Input estimates as a vector (the point of expansion).</summary>
     public double[] Estimates() => _inputs.Select(i => i.Estimate).ToArray();
 
-    public PointMeasurements MeasurementsAt(double[] x) => new(
+    // A loss fraction of exactly 0 (the default) is stepped below 0 by the numerical Jacobian; losses cannot be
+    // negative, so the model holds them at 0 there.
+    public PointMeasurements MeasurementsAt(double[] x) => WithProfileInputs(new(
         _inletPressure(x), _outletPressure(x), _inletTemperature(x), _outletTemperature(x), _massFlow(x), _heaterPower(x),
         [.. _wallChannels.Select(c => _channels[c.Id].ValueAt(x))],
-        x[_diameter], x[_loss], x[_viscosityFactor], x[_cpFactor]);
+        x[_diameter], Math.Max(0.0, x[_loss]), x[_viscosityFactor], x[_cpFactor]), x);
 
     /// <summary>The model function: inputs → every output of <see cref="Outputs"/>, in that order.</summary>
     public double[] Evaluate(double[] x) => Flatten(MeasurementsAt(x), PointPhysics.Evaluate(MeasurementsAt(x), _settings), includeAll: false);
@@ -154,11 +157,14 @@ public sealed class PointModel
         var problems = new List<Problem>();
         _inletPressure = Required(rig, ChannelRole.StaticPressure, "inlet", problems, absolute: true);
         _outletPressure = Required(rig, ChannelRole.StaticPressure, "outlet", problems, absolute: true);
-        _inletTemperature = Required(rig, ChannelRole.BulkTemperature, "inlet", problems, absolute: false);
-        _outletTemperature = Optional(rig, ChannelRole.BulkTemperature, "outlet") ?? _inletTemperature;
-        _massFlow = Required(rig, ChannelRole.MassFlow, null, problems, absolute: false);
-        _heaterPower = HeaterPower(rig);
         _wallChannels = rig.WithRole(ChannelRole.WallTemperature).Where(c => _channels.ContainsKey(c.Id)).OrderBy(c => c.AxialPositionM).ToList();
+        ResolveProfileInputs(rig);
+        _inletTemperature = Optional(rig, ChannelRole.BulkTemperature, "inlet") ?? RakeMeanTemperature()
+            ?? Required(rig, ChannelRole.BulkTemperature, "inlet", problems, absolute: false);
+        _outletTemperature = Optional(rig, ChannelRole.BulkTemperature, "outlet") ?? _inletTemperature;
+        _massFlow = Optional(rig, ChannelRole.MassFlow, null) ?? (problems.Count == 0 ? FlowMeterMassFlow(rig) : null)
+            ?? Required(rig, ChannelRole.MassFlow, null, problems, absolute: false);
+        _heaterPower = HeaterPower(rig);
         if (problems.Count > 0)
         {
             throw new BcPrepFailure(FailureKind.Configuration, problems);
@@ -172,7 +178,7 @@ public sealed class PointModel
         {
             var what = role.ToString();
             problems.Add(new Problem(new SourceLocation(rig.SourceFile, Key: "channel"),
-                $"no channel measures {what}{(plane is null ? "" : $" at the {plane} plane")}: the boundary conditions need one"));
+                $"no channel measures {what}{(plane is null ? "" : $" at the {plane} plane")}: the boundary conditions need one{(role == ChannelRole.MassFlow ? " (or a [flow_meter] table)" : "")}"));
             return _ => double.NaN;
         }
         return found;
@@ -181,7 +187,8 @@ public sealed class PointModel
     /// <summary>The average of every channel with the role (and plane); gauge pressures get their reference added.</summary>
     private Func<double[], double>? Optional(RigDescription rig, ChannelRole role, string? plane, bool absolute = false)
     {
-        var matches = rig.WithRole(role).Where(c => (plane is null || c.Plane == plane) && _channels.ContainsKey(c.Id)).ToList();
+        // Rake sensors (with a radius) sample a profile, not the plane's bulk value.
+        var matches = rig.WithRole(role).Where(c => (plane is null || c.Plane == plane) && c.RadiusM is null && _channels.ContainsKey(c.Id)).ToList();
         if (matches.Count == 0)
         {
             return null;
@@ -223,7 +230,7 @@ public sealed class PointModel
         var x = Estimates();
         var nominal = PointPhysics.Evaluate(MeasurementsAt(x), _settings);
         ProfileRadiiM = nominal.Velocity.Profile.RadiusM;
-        var all = Definitions(nominal.Velocity.Profile.RadiusM.Length);
+        var all = Definitions(nominal.Velocity.Profile.RadiusM.Length, nominal.TemperatureProfile is null ? 0 : nominal.Velocity.Profile.RadiusM.Length);
         var values = Flatten(MeasurementsAt(x), nominal, includeAll: true);
         _included = all.Select((d, i) => double.IsFinite(values[i])).ToArray();
         Outputs = all.Where((d, i) => _included[i]).ToList();
@@ -231,7 +238,7 @@ public sealed class PointModel
 
     private bool[] _included = [];
 
-    private List<QuantityDefinition> Definitions(int profilePoints)
+    private List<QuantityDefinition> Definitions(int profilePoints, int temperatureProfilePoints)
     {
         var list = new List<QuantityDefinition>
         {
@@ -242,7 +249,7 @@ public sealed class PointModel
             new("mass_flow", "kg/s", "mass flow through the duct"),
             new("heater_power", "W", "electrical heater power"),
             new("wall.heat_flux", "W/m2", "wall heat flux over the heated length, losses removed"),
-            new("inlet.density", "kg/m3", "ideal-gas density at the inlet plane"),
+            new("inlet.density", "kg/m3", "density at the inlet plane (ideal-gas dry air, or CIPM-2007 moist air with a humidity channel)"),
             new("inlet.viscosity", "Pa s", "dynamic viscosity at the inlet plane (Sutherland)"),
             new("inlet.bulk_velocity", "m/s", "bulk velocity at the inlet plane"),
             new("reynolds", "1", "Reynolds number on diameter at inlet conditions"),
@@ -258,6 +265,9 @@ public sealed class PointModel
         };
         list.AddRange(_wallChannels.Select(c => new QuantityDefinition($"wall.temperature.{c.Id}", "K", $"wall temperature at z = {c.AxialPositionM:G6} m")));
         list.AddRange(Enumerable.Range(0, profilePoints).Select(i => new QuantityDefinition($"inlet.velocity.{i}", "m/s", "axial velocity at profile point " + i)));
+        list.AddRange(WallGridM.Select((z, i) => new QuantityDefinition($"{ProfileOutputs.WallGridPrefix}{i}", "K",
+            string.Create(CultureInfo.InvariantCulture, $"wall temperature interpolated at z = {z:G6} m"))));
+        list.AddRange(Enumerable.Range(0, temperatureProfilePoints).Select(i => new QuantityDefinition($"{ProfileOutputs.TemperaturePrefix}{i}", "K", "inlet temperature from the rake at profile point " + i)));
         return list;
     }
 
@@ -272,6 +282,8 @@ public sealed class PointModel
         };
         values.AddRange(m.WallTemperaturesK);
         values.AddRange(q.Velocity.Profile.Values);
+        values.AddRange(WallGridTemperatures(m));
+        values.AddRange(q.TemperatureProfile?.Profile.Values ?? []);
         if (includeAll)
         {
             return values.ToArray();

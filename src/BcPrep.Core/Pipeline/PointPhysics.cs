@@ -16,7 +16,17 @@ public sealed record PointMeasurements(
     double DiameterM,
     double HeaterLossFraction,
     double ViscosityFactor,
-    double CpFactor);
+    double CpFactor)
+{
+    /// <summary>Relative humidity (fraction) at inlet conditions; NaN for dry air.</summary>
+    public double RelativeHumidity { get; init; } = double.NaN;
+
+    /// <summary>Radii (m) of the inlet temperature rake; empty for a uniform inlet temperature.</summary>
+    public ImmutableArray<double> RakeRadiiM { get; init; } = [];
+
+    /// <summary>Rake temperatures (K), one per radius.</summary>
+    public ImmutableArray<double> RakeTemperaturesK { get; init; } = [];
+}
 
 /// <summary>Fixed geometry and settings that are not uncertain inputs.</summary>
 public sealed record PointSettings(
@@ -44,7 +54,14 @@ public sealed record PointQuantities(
     double PressureDropMeasured,
     double PressureDropExpected,
     double EnergyBalanceMismatch,
-    VelocityProfileResult Velocity);
+    VelocityProfileResult Velocity)
+{
+    /// <summary>Inlet temperature on the velocity grid from the rake; null when the inlet temperature is uniform.</summary>
+    public TemperatureProfileResult? TemperatureProfile { get; init; }
+
+    /// <summary>Water-vapour mole fraction of the air (CIPM-2007); 0 for dry air.</summary>
+    public double VapourMoleFraction { get; init; }
+}
 
 /// <summary>
 /// The physics of one operating point as a pure function of the measured values, so that the uncertainty stage
@@ -54,7 +71,8 @@ public static class PointPhysics
 {
     public static PointQuantities Evaluate(PointMeasurements m, PointSettings s)
     {
-        var rhoIn = DryAir.Density(m.InletPressurePa, m.InletTemperatureK);
+        var vapour = VapourMoleFraction(m);
+        var rhoIn = InletDensity(m);
         var muIn = DryAir.Viscosity(m.InletTemperatureK) * m.ViscosityFactor;
         var bulk = PipeFlow.BulkVelocity(m.MassFlowKgS, rhoIn, m.DiameterM);
         var reynolds = PipeFlow.ReynoldsFromMassFlow(m.MassFlowKgS, m.DiameterM, muIn);
@@ -65,17 +83,38 @@ public static class PointPhysics
             m.MassFlowKgS, rhoIn, muIn, m.DiameterM, s.VelocityModel, s.RadialPoints, s.WallRoughnessM / m.DiameterM));
         var turbulence = Turbulence(m, s, bulk, muIn / rhoIn, reynolds);
 
-        var (dpMeasured, dpExpected) = PressureDrop(m, s);
+        var (dpMeasured, dpExpected) = PressureDrop(m, s, rhoIn);
         var absorbed = m.HeaterPowerW * (1 - m.HeaterLossFraction);
         var meanT = 0.5 * (m.InletTemperatureK + m.OutletTemperatureK);
-        var carried = m.MassFlowKgS * DryAir.SpecificHeatCp(meanT) * m.CpFactor * (m.OutletTemperatureK - m.InletTemperatureK);
+        var carried = m.MassFlowKgS * MoistAirMixture.SpecificHeatCp(DryAir.SpecificHeatCp(meanT), vapour) * m.CpFactor * (m.OutletTemperatureK - m.InletTemperatureK);
         var mismatch = absorbed > 0 ? (absorbed - carried) / absorbed : double.NaN;
 
         return new PointQuantities(rhoIn, muIn, bulk, reynolds, mach, heatFlux,
             turbulence?.Intensity ?? double.NaN, turbulence?.KineticEnergyM2PerS2 ?? double.NaN, turbulence?.LengthScaleM ?? double.NaN,
             turbulence?.DissipationRateM2PerS3 ?? double.NaN, turbulence?.SpecificDissipationRatePerS ?? double.NaN,
-            dpMeasured, dpExpected, mismatch, velocity);
+            dpMeasured, dpExpected, mismatch, velocity)
+        {
+            TemperatureProfile = m.RakeRadiiM.IsDefaultOrEmpty
+                ? null
+                : TemperatureProfiles.FromRake(velocity.Profile.RadiusM, m.RakeRadiiM, m.RakeTemperaturesK, RakeEndPolicy.ClampConstant),
+            VapourMoleFraction = vapour,
+        };
     }
+
+    /// <summary>
+    /// Density at (p, T): CIPM-2007 moist air when a relative humidity is given (humidity taken at this state),
+    /// ideal-gas dry air when it is NaN.
+    /// </summary>
+    public static double Density(double pressurePa, double temperatureK, double relativeHumidity) =>
+        double.IsNaN(relativeHumidity)
+            ? DryAir.Density(pressurePa, temperatureK)
+            : MoistAir.FromRelativeHumidity(pressurePa, temperatureK, relativeHumidity).DensityKgPerM3;
+
+    private static double InletDensity(PointMeasurements m) => Density(m.InletPressurePa, m.InletTemperatureK, m.RelativeHumidity);
+
+    private static double VapourMoleFraction(PointMeasurements m) => double.IsNaN(m.RelativeHumidity)
+        ? 0.0
+        : MoistAir.FromRelativeHumidity(m.InletPressurePa, m.InletTemperatureK, m.RelativeHumidity).VapourMoleFraction;
 
     private static InletTurbulenceState? Turbulence(PointMeasurements m, PointSettings s, double bulk, double kinematic, double reynolds)
     {
@@ -90,13 +129,14 @@ public static class PointPhysics
 
     /// <summary>
     /// Measured static-pressure drop between the planes against friction (Colebrook, at the mean bulk state) plus
-    /// the momentum change of the heated, accelerating flow G²(1/ρ_out − 1/ρ_in).
+    /// the momentum change of the heated, accelerating flow G²(1/ρ_out − 1/ρ_in), ρ_out = ρ_in (p_out/p_in)(T_in/T_out).
     /// </summary>
-    private static (double Measured, double Expected) PressureDrop(PointMeasurements m, PointSettings s)
+    private static (double Measured, double Expected) PressureDrop(PointMeasurements m, PointSettings s, double rhoIn)
     {
         var measured = m.InletPressurePa - m.OutletPressurePa;
-        var rhoIn = DryAir.Density(m.InletPressurePa, m.InletTemperatureK);
-        var rhoOut = DryAir.Density(m.OutletPressurePa, m.OutletTemperatureK);
+        // Scaled from the inlet state (ideal gas, same composition) so that moist and dry air are treated alike and
+        // the outlet may lie outside the moist-air formula's 0–60 °C range.
+        var rhoOut = rhoIn * (m.OutletPressurePa / m.InletPressurePa) * (m.InletTemperatureK / m.OutletTemperatureK);
         var meanT = 0.5 * (m.InletTemperatureK + m.OutletTemperatureK);
         var rhoMean = 0.5 * (rhoIn + rhoOut);
         var mu = DryAir.Viscosity(meanT) * m.ViscosityFactor;

@@ -18,6 +18,15 @@ public sealed record RigDescription(
     public ChannelSpec? Channel(string id) => Channels.FirstOrDefault(c => c.Id == id);
 
     public IEnumerable<ChannelSpec> WithRole(ChannelRole role) => Channels.Where(c => c.Role == role);
+
+    /// <summary>The differential-pressure flow meter, when the rig file has a <c>[flow_meter]</c> table.</summary>
+    public FlowMeterSpec? FlowMeter { get; init; }
+
+    /// <summary>Axial wall-temperature grid (<c>[wall]</c>).</summary>
+    public WallSettings Wall { get; init; } = WallSettings.Default;
+
+    /// <summary>Sampling of the inlet profile onto a face's points (<c>[inlet_profile.face]</c>), if asked for.</summary>
+    public InletFaceSpec? InletFace { get; init; }
 }
 
 /// <summary>Duct geometry; positions are axial coordinates (m) along the duct in one frame of the user's choice.</summary>
@@ -75,7 +84,11 @@ public sealed record ChannelSpec(
     TareSpec? Tare,
     CalibrationRecord? Record,
     bool IsKey,
-    SourceLocation Location);
+    SourceLocation Location)
+{
+    /// <summary>Radial position (m from the axis) of a rake sensor; null for a plane's bulk sensor.</summary>
+    public double? RadiusM { get; init; }
+}
 
 /// <summary>A pinned time interval (seconds since the first sample of the day, or absolute when the log has dates).</summary>
 public sealed record TimeBound(double Seconds, bool IsAbsolute);

@@ -56,13 +56,18 @@ public static class RigLoader
         }
         var points = top.Tables("point").Select(ReadPoint).Where(p => p is not null).Select(p => p!).ToList();
         var steady = ReadSteady(top.Table("steady"), channels, declaredIds);
-        var profiles = ReadProfiles(top.Table("inlet_profile"));
+        var profileTable = top.Table("inlet_profile");
+        var face = BoundaryKeys.ReadFace(profileTable?.Table("face"));
+        var profiles = ReadProfiles(profileTable);
+        var flowMeter = BoundaryKeys.ReadFlowMeter(top.Table("flow_meter"));
+        var wall = BoundaryKeys.ReadWall(top.Table("wall"));
         top.RejectUnknownKeys();
 
         CheckReferences(channels, duct, points, problems);
+        BoundaryKeys.Check(channels, duct, flowMeter, problems);
         return duct is null || log is null
             ? null
-            : new RigDescription(name, fileName, duct, log, channels, points, steady, profiles, coverage);
+            : new RigDescription(name, fileName, duct, log, channels, points, steady, profiles, coverage) { FlowMeter = flowMeter, Wall = wall, InletFace = face };
     }
 
     private static DuctGeometry? ReadDuct(TableReader? t)
@@ -149,6 +154,7 @@ public static class RigLoader
         var position = t.Quantity("position", Dimension.Length);
         var reference = t.String("reference");
         var isKey = t.Bool("key", false);
+        var radius = t.Quantity("radius", Dimension.Length, minSi: 0);
         var sensor = ReadSensor(t, dimension);
         var uncertainty = t.Tables("uncertainty").Select(u => ReadUncertainty(u, dimension)).Where(u => u is not null).Select(u => u!).ToList();
         TareSpec? tare = null;
@@ -168,10 +174,14 @@ public static class RigLoader
         {
             t.Report("plane", $"a {roleText} channel needs the plane it measures, e.g. plane = \"inlet\"");
         }
+        if (radius is not null && (role != ChannelRole.BulkTemperature || plane != "inlet"))
+        {
+            t.Report("radius", "a radial position belongs to a rake thermocouple: measures = \"bulk_temperature\" at plane = \"inlet\"");
+        }
         t.RejectUnknownKeys();
         return id is null || sensor is null
             ? null
-            : new ChannelSpec(id, column!, role, dimension, plane, position, reference, sensor, uncertainty, tare, record, isKey, t.Location with { Key = $"channel '{id}'" });
+            : new ChannelSpec(id, column!, role, dimension, plane, position, reference, sensor, uncertainty, tare, record, isKey, t.Location with { Key = $"channel '{id}'" }) { RadiusM = radius };
     }
 
     private static SensorSpec? ReadSensor(TableReader t, Dimension dimension)

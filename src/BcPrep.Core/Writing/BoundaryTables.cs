@@ -42,7 +42,7 @@ public static class BoundaryTables
                 var output = point.Output(name);
                 row.AddRange([output?.Estimate ?? double.NaN, output?.StandardUncertainty ?? double.NaN, output?.ExpandedUncertainty ?? double.NaN, output?.CoverageFactor ?? double.NaN]);
             }
-            row.Add(point.Checks.All(c => c.Passed) ? "pass" : "warn: " + string.Join("; ", point.Checks.Where(c => !c.Passed).Select(c => c.Name)));
+            row.Add(string.Join("; ", point.Checks.Select(c => $"{c.Name}: {(c.Passed ? "pass" : "warn")}")));
             row.Add(point.Warnings.Count);
             table.Add([.. row]);
         }
@@ -53,11 +53,15 @@ public static class BoundaryTables
     {
         var velocity = point.Nominal.Velocity;
         var temperature = point.Output("inlet.temperature");
+        var rake = point.Nominal.TemperatureProfile;
         var table = new CsvTable([
             "r [m]", "axial_velocity [m/s]", "u(axial_velocity) [m/s]", "temperature [K]", "u(temperature) [K]",
             "k [m2/s2]", "u(k) [m2/s2]", "epsilon [m2/s3]", "u(epsilon) [m2/s3]", "omega [1/s]", "u(omega) [1/s]",
         ])
             .Comment($"BcPrep inlet profile; point {point.Id}; velocity model {velocity.ModelUsed}; profile integrates to the measured mass flow (raw grid error {velocity.RawDiscretisationRelativeError.ToString("E2", CultureInfo.InvariantCulture)})")
+            .Comment(rake is null
+                ? "temperature uniform: the inlet bulk temperature"
+                : "temperature interpolated linearly from the radial rake, nearest rake value held beyond its ends" + (rake.ClampedPointCount > 0 ? $" ({rake.ClampedPointCount} points)" : ""))
             .Comment(InletTurbulence.ConventionDescription)
             .Comment("u(...) is the standard uncertainty propagated from the measurements; the profile shape model and the turbulence correlations carry no model-form uncertainty here");
         var k = point.Output("inlet.turbulent_kinetic_energy");
@@ -66,8 +70,9 @@ public static class BoundaryTables
         for (var i = 0; i < velocity.Profile.RadiusM.Length; i++)
         {
             var u = point.Output($"inlet.velocity.{i}");
+            var t = rake is null ? temperature : point.Output($"{ProfileOutputs.TemperaturePrefix}{i}");
             table.Add(velocity.Profile.RadiusM[i], u?.Estimate ?? velocity.Profile.Values[i], u?.StandardUncertainty ?? double.NaN,
-                temperature?.Estimate, temperature?.StandardUncertainty,
+                t?.Estimate, t?.StandardUncertainty,
                 k?.Estimate ?? double.NaN, k?.StandardUncertainty ?? double.NaN, eps?.Estimate ?? double.NaN, eps?.StandardUncertainty ?? double.NaN,
                 omega?.Estimate ?? double.NaN, omega?.StandardUncertainty ?? double.NaN);
         }
@@ -80,12 +85,19 @@ public static class BoundaryTables
     public static CsvTable Wall(PointResult point, DayResult day)
     {
         var table = new CsvTable(["z [m]", "channel", "temperature [K]", "u(temperature) [K]", "U(temperature) [K]", "heat_flux [W/m2]", "u(heat_flux) [W/m2]"])
-            .Comment($"BcPrep wall; point {point.Id}; uniform heat flux over the heated length {day.Rig.Duct.HeatedLengthM.ToString("R", CultureInfo.InvariantCulture)} m; wall temperatures at the thermocouple positions (interpolate linearly between them)");
+            .Comment($"BcPrep wall; point {point.Id}; uniform heat flux over the heated length {day.Rig.Duct.HeatedLengthM.ToString("R", CultureInfo.InvariantCulture)} m; wall temperatures at the thermocouple positions, then (channel 'interpolated') linearly between them on the axial grid of [wall], " +
+                       (day.Rig.Wall.ClampOutside ? "holding the nearest thermocouple's value beyond the outermost ones" : "omitted beyond the outermost thermocouples"));
         var flux = point.Output("wall.heat_flux");
         foreach (var channel in day.Rig.Channels.Where(c => c.Role == ChannelRole.WallTemperature).OrderBy(c => c.AxialPositionM))
         {
             var t = point.Output($"wall.temperature.{channel.Id}");
             table.Add(channel.AxialPositionM ?? double.NaN, channel.Id, t?.Estimate ?? double.NaN, t?.StandardUncertainty ?? double.NaN, t?.ExpandedUncertainty ?? double.NaN,
+                flux?.Estimate ?? double.NaN, flux?.StandardUncertainty ?? double.NaN);
+        }
+        for (var i = 0; i < point.Model.WallGridM.Length; i++)
+        {
+            var t = point.Output($"{ProfileOutputs.WallGridPrefix}{i}");
+            table.Add(point.Model.WallGridM[i], "interpolated", t?.Estimate ?? double.NaN, t?.StandardUncertainty ?? double.NaN, t?.ExpandedUncertainty ?? double.NaN,
                 flux?.Estimate ?? double.NaN, flux?.StandardUncertainty ?? double.NaN);
         }
         return table;
@@ -99,7 +111,7 @@ public static class BoundaryTables
         for (var i = 0; i < point.Model.Outputs.Count; i++)
         {
             var definition = point.Model.Outputs[i];
-            if (definition.Name.StartsWith("inlet.velocity.", StringComparison.Ordinal) || (only is not null && !only.Contains(definition.Name)))
+            if (ProfileOutputs.IsProfilePoint(definition.Name) || (only is not null && !only.Contains(definition.Name)))
             {
                 continue;
             }
@@ -116,7 +128,7 @@ public static class BoundaryTables
         for (var i = 0; i < point.Model.Outputs.Count; i++)
         {
             var definition = point.Model.Outputs[i];
-            if (!includeProfile && definition.Name.StartsWith("inlet.velocity.", StringComparison.Ordinal))
+            if (!includeProfile && ProfileOutputs.IsProfilePoint(definition.Name))
             {
                 continue;
             }

@@ -7,7 +7,8 @@ public static class DayOutputs
 {
     public const string ManifestName = "manifest.json";
 
-    public static OutputFileSet Build(DayResult day, RunProvenance provenance)
+    /// <summary>Every output file; <c>facePointsM</c> are the inlet-face points (m) the caller read from the file of <c>[inlet_profile.face]</c> (null: no face file).</summary>
+    public static OutputFileSet Build(DayResult day, RunProvenance provenance, IReadOnlyList<Profiles.Point3>? facePointsM = null)
     {
         var files = new OutputFileSet();
         files.Add("summary.csv", BoundaryTables.Summary(day).ToString());
@@ -19,6 +20,10 @@ public static class DayOutputs
             files.Add(folder + "wall.csv", BoundaryTables.Wall(point, day).ToString());
             files.Add(folder + "scalars.csv", BoundaryTables.Scalars(point).ToString());
             files.Add(folder + "budget.csv", BoundaryTables.Budget(point).ToString());
+            if (day.Rig.InletFace is { } face && facePointsM is not null)
+            {
+                files.Add(folder + "inlet-face.csv", InletFaceTable.Build(point, face, facePointsM).ToString());
+            }
         }
         var names = files.Files.Select(f => f.RelativePath).Append(ManifestName).ToList();
         files.Add(ManifestName, ManifestWriter.Write(day, provenance, names));

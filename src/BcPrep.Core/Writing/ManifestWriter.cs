@@ -99,6 +99,7 @@ public static class ManifestWriter
         }
         json.WriteEndArray();
         WriteStrings(json, "warnings", point.Warnings);
+        ManifestBoundary.Write(json, point);
         json.WriteStartArray("channels");
         foreach (var stats in point.Channels.Values.OrderBy(s => s.Channel, StringComparer.Ordinal))
         {
@@ -140,7 +141,7 @@ public static class ManifestWriter
                 json.WriteBoolean("gum_validated", point.Validation![i].IsValidated);
                 json.WriteEndObject();
             }
-            if (!definition.Name.StartsWith("inlet.velocity.", StringComparison.Ordinal))
+            if (!ProfileOutputs.IsProfilePoint(definition.Name))
             {
                 json.WriteStartArray("budget");
                 foreach (var line in g.Budget.Where(b => b.VarianceShare > 0).OrderByDescending(b => b.VarianceShare))

@@ -1,0 +1,27 @@
+using BcPrep.Profiles;
+using BcPrep.Reading;
+using BcPrep.Rig;
+
+namespace BcPrep.Cli.Commands;
+
+/// <summary>Reads the points file of <c>[inlet_profile.face]</c>; a relative path is taken from the rig file's folder.</summary>
+public static class FacePoints
+{
+    public static IReadOnlyList<Point3>? Read(RigDescription rig, string rigPath)
+    {
+        if (rig.InletFace is not { } face)
+        {
+            return null;
+        }
+        var path = Path.IsPathRooted(face.PointsFile) ? face.PointsFile : Path.Combine(Path.GetDirectoryName(Path.GetFullPath(rigPath)) ?? ".", face.PointsFile);
+        try
+        {
+            using var reader = new StreamReader(path);
+            return FacePointsReader.Read(reader, face.PointsUnitToM, face.PointsFile);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            throw new BcPrepFailure(FailureKind.Configuration, face.Location with { Key = "inlet_profile.face.points_file" }, $"cannot read the face points file '{path}': {e.Message}");
+        }
+    }
+}

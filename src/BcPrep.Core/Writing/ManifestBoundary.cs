@@ -1,0 +1,122 @@
+using System.Text.Json;
+using BcPrep.Pipeline;
+using BcPrep.Rig;
+
+namespace BcPrep.Writing;
+
+/// <summary>
+/// The "boundary" object of a point in the manifest: how the boundary conditions were formed — fluid model, where
+/// the mass flow came from (with the flow meter's ISO 5167 working values), which velocity model the Reynolds number
+/// selected and how well its profile integrates to the mass flow, the inlet temperature source, and the wall grid.
+/// </summary>
+internal static class ManifestBoundary
+{
+    public static void Write(Utf8JsonWriter json, PointResult point)
+    {
+        var model = point.Model;
+        json.WriteStartObject("boundary");
+        json.WriteString("fluid", model.IsMoistAir ? "moist air (CIPM-2007 density, mass-weighted cp; dry-air viscosity)" : "dry air");
+        Number(json, "vapour_mole_fraction", point.Nominal.VapourMoleFraction);
+        json.WriteString("mass_flow_source", model.FlowMeter?.Kind switch
+        {
+            FlowMeterKind.Orifice => "orifice plate, ISO 5167-2",
+            FlowMeterKind.Venturi => "classical Venturi tube, ISO 5167-4",
+            _ => "mass_flow channel",
+        });
+        WriteFlowMeter(json, model.FlowMeter);
+        WriteVelocity(json, point);
+        WriteTemperature(json, point);
+        json.WriteStartObject("wall");
+        json.WriteNumber("axial_points", model.WallGridM.Length);
+        json.WriteStartArray("axial_grid_m");
+        foreach (var z in model.WallGridM)
+        {
+            json.WriteNumberValue(z);
+        }
+        json.WriteEndArray();
+        json.WriteEndObject();
+        json.WriteEndObject();
+    }
+
+    private static void WriteFlowMeter(Utf8JsonWriter json, FlowMeterNominal? meter)
+    {
+        if (meter is null)
+        {
+            json.WriteNull("flow_meter");
+            return;
+        }
+        var r = meter.Result;
+        json.WriteStartObject("flow_meter");
+        json.WriteString("kind", meter.Kind == FlowMeterKind.Orifice ? "orifice" : "venturi");
+        if (meter.Tapping is { } tapping)
+        {
+            json.WriteString("tapping", tapping.ToString());
+        }
+        Number(json, "mass_flow", r.MassFlowKgPerS);
+        Number(json, "diameter_ratio", r.DiameterRatio);
+        Number(json, "discharge_coefficient", r.DischargeCoefficient);
+        Number(json, "expansibility", r.Expansibility);
+        Number(json, "velocity_of_approach_factor", r.VelocityOfApproachFactor);
+        Number(json, "pipe_reynolds", r.PipeReynolds);
+        json.WriteNumber("iterations", r.Iterations);
+        Number(json, "discharge_coefficient_expanded_uncertainty_percent", r.DischargeCoefficientExpandedUncertaintyPercent);
+        Number(json, "expansibility_expanded_uncertainty_percent", r.ExpansibilityExpandedUncertaintyPercent);
+        Number(json, "upstream_pressure", meter.UpstreamPressurePa);
+        Number(json, "upstream_temperature", meter.UpstreamTemperatureK);
+        Number(json, "upstream_density", meter.UpstreamDensityKgPerM3);
+        Strings(json, "warnings", r.Warnings);
+        json.WriteEndObject();
+    }
+
+    private static void WriteVelocity(Utf8JsonWriter json, PointResult point)
+    {
+        var v = point.Nominal.Velocity;
+        json.WriteStartObject("inlet_velocity_profile");
+        json.WriteString("model_requested", point.Model.Settings.VelocityModel.ToString());
+        json.WriteString("model_used", v.ModelUsed.ToString());
+        json.WriteString("selection", "auto: laminar below Re_D 2300, power law above (transitional 2300-4000 flagged); a named model is used as given");
+        json.WriteNumber("points", v.Profile.RadiusM.Length);
+        Number(json, "reynolds", v.Reynolds);
+        Number(json, "bulk_velocity", v.BulkVelocityMPerS);
+        Number(json, "darcy_friction_factor", v.DarcyFrictionFactor);
+        Number(json, "friction_velocity", v.FrictionVelocityMPerS);
+        Number(json, "power_law_exponent", v.PowerLawExponent);
+        Number(json, "model_mass_flow_relative_error", v.ModelMassFlowRelativeError);
+        Number(json, "raw_discretisation_relative_error", v.RawDiscretisationRelativeError);
+        Number(json, "scale_factor", v.ScaleFactor);
+        Strings(json, "diagnostics", v.Diagnostics);
+        json.WriteEndObject();
+    }
+
+    private static void WriteTemperature(Utf8JsonWriter json, PointResult point)
+    {
+        var rake = point.Nominal.TemperatureProfile;
+        json.WriteStartObject("inlet_temperature_profile");
+        json.WriteString("source", rake is null ? "uniform" : "rake");
+        json.WriteNumber("clamped_points", rake?.ClampedPointCount ?? 0);
+        Strings(json, "diagnostics", rake?.Diagnostics ?? []);
+        json.WriteEndObject();
+    }
+
+    private static void Strings(Utf8JsonWriter json, string name, IEnumerable<string> values)
+    {
+        json.WriteStartArray(name);
+        foreach (var value in values)
+        {
+            json.WriteStringValue(value);
+        }
+        json.WriteEndArray();
+    }
+
+    private static void Number(Utf8JsonWriter json, string name, double value)
+    {
+        if (double.IsFinite(value))
+        {
+            json.WriteNumber(name, value);
+        }
+        else
+        {
+            json.WriteNull(name);
+        }
+    }
+}
