@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using BcPrep.Uncertainty;
 
 namespace BcPrep.Tests.Uncertainty;
@@ -128,13 +127,11 @@ public class WindowMeanTests
     }
 
     [Fact]
-    public void One_million_samples_run_in_well_under_seconds()
+    public void One_million_AR1_samples_give_the_integrated_autocorrelation_time_1_plus_phi_over_1_minus_phi()
     {
+        // Speed is measured in benchmarks, never asserted here (DEVELOPERS.md): a shared CI machine made a 5 s bound flaky.
         var x = Ar1.Series(1_000_000, 0.9, new Random(11));
-        var watch = Stopwatch.StartNew();
         var r = WindowMean.Evaluate(x);
-        watch.Stop();
         Assert.InRange(r.IntegratedAutocorrelation, 19.0 * 0.9, 19.0 * 1.1);
-        Assert.True(watch.Elapsed.TotalSeconds < 5.0, $"took {watch.Elapsed.TotalSeconds} s");
     }
 }
