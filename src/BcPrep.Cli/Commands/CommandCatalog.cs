@@ -10,5 +10,8 @@ public static class CommandCatalog
         CheckCommand.Create(common, context),
         ProcessCommand.Create(common, context),
         CalibrateCommand.Create(common, context),
+        BudgetCommand.Create(common, context),
+        CovarianceCommand.Create(common, context),
+        EnsembleCommand.Create(common, context),
     ];
 }

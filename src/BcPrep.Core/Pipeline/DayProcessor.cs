@@ -137,7 +137,7 @@ public static class DayProcessor
         if (options.MonteCarlo)
         {
             monteCarlo = MonteCarloPropagation.Propagate(model.Evaluate, model.Inputs, model.Outputs.Select(o => o.Name).ToList(), null,
-                new MonteCarloOptions(Seed: options.Seed, CoverageProbability: rig.CoverageProbability, SignificantDigits: 1, MaxTrials: 200_000));
+                new MonteCarloOptions(Seed: options.Seed, CoverageProbability: rig.CoverageProbability, SignificantDigits: 1, MaxTrials: options.MonteCarloMaxTrials));
             validation = gum.Outputs.Select((g, i) => GufValidation.Compare(g, monteCarlo.Outputs[i], 1)).ToList();
         }
         var point = new PointResult(window.Id, window, origin, channels, model, gum, nominal, [], [], monteCarlo, validation);

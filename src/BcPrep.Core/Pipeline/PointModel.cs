@@ -144,12 +144,25 @@ public sealed partial class PointModel
     {
         _diameter = Add(new UncertaintyInput("duct inner diameter", rig.Duct.InnerDiameterM, rig.Duct.InnerDiameterStdM, double.PositiveInfinity,
             DistributionKind.Normal, EvaluationType.TypeB, "rig file: duct.inner_diameter_uncertainty"));
-        _loss = Add(new UncertaintyInput("heater loss fraction", rig.Duct.HeaterLossFraction, rig.Duct.HeaterLossFractionStd, double.PositiveInfinity,
-            DistributionKind.Normal, EvaluationType.TypeB, "rig file: duct.heater_loss_fraction_uncertainty"));
+        _loss = Add(LossFractionInput(rig.Duct.HeaterLossFraction, rig.Duct.HeaterLossFractionStd));
         _viscosityFactor = Add(new UncertaintyInput("viscosity model (Sutherland)", 1.0, TypeB.FromRectangularHalfWidth(ViscosityModelHalfWidth), double.PositiveInfinity,
             DistributionKind.Rectangular, EvaluationType.TypeB, "Sutherland's law against handbook tables, ±0.7 %"));
         _cpFactor = Add(new UncertaintyInput("cp model (ideal gas)", 1.0, TypeB.FromRectangularHalfWidth(CpModelHalfWidth), double.PositiveInfinity,
             DistributionKind.Rectangular, EvaluationType.TypeB, "ideal-gas cp against 1-atm tables, ±0.4 %"));
+    }
+
+    /// <summary>
+    /// A loss fraction lies in [0, 1): a normal distribution would let Monte Carlo and ensemble draws go negative
+    /// (5 % ± 2 % does so in 0.6 % of draws), so it is rectangular with the declared u whenever that fits (JCGM 101
+    /// 6.4.2.1); GUM sees only u, so its result does not change.
+    /// </summary>
+    public static UncertaintyInput LossFractionInput(double fraction, double standardUncertainty)
+    {
+        var halfWidth = Math.Sqrt(3.0) * standardUncertainty;
+        var fits = fraction - halfWidth >= 0.0 && fraction + halfWidth < 1.0;
+        return new UncertaintyInput("heater loss fraction", fraction, standardUncertainty, double.PositiveInfinity,
+            fits ? DistributionKind.Rectangular : DistributionKind.Normal, EvaluationType.TypeB,
+            "rig file: duct.heater_loss_fraction_uncertainty" + (fits ? " (rectangular: a fraction is bounded)" : ""));
     }
 
     private void ResolveRoles(RigDescription rig)

@@ -4,4 +4,5 @@ namespace BcPrep.Pipeline;
 public sealed record ProcessOptions(
     bool MonteCarlo = false,
     int Seed = 1,
-    double MaxBridgeS = WindowStatistics.DefaultMaxBridgeS);
+    double MaxBridgeS = WindowStatistics.DefaultMaxBridgeS,
+    int MonteCarloMaxTrials = 200_000);

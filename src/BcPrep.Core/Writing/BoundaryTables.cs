@@ -121,14 +121,14 @@ public static class BoundaryTables
         return table;
     }
 
-    /// <summary>The uncertainty budget: every input's contribution to every scalar output.</summary>
-    public static CsvTable Budget(PointResult point, bool includeProfile = false)
+    /// <summary>The uncertainty budget: every input's contribution to every scalar output (or to those <paramref name="quantity"/> accepts).</summary>
+    public static CsvTable Budget(PointResult point, bool includeProfile = false, Func<string, bool>? quantity = null)
     {
         var table = new CsvTable(["point", "quantity", "unit", "input", "type", "input_estimate", "input_standard_uncertainty", "sensitivity", "contribution", "variance_share", "source"]);
         for (var i = 0; i < point.Model.Outputs.Count; i++)
         {
             var definition = point.Model.Outputs[i];
-            if (!includeProfile && ProfileOutputs.IsProfilePoint(definition.Name))
+            if ((!includeProfile && ProfileOutputs.IsProfilePoint(definition.Name)) || (quantity is not null && !quantity(definition.Name)))
             {
                 continue;
             }

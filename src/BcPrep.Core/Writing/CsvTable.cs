@@ -32,6 +32,18 @@ public sealed class CsvTable
         _rows.Add(cells.Select(Format).ToArray());
     }
 
+    /// <summary>Appends the rows of a table with the same header (to stack per-point tables under one header); comments are not copied.</summary>
+    public CsvTable Append(CsvTable other)
+    {
+        ArgumentNullException.ThrowIfNull(other);
+        if (!other._header.SequenceEqual(_header, StringComparer.Ordinal))
+        {
+            throw new ArgumentException("tables with different headers cannot be stacked", nameof(other));
+        }
+        _rows.AddRange(other._rows);
+        return this;
+    }
+
     public static string Number(double value) => double.IsFinite(value) ? value.ToString("R", CultureInfo.InvariantCulture) : "";
 
     public static string Escape(string text) =>

@@ -158,6 +158,7 @@ public static class ManifestWriter
             json.WriteEndObject();
         }
         json.WriteEndArray();
+        CovarianceTables.WriteManifest(json, point);
         json.WriteEndObject();
     }
 

@@ -127,10 +127,9 @@ public class WindowMeanTests
     }
 
     [Fact]
-    public void One_million_samples_give_the_AR1_integrated_time()
+    public void One_million_AR1_samples_give_the_integrated_autocorrelation_time_1_plus_phi_over_1_minus_phi()
     {
-        // Speed is measured in benchmarks/, never asserted here; this checks the long-series estimate
-        // against the exact AR(1) value (1 + φ)/(1 − φ) = 19 for φ = 0.9.
+        // Speed is measured in benchmarks, never asserted here (DEVELOPERS.md): a shared CI machine made a 5 s bound flaky.
         var x = Ar1.Series(1_000_000, 0.9, new Random(11));
         var r = WindowMean.Evaluate(x);
         Assert.InRange(r.IntegratedAutocorrelation, 19.0 * 0.9, 19.0 * 1.1);
