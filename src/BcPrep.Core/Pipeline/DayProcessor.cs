@@ -73,14 +73,25 @@ public static class DayProcessor
         }
         if (times.Length == 0)
         {
-            throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel), string.Create(CultureInfo.InvariantCulture,
+            var where = pinnedAt is null ? new SourceLocation("(logs)", Key: channel) : pinnedAt with { Key = $"{pinnedAt.Key}, channel '{channel}'" };
+            throw new BcPrepFailure(FailureKind.InputData, where, string.Create(CultureInfo.InvariantCulture,
                 $"window '{window.Id}' ({window.StartS:F1}–{window.EndS:F1} s on the log clock) holds no samples of '{channel}': is the window inside the day?"));
         }
-        if (pinnedAt is not null)
+        if (pinnedAt is null)
         {
-            WindowCoverage.Require(window, channel, times, options.MaxBridgeS, pinnedAt);
+            byChannel[channel] = WindowStatistics.Evaluate(channel, window, times, values, options.MaxBridgeS);
+            return;
         }
-        byChannel[channel] = WindowStatistics.Evaluate(channel, window, times, values, options.MaxBridgeS);
+        WindowCoverage.Require(window, channel, times, options.MaxBridgeS, pinnedAt);
+        try
+        {
+            byChannel[channel] = WindowStatistics.Evaluate(channel, window, times, values, options.MaxBridgeS);
+        }
+        catch (BcPrepFailure failure)
+        {
+            // Point the reader at the window in the rig file as well as at the channel.
+            throw new BcPrepFailure(failure.Kind, failure.Problems.Select(p => p with { Location = pinnedAt with { Key = $"{pinnedAt.Key}, channel '{channel}'" } }).ToList());
+        }
     }
 
     /// <summary>Where a window pinned in the rig file (operating point or tare) is written; null for a detected one.</summary>
