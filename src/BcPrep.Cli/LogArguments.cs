@@ -18,6 +18,11 @@ public sealed class LogArguments : IDisposable
         {
             throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation("(command line)"), "standard input ('-') can be given only once");
         }
+        if (arguments.FirstOrDefault(LooksLikeMistypedOption) is { } option)
+        {
+            throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation("(command line)", Key: option),
+                $"unknown option '{option}' (and no log file has that name); see --help for the options");
+        }
         Inputs = arguments.Select(a => a == "-" ? SpillStandardInput(context) : LogInput.FromPath(a)).ToList();
     }
 
@@ -37,6 +42,10 @@ public sealed class LogArguments : IDisposable
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation(displayName), "cannot read: " + reason);
         }
     }
+
+    /// <summary>The parser hands an unknown "--xyz" to the LOG argument; unless such a file exists, it is a typo.</summary>
+    private static bool LooksLikeMistypedOption(string argument) =>
+        argument.Length > 1 && argument[0] == '-' && !File.Exists(argument) && !Directory.Exists(argument);
 
     public IReadOnlyList<InputFingerprint> Fingerprints() => Inputs.Select(i => Fingerprint(i.DisplayName, i.Path)).ToList();
 

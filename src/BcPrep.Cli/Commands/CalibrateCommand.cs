@@ -42,10 +42,16 @@ public static class CalibrateCommand
         private readonly StringBuilder _text = new(1 << 16);
         private readonly List<string> _columns = rig.Channels.Select(c => c.Id).ToList();
         private double _originS;
+        private bool _headerWritten;
 
-        public void Start(double dayStartS)
+        /// <summary>
+        /// Remembers the day's start; the header waits for the first converted block, so that a day refused in
+        /// its first block leaves standard output empty.
+        /// </summary>
+        public void Start(double dayStartS) => _originS = dayStartS;
+
+        private void WriteHeader()
         {
-            _originS = dayStartS;
             var header = new StringBuilder("time [s]");
             foreach (var channel in rig.Channels)
             {
@@ -56,6 +62,11 @@ public static class CalibrateCommand
 
         public void AcceptBlock(IReadOnlyList<string> channels, double[] timeS, IReadOnlyList<double[]> valuesSi, int count)
         {
+            if (!_headerWritten)
+            {
+                WriteHeader();
+                _headerWritten = true;
+            }
             var slot = _columns.Select(id => channels.ToList().IndexOf(id)).ToArray();
             for (var i = 0; i < count; i++)
             {

@@ -27,7 +27,7 @@ public static class DayProcessor
         var stats = new Dictionary<string, Dictionary<string, ChannelWindowStats>>(StringComparer.Ordinal);
         var tareWindows = TareWindows(rig, plan.DayStartS);
         var pinned = rig.Points.Select(p => new TimeWindow(p.Id, Resolve(p.Start, plan.DayStartS), Resolve(p.End, plan.DayStartS))).ToList();
-        var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(stats, w, c, t, v, options));
+        var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(stats, w, c, t, v, options, PinnedLocation(rig, w)));
         DayScan.Run(rig, plan, converters, [blocks, firstPass]);
 
         var series = Series(rig, blocks);
@@ -59,7 +59,8 @@ public static class DayProcessor
             .Select(c => new TimeWindow("tare:" + c.Id, Resolve(c.Tare!.Start, dayStartS), Resolve(c.Tare.End, dayStartS)))
             .ToList();
 
-    private static void Collect(Dictionary<string, Dictionary<string, ChannelWindowStats>> stats, TimeWindow window, string channel, double[] times, double[] values, ProcessOptions options)
+    private static void Collect(Dictionary<string, Dictionary<string, ChannelWindowStats>> stats, TimeWindow window, string channel, double[] times, double[] values, ProcessOptions options,
+        SourceLocation? pinnedAt = null)
     {
         if (window.Id.StartsWith("tare:", StringComparison.Ordinal) && window.Id != "tare:" + channel)
         {
@@ -72,10 +73,36 @@ public static class DayProcessor
         }
         if (times.Length == 0)
         {
-            throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel), string.Create(CultureInfo.InvariantCulture,
+            var where = pinnedAt is null ? new SourceLocation("(logs)", Key: channel) : pinnedAt with { Key = $"{pinnedAt.Key}, channel '{channel}'" };
+            throw new BcPrepFailure(FailureKind.InputData, where, string.Create(CultureInfo.InvariantCulture,
                 $"window '{window.Id}' ({window.StartS:F1}–{window.EndS:F1} s on the log clock) holds no samples of '{channel}': is the window inside the day?"));
         }
-        byChannel[channel] = WindowStatistics.Evaluate(channel, window, times, values, options.MaxBridgeS);
+        if (pinnedAt is null)
+        {
+            byChannel[channel] = WindowStatistics.Evaluate(channel, window, times, values, options.MaxBridgeS);
+            return;
+        }
+        WindowCoverage.Require(window, channel, times, options.MaxBridgeS, pinnedAt);
+        try
+        {
+            byChannel[channel] = WindowStatistics.Evaluate(channel, window, times, values, options.MaxBridgeS);
+        }
+        catch (BcPrepFailure failure)
+        {
+            // Point the reader at the window in the rig file as well as at the channel.
+            throw new BcPrepFailure(failure.Kind, failure.Problems.Select(p => p with { Location = pinnedAt with { Key = $"{pinnedAt.Key}, channel '{channel}'" } }).ToList());
+        }
+    }
+
+    /// <summary>Where a window pinned in the rig file (operating point or tare) is written; null for a detected one.</summary>
+    private static SourceLocation? PinnedLocation(RigDescription rig, TimeWindow window)
+    {
+        if (rig.Points.FirstOrDefault(p => p.Id == window.Id) is { } point)
+        {
+            return point.Location;
+        }
+        var tared = rig.Channels.FirstOrDefault(c => "tare:" + c.Id == window.Id);
+        return tared is null ? null : tared.Location with { Key = $"channel '{tared.Id}'.tare" };
     }
 
     private static Dictionary<string, ChannelWindowStats> TareStats(RigDescription rig, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
@@ -124,6 +151,7 @@ public static class DayProcessor
         PointQuantities nominal;
         try
         {
+            AbsolutePressureCheck.Require(rig, window.Id, channels, tares);
             model = PointModel.Build(rig, channels, tares);
             nominal = model.Physics(model.Estimates());
         }

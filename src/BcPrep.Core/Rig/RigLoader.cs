@@ -245,7 +245,7 @@ public static class RigLoader
     private static TableSensor? ReadTable(TableReader t, string rawUnit, string unit, Affine rawToSi, Affine unitToSi)
     {
         var points = t.Array("points", required: true);
-        var degree = (int)(t.Number("degree", min: 1, max: 5) ?? 1);
+        var degree = t.Integer("degree", min: 1, max: 5) ?? 1;
         if (points is null)
         {
             return null;
@@ -357,6 +357,10 @@ public static class RigLoader
     private static PointSpec? ReadPoint(TableReader t)
     {
         var id = t.String("id", required: true);
+        if (id is not null && !PointIds.IsSafeFolderName(id))
+        {
+            t.Report("id", $"'{id}' is not a safe folder name: a point id names its output folder (points/ID/), so use letters, digits, '-', '_' and '.', and not '.' or '..' alone");
+        }
         var start = ReadTime(t, "start");
         var end = ReadTime(t, "end");
         if (start is not null && end is not null && start.IsAbsolute == end.IsAbsolute && end.Seconds <= start.Seconds)
@@ -426,12 +430,12 @@ public static class RigLoader
         {
             return new ProfileSettings(41, "auto", null, null);
         }
-        var points = t.Number("points", min: 3, max: MaxRadialPoints) ?? 41;
+        var points = t.Integer("points", min: 3, max: MaxRadialPoints) ?? 41;
         var model = t.Choice("velocity_model", VelocityModels, "auto");
         var intensity = t.Quantity("turbulence_intensity", Dimension.Dimensionless, minSi: 0, maxSi: 1);
         var length = t.Quantity("length_scale", Dimension.Length, minSi: 0);
         t.RejectUnknownKeys();
-        return new ProfileSettings((int)points, model, intensity, length);
+        return new ProfileSettings(points, model, intensity, length);
     }
 
     private static void CheckReferences(List<ChannelSpec> channels, DuctGeometry? duct, List<PointSpec> points, List<Problem> problems)

@@ -93,6 +93,18 @@ public sealed class TableReader
         return CheckRange(entry, value, min, max, "");
     }
 
+    /// <summary>A whole number (a count) within [min, max]; a fraction is reported, never rounded.</summary>
+    public int? Integer(string key, bool required = false, int? min = null, int? max = null)
+    {
+        var value = Number(key, required, min, max);
+        if (value is { } v && v != Math.Floor(v))
+        {
+            Report(key, $"{v.ToString(CultureInfo.InvariantCulture)} is not a whole number: a count cannot be fractional");
+            return null;
+        }
+        return value is { } whole ? (int)whole : null;
+    }
+
     public bool Bool(string key, bool fallback)
     {
         var entry = Get(key, false);
@@ -135,7 +147,8 @@ public sealed class TableReader
             _problems.Add(new Problem(entry.Location, error));
             return null;
         }
-        return CheckRange(entry, si, minSi, maxSi, " " + UnitText.SiSymbol(dimension));
+        // A dimensionless SI value has no symbol to print ("1.5", not "1.5 1").
+        return CheckRange(entry, si, minSi, maxSi, dimension == Dimension.Dimensionless ? "" : " " + UnitText.SiSymbol(dimension));
     }
 
     public TableReader? Table(string key, bool required = false)
