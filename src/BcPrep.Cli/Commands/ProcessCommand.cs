@@ -17,10 +17,11 @@ public static class ProcessCommand
         var force = new Option<bool>("--force") { Description = "Recompute even when inputs, rig file and tool version match the existing manifest." };
         var monteCarlo = new Option<bool>("--monte-carlo") { Description = "Also propagate by Monte Carlo (JCGM 101) and flag where it disagrees with GUM." };
         var seed = new Option<int>("--seed") { Description = "Seed of the Monte Carlo trials.", DefaultValueFactory = _ => 1 };
+        var allowExpired = LabOptions.AllowExpired();
         var command = new Command("process", "Reduce a test day to boundary conditions with uncertainties, one folder per operating point.\n" +
                                              "Example: bcprep process sample-logs/marten-rig.toml sample-logs/marten-2026-11-24-*.csv --out out")
         {
-            rig, logs, output, force, monteCarlo, seed,
+            rig, logs, output, force, monteCarlo, seed, allowExpired,
         };
         command.SetAction(parse =>
         {
@@ -28,16 +29,24 @@ public static class ProcessCommand
             var description = RigArguments.LoadRig(parse.GetValue(rig)!);
             using var inputs = new LogArguments(parse.GetValue(logs)!, context);
             var outDir = parse.GetValue(output)!;
-            var provenance = new RunProvenance(BcPrepApp.Version, LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!), inputs.Fingerprints());
+            var allowed = parse.GetValue(allowExpired) ?? [];
+            var provenance = new RunProvenance(BcPrepApp.Version, LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!), inputs.Fingerprints())
+            {
+                Choices = allowed.Select(a => "allow-expired=" + a).ToList(),
+            };
             if (!parse.GetValue(force) && IsUpToDate(outDir, provenance))
             {
                 diagnostics.Info($"{outDir}: up to date (inputs, rig file and tool version unchanged); nothing to do. Use --force to recompute.");
                 return ExitCodes.Success;
             }
             diagnostics.Detail($"reading {inputs.Inputs.Count} log file(s)");
-            var day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)));
+            var day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)) { AllowExpired = allowed });
             var files = DayOutputs.Build(day, provenance);
             files.Commit(outDir);
+            foreach (var warning in day.Calibration?.Warnings ?? [])
+            {
+                diagnostics.Warning(warning);
+            }
             foreach (var point in day.Points)
             {
                 foreach (var warning in point.Warnings)

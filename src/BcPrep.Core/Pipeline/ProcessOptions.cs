@@ -4,4 +4,8 @@ namespace BcPrep.Pipeline;
 public sealed record ProcessOptions(
     bool MonteCarlo = false,
     int Seed = 1,
-    double MaxBridgeS = WindowStatistics.DefaultMaxBridgeS);
+    double MaxBridgeS = WindowStatistics.DefaultMaxBridgeS)
+{
+    /// <summary>Channel ids (or "all") whose expired calibration the person explicitly allows; recorded in the manifest.</summary>
+    public IReadOnlyList<string> AllowExpired { get; init; } = [];
+}

@@ -42,6 +42,7 @@ public static class ManifestWriter
             }
             json.WriteEndArray();
             WriteConventions(json, day);
+            CalibrationManifest.Write(json, day.Calibration);
             json.WriteStartArray("points");
             foreach (var point in day.Points)
             {
