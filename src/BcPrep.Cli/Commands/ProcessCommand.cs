@@ -18,10 +18,11 @@ public static class ProcessCommand
         var monteCarlo = new Option<bool>("--monte-carlo") { Description = "Also propagate by Monte Carlo (JCGM 101) and flag where it disagrees with GUM." };
         var seed = new Option<int>("--seed") { Description = "Seed of the Monte Carlo trials.", DefaultValueFactory = _ => 1 };
         var allowExpired = LabOptions.AllowExpired();
+        var matrix = LabOptions.Matrix();
         var command = new Command("process", "Reduce a test day to boundary conditions with uncertainties, one folder per operating point.\n" +
                                              "Example: bcprep process sample-logs/marten-rig.toml sample-logs/marten-2026-11-24-*.csv --out out")
         {
-            rig, logs, output, force, monteCarlo, seed, allowExpired,
+            rig, logs, output, force, monteCarlo, seed, allowExpired, matrix,
         };
         command.SetAction(parse =>
         {
@@ -29,10 +30,12 @@ public static class ProcessCommand
             var description = RigArguments.LoadRig(parse.GetValue(rig)!);
             using var inputs = new LogArguments(parse.GetValue(logs)!, context);
             var outDir = parse.GetValue(output)!;
+            var plan = parse.GetValue(matrix) is { } path ? LabOptions.LoadMatrix(path, description) : null;
             var allowed = parse.GetValue(allowExpired) ?? [];
             var provenance = new RunProvenance(BcPrepApp.Version, LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!), inputs.Fingerprints())
             {
                 Choices = allowed.Select(a => "allow-expired=" + a).ToList(),
+                Matrix = parse.GetValue(matrix) is { } matrixPath ? LogArguments.Fingerprint(matrixPath, matrixPath) : null,
             };
             if (!parse.GetValue(force) && IsUpToDate(outDir, provenance))
             {
@@ -40,10 +43,10 @@ public static class ProcessCommand
                 return ExitCodes.Success;
             }
             diagnostics.Detail($"reading {inputs.Inputs.Count} log file(s)");
-            var day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)) { AllowExpired = allowed });
+            var day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)) { AllowExpired = allowed, Matrix = plan });
             var files = DayOutputs.Build(day, provenance);
             files.Commit(outDir);
-            foreach (var warning in day.Calibration?.Warnings ?? [])
+            foreach (var warning in (day.Calibration?.Warnings ?? []).Concat(day.Matrix?.Warnings ?? []))
             {
                 diagnostics.Warning(warning);
             }

@@ -53,8 +53,13 @@ public static class DayProcessor
         }
 
         var tareStats = TareStats(rig, stats);
-        var points = windows.Select(w => EvaluatePoint(rig, w, origin, stats[w.Id], tareStats, options)).ToList();
-        return new DayResult(rig, plan.DayStartS, points, series, detection, []) { Calibration = calibration };
+        IReadOnlyList<PointResult> points = windows.Select(w => EvaluatePoint(rig, w, origin, stats[w.Id], tareStats, options)).ToList();
+        MatrixReport? matrix = null;
+        if (options.Matrix is not null)
+        {
+            (points, matrix) = MatrixNaming.Apply(options.Matrix, points);
+        }
+        return new DayResult(rig, plan.DayStartS, points, series, detection, []) { Calibration = calibration, Matrix = matrix };
     }
 
     public static double Resolve(TimeBound bound, double dayStartS) => bound.IsAbsolute ? bound.Seconds : dayStartS + bound.Seconds;

@@ -8,4 +8,7 @@ public sealed record ProcessOptions(
 {
     /// <summary>Channel ids (or "all") whose expired calibration the person explicitly allows; recorded in the manifest.</summary>
     public IReadOnlyList<string> AllowExpired { get; init; } = [];
+
+    /// <summary>The planned points; when given, matched points take the matrix names.</summary>
+    public Lab.TestMatrix? Matrix { get; init; }
 }
