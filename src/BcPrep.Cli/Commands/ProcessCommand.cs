@@ -17,10 +17,12 @@ public static class ProcessCommand
         var force = new Option<bool>("--force") { Description = "Recompute even when inputs, rig file and tool version match the existing manifest." };
         var monteCarlo = new Option<bool>("--monte-carlo") { Description = "Also propagate by Monte Carlo (JCGM 101) and flag where it disagrees with GUM." };
         var seed = new Option<int>("--seed") { Description = "Seed of the Monte Carlo trials.", DefaultValueFactory = _ => 1 };
+        var allowExpired = LabOptions.AllowExpired();
+        var matrix = LabOptions.Matrix();
         var command = new Command("process", "Reduce a test day to boundary conditions with uncertainties, one folder per operating point.\n" +
                                              "Example: bcprep process sample-logs/marten-rig.toml sample-logs/marten-2026-11-24-*.csv --out out")
         {
-            rig, logs, output, force, monteCarlo, seed,
+            rig, logs, output, force, monteCarlo, seed, allowExpired, matrix,
         };
         command.SetAction(parse =>
         {
@@ -28,7 +30,13 @@ public static class ProcessCommand
             var description = RigArguments.LoadRig(parse.GetValue(rig)!);
             using var inputs = new LogArguments(parse.GetValue(logs)!, context);
             var outDir = parse.GetValue(output)!;
-            var provenance = new RunProvenance(BcPrepApp.Version, LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!), inputs.Fingerprints());
+            var plan = parse.GetValue(matrix) is { } path ? LabOptions.LoadMatrix(path, description) : null;
+            var allowed = parse.GetValue(allowExpired) ?? [];
+            var provenance = new RunProvenance(BcPrepApp.Version, LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!), inputs.Fingerprints())
+            {
+                Choices = allowed.Select(a => "allow-expired=" + a).ToList(),
+                Matrix = parse.GetValue(matrix) is { } matrixPath ? LogArguments.Fingerprint(matrixPath, matrixPath) : null,
+            };
             var facePoints = FacePoints.Read(description, parse.GetValue(rig)!);
             // The face points file is not among the hashed inputs, so a configured face always recomputes.
             if (!parse.GetValue(force) && facePoints is null && IsUpToDate(outDir, provenance))
@@ -37,9 +45,13 @@ public static class ProcessCommand
                 return ExitCodes.Success;
             }
             diagnostics.Detail($"reading {inputs.Inputs.Count} log file(s)");
-            var day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)));
+            var day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)) { AllowExpired = allowed, Matrix = plan });
             var files = DayOutputs.Build(day, provenance, facePoints);
             files.Commit(outDir);
+            foreach (var warning in (day.Calibration?.Warnings ?? []).Concat(day.Matrix?.Warnings ?? []))
+            {
+                diagnostics.Warning(warning);
+            }
             foreach (var point in day.Points)
             {
                 foreach (var warning in point.Warnings)

@@ -1,4 +1,5 @@
 using System.Globalization;
+using BcPrep.Lab;
 using BcPrep.Physics;
 using BcPrep.Reading;
 using BcPrep.Rig;
@@ -22,13 +23,17 @@ public static class DayProcessor
     public static DayResult Process(RigDescription rig, IReadOnlyList<LogInput> logs, ProcessOptions options)
     {
         var plan = DayPlan.Create(rig, logs);
+        // Fail before the long scan when a sensor was already out of calibration on the first sample's date.
+        CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, plan.DayStartS, plan.DayStartS), options.AllowExpired);
         var converters = rig.Channels.ToDictionary(c => c.Id, ChannelConversion.For, StringComparer.Ordinal);
         var blocks = new BlockMeanSink(plan.DayStartS, rig.Steady.BlockS);
         var stats = new Dictionary<string, Dictionary<string, ChannelWindowStats>>(StringComparer.Ordinal);
         var tareWindows = TareWindows(rig, plan.DayStartS);
         var pinned = rig.Points.Select(p => new TimeWindow(p.Id, Resolve(p.Start, plan.DayStartS), Resolve(p.End, plan.DayStartS))).ToList();
         var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(stats, w, c, t, v, options, PinnedLocation(rig, w)));
-        DayScan.Run(rig, plan, converters, [blocks, firstPass]);
+        var extent = new DayExtentSink();
+        DayScan.Run(rig, plan, converters, [blocks, firstPass, extent]);
+        var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, extent.FirstS, extent.LastS), options.AllowExpired);
 
         var series = Series(rig, blocks);
         SteadyDetectionResult? detection = null;
@@ -48,8 +53,13 @@ public static class DayProcessor
         }
 
         var tareStats = TareStats(rig, stats);
-        var points = windows.Select(w => EvaluatePoint(rig, w, origin, stats[w.Id], tareStats, options)).ToList();
-        return new DayResult(rig, plan.DayStartS, points, series, detection, []);
+        IReadOnlyList<PointResult> points = windows.Select(w => EvaluatePoint(rig, w, origin, stats[w.Id], tareStats, options)).ToList();
+        MatrixReport? matrix = null;
+        if (options.Matrix is not null)
+        {
+            (points, matrix) = MatrixNaming.Apply(options.Matrix, points);
+        }
+        return new DayResult(rig, plan.DayStartS, points, series, detection, []) { Calibration = calibration, Matrix = matrix };
     }
 
     public static double Resolve(TimeBound bound, double dayStartS) => bound.IsAbsolute ? bound.Seconds : dayStartS + bound.Seconds;

@@ -5,4 +5,11 @@ public sealed record ProcessOptions(
     bool MonteCarlo = false,
     int Seed = 1,
     double MaxBridgeS = WindowStatistics.DefaultMaxBridgeS,
-    int MonteCarloMaxTrials = 200_000);
+    int MonteCarloMaxTrials = 200_000)
+{
+    /// <summary>Channel ids (or "all") whose expired calibration the person explicitly allows; recorded in the manifest.</summary>
+    public IReadOnlyList<string> AllowExpired { get; init; } = [];
+
+    /// <summary>The planned points; when given, matched points take the matrix names.</summary>
+    public Lab.TestMatrix? Matrix { get; init; }
+}

@@ -52,7 +52,14 @@ public sealed record DayResult(
     IReadOnlyList<PointResult> Points,
     BlockSeries Blocks,
     SteadyDetectionResult? Detection,
-    IReadOnlyList<string> Warnings);
+    IReadOnlyList<string> Warnings)
+{
+    /// <summary>Every channel's certificate and due date, checked against the test day's dates.</summary>
+    public Lab.CalibrationReport? Calibration { get; init; }
+
+    /// <summary>How the points matched the test matrix, when one was given.</summary>
+    public Lab.MatrixReport? Matrix { get; init; }
+}
 
 /// <summary>Block means of every channel over the day (for detection evidence and plots).</summary>
 public sealed record BlockSeries(double[] TimesS, IReadOnlyDictionary<string, double[]> Means);

@@ -43,7 +43,15 @@ public sealed record DuctGeometry(
 }
 
 /// <summary>How the log files are laid out.</summary>
-public sealed record LogFormat(string TimeColumn, TimeFormat TimeFormat, char? Separator, char DecimalSeparator);
+public sealed record LogFormat(string TimeColumn, TimeFormat TimeFormat, char? Separator, char DecimalSeparator)
+{
+    /// <summary>The date of the test day for logs that carry no dates (<c>[log] test_date</c>); needed to check
+    /// calibration due dates when times are seconds on the logger's clock.</summary>
+    public DateOnly? TestDate { get; init; }
+
+    /// <summary>Where <see cref="TestDate"/> is written, for messages.</summary>
+    public SourceLocation? TestDateLocation { get; init; }
+}
 
 public enum TimeFormat
 {
@@ -97,7 +105,14 @@ public sealed record TimeBound(double Seconds, bool IsAbsolute);
 public sealed record TareSpec(TimeBound Start, TimeBound End);
 
 /// <summary>Calibration paperwork of a sensor (dates as written, ISO yyyy-mm-dd).</summary>
-public sealed record CalibrationRecord(string? Certificate, DateOnly? CalibratedOn, DateOnly? DueOn);
+public sealed record CalibrationRecord(string? Certificate, DateOnly? CalibratedOn, DateOnly? DueOn)
+{
+    /// <summary>The recalibration interval when the due date was worked out from <c>calibration_interval</c>.</summary>
+    public CalibrationInterval? Interval { get; init; }
+
+    /// <summary>Where the due date (or the interval it comes from) is written, for messages.</summary>
+    public SourceLocation? DueLocation { get; init; }
+}
 
 /// <summary>An operating point whose averaging window is pinned by hand in the rig file.</summary>
 public sealed record PointSpec(string Id, TimeBound Start, TimeBound End, SourceLocation Location);

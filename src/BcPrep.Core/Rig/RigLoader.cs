@@ -129,8 +129,9 @@ public static class RigLoader
         {
             t.Report("decimal", "a decimal comma needs another column separator (';' or tab)");
         }
+        var testDate = ReadDate(t, "test_date");
         t.RejectUnknownKeys();
-        return new LogFormat(timeColumn, format, separator, decimalSeparator);
+        return new LogFormat(timeColumn, format, separator, decimalSeparator) { TestDate = testDate, TestDateLocation = testDate is null ? null : t.LocationOf("test_date") };
     }
 
     private static ChannelSpec? ReadChannel(TableReader t, HashSet<string> declaredIds)
@@ -299,7 +300,7 @@ public static class RigLoader
     private static UncertaintyTerm? ReadUncertainty(TableReader t, Dimension dimension)
     {
         var spread = dimension == Dimension.Temperature ? Dimension.TemperatureDifference : dimension;
-        var kind = t.Choice("kind", ["certificate", "reading", "span", "absolute", "resolution", "class"], "absolute");
+        var kind = PercentTermReader.InferKind(t) ?? t.Choice("kind", ["certificate", "reading", "span", "absolute", "resolution", "class"], "absolute");
         var source = t.String("source") ?? kind;
         var reliability = t.Quantity("reliability", Dimension.Dimensionless, minSi: 0.01, maxSi: 1);
         // GUM G.4.2: nu = 1/2 (relative uncertainty of u)^-2; no statement means the term is taken as exact.
@@ -310,10 +311,11 @@ public static class RigLoader
             "certificate" => t.Quantity("expanded", spread, required: true, minSi: 0) is { } u
                 ? new UncertaintyTerm(UncertaintyTermKind.Certificate, u, t.Number("k", min: 1, max: 10) ?? 2.0, "normal", dof, source, null)
                 : null,
-            "reading" => t.Quantity("value", Dimension.Dimensionless, required: true, minSi: 0, maxSi: 1) is { } f
+            "" => null,
+            "reading" => PercentTermReader.Fraction(t, "value", PercentBasis.Reading) is { } f
                 ? new UncertaintyTerm(UncertaintyTermKind.PercentOfReading, f, 1, distribution, dof, source, null)
                 : null,
-            "span" => (t.Quantity("value", Dimension.Dimensionless, required: true, minSi: 0, maxSi: 1), t.Quantity("span", spread, required: true, minSi: 0)) is ({ } f, { } s)
+            "span" => (PercentTermReader.Fraction(t, "value", PercentBasis.FullScale), PercentTermReader.FullScale(t, spread)) is ({ } f, { } s)
                 ? new UncertaintyTerm(UncertaintyTermKind.PercentOfSpan, f * s, 1, distribution, dof, source, null)
                 : null,
             "absolute" => t.Quantity("value", spread, required: true, minSi: 0) is { } a
@@ -335,7 +337,12 @@ public static class RigLoader
         var certificate = t.String("certificate");
         var calibrated = ReadDate(t, "calibrated");
         var due = ReadDate(t, "calibration_due");
-        return certificate is null && calibrated is null && due is null ? null : new CalibrationRecord(certificate, calibrated, due);
+        var (interval, dueFromInterval) = CalibrationDueReader.Interval(t, calibrated, due);
+        due ??= dueFromInterval;
+        var dueKey = interval is null ? "calibration_due" : "calibration_interval";
+        return certificate is null && calibrated is null && due is null
+            ? null
+            : new CalibrationRecord(certificate, calibrated, due) { Interval = interval, DueLocation = due is null ? null : t.LocationOf(dueKey) };
     }
 
     private static DateOnly? ReadDate(TableReader t, string key)

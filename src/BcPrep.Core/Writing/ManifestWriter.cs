@@ -42,6 +42,8 @@ public static class ManifestWriter
             }
             json.WriteEndArray();
             WriteConventions(json, day);
+            CalibrationManifest.Write(json, day.Calibration);
+            MatrixManifest.Write(json, day, provenance.Matrix);
             json.WriteStartArray("points");
             foreach (var point in day.Points)
             {
