@@ -1,6 +1,5 @@
 using System.CommandLine;
 using System.Globalization;
-using System.Text.Json;
 using BcPrep.Pipeline;
 using BcPrep.Writing;
 
@@ -29,15 +28,20 @@ public static class ProcessCommand
             using var inputs = new LogArguments(parse.GetValue(logs)!, context);
             var outDir = parse.GetValue(output)!;
             var provenance = new RunProvenance(BcPrepApp.Version, LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!), inputs.Fingerprints());
-            if (!parse.GetValue(force) && IsUpToDate(outDir, provenance))
+            if (!parse.GetValue(force) && ExistingOutputs.IsUpToDate(outDir, provenance.Key))
             {
                 diagnostics.Info($"{outDir}: up to date (inputs, rig file and tool version unchanged); nothing to do. Use --force to recompute.");
                 return ExitCodes.Success;
             }
             diagnostics.Detail($"reading {inputs.Inputs.Count} log file(s)");
-            var day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)));
-            var files = DayOutputs.Build(day, provenance);
-            files.Commit(outDir);
+            OutputFileSet files;
+            DayResult day;
+            using (ProgressIndicator.Start(context, diagnostics.Verbosity, "processing", provenance.Logs.Sum(l => l.Bytes)))
+            {
+                day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)));
+                files = DayOutputs.Build(day, provenance);
+                files.Commit(outDir);
+            }
             foreach (var point in day.Points)
             {
                 foreach (var warning in point.Warnings)
@@ -49,27 +53,5 @@ public static class ProcessCommand
             return ExitCodes.Success;
         });
         return command;
-    }
-
-    private static bool IsUpToDate(string outDir, RunProvenance provenance)
-    {
-        var manifest = Path.Combine(outDir, DayOutputs.ManifestName);
-        if (!File.Exists(manifest))
-        {
-            return false;
-        }
-        try
-        {
-            using var document = JsonDocument.Parse(File.ReadAllBytes(manifest));
-            if (document.RootElement.TryGetProperty("run_key", out var key) && key.GetString() == provenance.Key &&
-                document.RootElement.TryGetProperty("files", out var files))
-            {
-                return files.EnumerateArray().All(f => File.Exists(Path.Combine(outDir, f.GetString() ?? "")));
-            }
-        }
-        catch (JsonException)
-        {
-        }
-        return false;
     }
 }

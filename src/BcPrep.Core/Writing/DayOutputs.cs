@@ -21,7 +21,7 @@ public static class DayOutputs
             files.Add(folder + "budget.csv", BoundaryTables.Budget(point).ToString());
         }
         var names = files.Files.Select(f => f.RelativePath).Append(ManifestName).ToList();
-        files.Add(ManifestName, ManifestWriter.Write(day, provenance, names));
+        files.Add(ManifestName, ManifestWriter.Write(day, provenance, names, files.Hashes()));
         return files;
     }
 
