@@ -23,6 +23,7 @@ public static class BcPrepApp
         var root = new RootCommand("BcPrep turns a test day's raw logger files into boundary conditions with uncertainties.\n" +
                                    "Example: bcprep process sample-logs/marten-rig.toml sample-logs/*.csv --out out");
         common.AddTo(root);
+        VersionAction.Install(root, context);
         foreach (var command in commands(common, context))
         {
             root.Subcommands.Add(command);

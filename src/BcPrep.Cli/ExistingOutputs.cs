@@ -12,6 +12,20 @@ namespace BcPrep.Cli;
 /// </summary>
 public static class ExistingOutputs
 {
+    /// <summary>The files a manifest lists (relative paths); empty when there is no readable manifest.</summary>
+    public static IReadOnlyList<string> ListedFiles(string outputDirectory)
+    {
+        try
+        {
+            using var document = JsonDocument.Parse(File.ReadAllBytes(Path.Combine(outputDirectory, DayOutputs.ManifestName)));
+            return document.RootElement.GetProperty("files").EnumerateArray().Select(f => f.GetString() ?? "").Where(f => f.Length > 0).ToList();
+        }
+        catch (Exception e) when (e is JsonException or IOException or UnauthorizedAccessException or InvalidOperationException or KeyNotFoundException)
+        {
+            return [];
+        }
+    }
+
     public static bool IsUpToDate(string outputDirectory, string runKey)
     {
         var manifest = Path.Combine(outputDirectory, DayOutputs.ManifestName);

@@ -25,7 +25,7 @@ public static class CalibrateCommand
             using var inputs = new LogArguments(parse.GetValue(logs)!, context);
             var writer = new SeriesWriter(TabularOutput.Create(context.Out, parse.GetValue(json)), description);
             var verbosity = common.DiagnosticsFor(parse, context).Verbosity;
-            using var progress = ProgressIndicator.Start(context, verbosity, "calibrating", inputs.Inputs.Sum(i => new FileInfo(i.Path).Length));
+            using var progress = ProgressIndicator.Start(context, verbosity, "calibrating", inputs.Inputs.Sum(i => File.Exists(i.Path) ? new FileInfo(i.Path).Length : 0));
             CalibratedSeries.Stream(description, inputs.Inputs, (plan, _) =>
             {
                 writer.Start(plan.DayStartS);

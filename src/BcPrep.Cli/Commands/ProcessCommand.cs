@@ -30,6 +30,7 @@ public static class ProcessCommand
             var provenance = new RunProvenance(BcPrepApp.Version, LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!), inputs.Fingerprints());
             if (!parse.GetValue(force) && ExistingOutputs.IsUpToDate(outDir, provenance.Key))
             {
+                OutputFileSet.RemoveStalePartials(outDir, ExistingOutputs.ListedFiles(outDir));
                 diagnostics.Info($"{outDir}: up to date (inputs, rig file and tool version unchanged); nothing to do. Use --force to recompute.");
                 return ExitCodes.Success;
             }

@@ -1,3 +1,4 @@
+using System.Globalization;
 using System.Collections.Immutable;
 using BcPrep.Calibration;
 using BcPrep.Profiles;
@@ -256,7 +257,7 @@ public sealed class PointModel
             new("pressure_drop.expected", "Pa", "friction (Colebrook) plus flow acceleration between the planes"),
             new("energy_balance.mismatch", "1", "(P(1-loss) - m cp (T_out - T_in)) / (P(1-loss))"),
         };
-        list.AddRange(_wallChannels.Select(c => new QuantityDefinition($"wall.temperature.{c.Id}", "K", $"wall temperature at z = {c.AxialPositionM:G6} m")));
+        list.AddRange(_wallChannels.Select(c => new QuantityDefinition($"wall.temperature.{c.Id}", "K", string.Create(CultureInfo.InvariantCulture, $"wall temperature at z = {c.AxialPositionM:G6} m"))));
         list.AddRange(Enumerable.Range(0, profilePoints).Select(i => new QuantityDefinition($"inlet.velocity.{i}", "m/s", "axial velocity at profile point " + i)));
         return list;
     }

@@ -78,9 +78,22 @@ public sealed class OutputFileSet
     private static bool IsManifest(string path) => Path.GetFileName(path) == ManifestFileName;
 
     /// <summary>
-    /// Deletes temporary files of interrupted runs in the folders this commit writes to (only there: the output
-    /// folder may be a busy directory, and it is not ours to sweep).
+    /// Deletes temporary files of interrupted runs in the folders of the given output files (only there: the output
+    /// folder may be a busy directory, and it is not ours to sweep). Used when a run finds nothing to recompute.
     /// </summary>
+    public static void RemoveStalePartials(string outputDirectory, IEnumerable<string> relativePaths)
+    {
+        var root = Path.GetFullPath(outputDirectory);
+        try
+        {
+            RemoveStalePartials(relativePaths.Select(r => Path.GetDirectoryName(Target(root, r))!).Distinct(StringComparer.Ordinal));
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            throw new BcPrepFailure(FailureKind.Output, new SourceLocation(outputDirectory), "cannot remove temporary files of an interrupted run: " + e.Message);
+        }
+    }
+
     private static void RemoveStalePartials(IEnumerable<string> directories)
     {
         foreach (var directory in directories.Where(Directory.Exists))
