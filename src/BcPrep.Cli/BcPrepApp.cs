@@ -14,13 +14,17 @@ public static class BcPrepApp
     public static string Version =>
         typeof(BcPrepApp).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion.Split('+')[0] ?? "0.0.0";
 
-    public static int Run(string[] args, CliContext context)
+    public static int Run(string[] args, CliContext context) => Run(args, context, CommandCatalog.Build);
+
+    /// <summary>Runs with another set of commands: lets tests prove the failure mapping with a command that throws.</summary>
+    internal static int Run(string[] args, CliContext context, Func<CommonOptions, CliContext, IEnumerable<Command>> commands)
     {
         var common = new CommonOptions();
         var root = new RootCommand("BcPrep turns a test day's raw logger files into boundary conditions with uncertainties.\n" +
                                    "Example: bcprep process sample-logs/marten-rig.toml sample-logs/*.csv --out out");
         common.AddTo(root);
-        foreach (var command in CommandCatalog.Build(common, context))
+        VersionAction.Install(root, context);
+        foreach (var command in commands(common, context))
         {
             root.Subcommands.Add(command);
         }

@@ -1,6 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
-using System.Text;
+using BcPrep.Cli.Output;
 using BcPrep.Pipeline;
 using BcPrep.Rig;
 
@@ -13,16 +13,19 @@ public static class CalibrateCommand
     {
         var rig = RigArguments.Rig();
         var logs = RigArguments.Logs();
-        var command = new Command("calibrate", "Write every channel's calibrated SI time series as CSV to standard output (tares applied).\n" +
+        var json = TabularOutput.JsonOption();
+        var command = new Command("calibrate", "Write every channel's calibrated SI time series as CSV (or JSON lines with --json) to standard output (tares applied).\n" +
                                                "Example: bcprep calibrate sample-logs/marten-rig.toml sample-logs/*.csv | head")
         {
-            rig, logs,
+            rig, logs, json,
         };
         command.SetAction(parse =>
         {
             var description = RigArguments.LoadRig(parse.GetValue(rig)!);
             using var inputs = new LogArguments(parse.GetValue(logs)!, context);
-            var writer = new CsvSeriesWriter(context.Out, description);
+            var writer = new SeriesWriter(TabularOutput.Create(context.Out, parse.GetValue(json)), description);
+            var verbosity = common.DiagnosticsFor(parse, context).Verbosity;
+            using var progress = ProgressIndicator.Start(context, verbosity, "calibrating", inputs.Inputs.Sum(i => File.Exists(i.Path) ? new FileInfo(i.Path).Length : 0));
             CalibratedSeries.Stream(description, inputs.Inputs, (plan, _) =>
             {
                 writer.Start(plan.DayStartS);
@@ -34,12 +37,11 @@ public static class CalibrateCommand
     }
 
     /// <summary>
-    /// Writes blocks as CSV rows. With one logger the columns are fixed; with several, each logger's rows carry only
-    /// its own channels (the other cells empty), logger after logger, each at its native rate.
+    /// Writes blocks as rows (CSV or JSON lines). With one logger every row is full; with several, each logger's rows
+    /// carry only its own channels (the other cells empty), logger after logger, each at its native rate.
     /// </summary>
-    private sealed class CsvSeriesWriter(TextWriter output, RigDescription rig) : IBlockSink
+    private sealed class SeriesWriter(TabularOutput output, RigDescription rig) : IBlockSink
     {
-        private readonly StringBuilder _text = new(1 << 16);
         private readonly List<string> _columns = rig.Channels.Select(c => c.Id).ToList();
         private double _originS;
         private bool _headerWritten;
@@ -52,12 +54,7 @@ public static class CalibrateCommand
 
         private void WriteHeader()
         {
-            var header = new StringBuilder("time [s]");
-            foreach (var channel in rig.Channels)
-            {
-                header.Append(',').Append(channel.Id).Append(" [").Append(UnitText.SiSymbol(channel.Dimension)).Append(']');
-            }
-            output.Write(header.Append('\n'));
+            output.Header([.. rig.Channels.Select(c => $"{c.Id} [{UnitText.SiSymbol(c.Dimension)}]").Prepend("time [s]")]);
         }
 
         public void AcceptBlock(IReadOnlyList<string> channels, double[] timeS, IReadOnlyList<double[]> valuesSi, int count)
@@ -70,19 +67,21 @@ public static class CalibrateCommand
             var slot = _columns.Select(id => channels.ToList().IndexOf(id)).ToArray();
             for (var i = 0; i < count; i++)
             {
-                _text.Append((timeS[i] - _originS).ToString("R", CultureInfo.InvariantCulture));
+                output.Number(timeS[i] - _originS);
                 foreach (var s in slot)
                 {
-                    _text.Append(',');
-                    if (s >= 0 && double.IsFinite(valuesSi[s][i]))
+                    if (s >= 0)
                     {
-                        _text.Append(valuesSi[s][i].ToString("R", CultureInfo.InvariantCulture));
+                        output.Number(valuesSi[s][i]);
+                    }
+                    else
+                    {
+                        output.Empty();
                     }
                 }
-                _text.Append('\n');
+                output.EndRow();
             }
-            output.Write(_text);
-            _text.Clear();
+            output.Flush();
         }
     }
 }

@@ -1,6 +1,5 @@
 using System.CommandLine;
 using System.Globalization;
-using System.Text.Json;
 using BcPrep.Pipeline;
 using BcPrep.Writing;
 
@@ -39,15 +38,21 @@ public static class ProcessCommand
             };
             var facePoints = FacePoints.Read(description, parse.GetValue(rig)!);
             // The face points file is not among the hashed inputs, so a configured face always recomputes.
-            if (!parse.GetValue(force) && facePoints is null && IsUpToDate(outDir, provenance))
+            if (!parse.GetValue(force) && facePoints is null && ExistingOutputs.IsUpToDate(outDir, provenance.Key))
             {
+                OutputFileSet.RemoveStalePartials(outDir, ExistingOutputs.ListedFiles(outDir));
                 diagnostics.Info($"{outDir}: up to date (inputs, rig file and tool version unchanged); nothing to do. Use --force to recompute.");
                 return ExitCodes.Success;
             }
             diagnostics.Detail($"reading {inputs.Inputs.Count} log file(s)");
-            var day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)) { AllowExpired = allowed, Matrix = plan });
-            var files = DayOutputs.Build(day, provenance, facePoints);
-            files.Commit(outDir);
+            OutputFileSet files;
+            DayResult day;
+            using (ProgressIndicator.Start(context, diagnostics.Verbosity, "processing", provenance.Logs.Sum(l => l.Bytes)))
+            {
+                day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)) { AllowExpired = allowed, Matrix = plan });
+                files = DayOutputs.Build(day, provenance, facePoints);
+                files.Commit(outDir);
+            }
             foreach (var warning in (day.Calibration?.Warnings ?? []).Concat(day.Matrix?.Warnings ?? []))
             {
                 diagnostics.Warning(warning);
@@ -63,27 +68,5 @@ public static class ProcessCommand
             return ExitCodes.Success;
         });
         return command;
-    }
-
-    private static bool IsUpToDate(string outDir, RunProvenance provenance)
-    {
-        var manifest = Path.Combine(outDir, DayOutputs.ManifestName);
-        if (!File.Exists(manifest))
-        {
-            return false;
-        }
-        try
-        {
-            using var document = JsonDocument.Parse(File.ReadAllBytes(manifest));
-            if (document.RootElement.TryGetProperty("run_key", out var key) && key.GetString() == provenance.Key &&
-                document.RootElement.TryGetProperty("files", out var files))
-            {
-                return files.EnumerateArray().All(f => File.Exists(Path.Combine(outDir, f.GetString() ?? "")));
-            }
-        }
-        catch (JsonException)
-        {
-        }
-        return false;
     }
 }

@@ -276,7 +276,7 @@ public sealed partial class PointModel
             new("pressure_drop.expected", "Pa", "friction (Colebrook) plus flow acceleration between the planes"),
             new("energy_balance.mismatch", "1", "(P(1-loss) - m cp (T_out - T_in)) / (P(1-loss))"),
         };
-        list.AddRange(_wallChannels.Select(c => new QuantityDefinition($"wall.temperature.{c.Id}", "K", $"wall temperature at z = {c.AxialPositionM:G6} m")));
+        list.AddRange(_wallChannels.Select(c => new QuantityDefinition($"wall.temperature.{c.Id}", "K", string.Create(CultureInfo.InvariantCulture, $"wall temperature at z = {c.AxialPositionM:G6} m"))));
         list.AddRange(Enumerable.Range(0, profilePoints).Select(i => new QuantityDefinition($"inlet.velocity.{i}", "m/s", "axial velocity at profile point " + i)));
         list.AddRange(WallGridM.Select((z, i) => new QuantityDefinition($"{ProfileOutputs.WallGridPrefix}{i}", "K",
             string.Create(CultureInfo.InvariantCulture, $"wall temperature interpolated at z = {z:G6} m"))));

@@ -26,7 +26,7 @@ public static class DayOutputs
             }
         }
         var names = files.Files.Select(f => f.RelativePath).Append(ManifestName).ToList();
-        files.Add(ManifestName, ManifestWriter.Write(day, provenance, names));
+        files.Add(ManifestName, ManifestWriter.Write(day, provenance, names, files.Hashes()));
         return files;
     }
 

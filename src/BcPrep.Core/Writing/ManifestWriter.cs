@@ -15,7 +15,9 @@ public static class ManifestWriter
 {
     public const int FormatVersion = 1;
 
-    public static string Write(DayResult day, RunProvenance provenance, IReadOnlyList<string> files)
+    // outputHashes: SHA-256 of every other output file, written as "file_sha256" so that a reader can check that
+    // the files beside the manifest are the ones it describes (null: the key is left out).
+    public static string Write(DayResult day, RunProvenance provenance, IReadOnlyList<string> files, IReadOnlyList<(string RelativePath, string Sha256)>? outputHashes = null)
     {
         using var stream = new MemoryStream();
         using (var json = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }))
@@ -51,6 +53,15 @@ public static class ManifestWriter
             }
             json.WriteEndArray();
             WriteStrings(json, "files", files);
+            if (outputHashes is not null)
+            {
+                json.WriteStartObject("file_sha256");
+                foreach (var (path, sha256) in outputHashes)
+                {
+                    json.WriteString(path, sha256);
+                }
+                json.WriteEndObject();
+            }
             json.WriteEndObject();
         }
         return Encoding.UTF8.GetString(stream.ToArray()) + "\n";

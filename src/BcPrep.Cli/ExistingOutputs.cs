@@ -1,0 +1,66 @@
+using System.Security.Cryptography;
+using System.Text.Json;
+using BcPrep.Writing;
+
+namespace BcPrep.Cli;
+
+/// <summary>
+/// Decides whether an output folder already holds the result of a run: its manifest records the same run key
+/// (tool version and SHA-256 of the rig file and every log) and every file the manifest lists is present with the
+/// SHA-256 the manifest records. A folder left without manifest by an interrupted commit, a table edited by hand,
+/// or a manifest without file hashes is not up to date, so the next run recomputes.
+/// </summary>
+public static class ExistingOutputs
+{
+    /// <summary>The files a manifest lists (relative paths); empty when there is no readable manifest.</summary>
+    public static IReadOnlyList<string> ListedFiles(string outputDirectory)
+    {
+        try
+        {
+            using var document = JsonDocument.Parse(File.ReadAllBytes(Path.Combine(outputDirectory, DayOutputs.ManifestName)));
+            return document.RootElement.GetProperty("files").EnumerateArray().Select(f => f.GetString() ?? "").Where(f => f.Length > 0).ToList();
+        }
+        catch (Exception e) when (e is JsonException or IOException or UnauthorizedAccessException or InvalidOperationException or KeyNotFoundException)
+        {
+            return [];
+        }
+    }
+
+    public static bool IsUpToDate(string outputDirectory, string runKey)
+    {
+        var manifest = Path.Combine(outputDirectory, DayOutputs.ManifestName);
+        try
+        {
+            if (!File.Exists(manifest))
+            {
+                return false;
+            }
+            using var document = JsonDocument.Parse(File.ReadAllBytes(manifest));
+            var root = document.RootElement;
+            if (!root.TryGetProperty("run_key", out var key) || key.GetString() != runKey ||
+                !root.TryGetProperty("files", out var files) || !root.TryGetProperty("file_sha256", out var hashes))
+            {
+                return false;
+            }
+            foreach (var file in files.EnumerateArray().Select(f => f.GetString() ?? ""))
+            {
+                if (file == DayOutputs.ManifestName)
+                {
+                    continue;
+                }
+                var path = Path.Combine(outputDirectory, file);
+                if (!hashes.TryGetProperty(file, out var expected) || !File.Exists(path) ||
+                    expected.GetString() != Convert.ToHexStringLower(SHA256.HashData(File.ReadAllBytes(path))))
+                {
+                    return false;
+                }
+            }
+            return true;
+        }
+        catch (Exception e) when (e is JsonException or IOException or UnauthorizedAccessException or InvalidOperationException)
+        {
+            // An unreadable or malformed manifest is no proof of anything: recompute.
+            return false;
+        }
+    }
+}
