@@ -10,5 +10,6 @@ public static class CommandCatalog
         CheckCommand.Create(common, context),
         ProcessCommand.Create(common, context),
         CalibrateCommand.Create(common, context),
+        WindowsCommand.Create(common, context),
     ];
 }

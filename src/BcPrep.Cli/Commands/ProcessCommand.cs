@@ -38,6 +38,10 @@ public static class ProcessCommand
             var day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)));
             var files = DayOutputs.Build(day, provenance);
             files.Commit(outDir);
+            foreach (var warning in day.Warnings)
+            {
+                diagnostics.Warning(warning);
+            }
             foreach (var point in day.Points)
             {
                 foreach (var warning in point.Warnings)

@@ -42,6 +42,7 @@ public static class ManifestWriter
             }
             json.WriteEndArray();
             WriteConventions(json, day);
+            DetectionEvidenceJson.WriteDay(json, day);
             json.WriteStartArray("points");
             foreach (var point in day.Points)
             {
@@ -99,6 +100,7 @@ public static class ManifestWriter
         }
         json.WriteEndArray();
         WriteStrings(json, "warnings", point.Warnings);
+        DetectionEvidenceJson.WritePoint(json, day, point);
         json.WriteStartArray("channels");
         foreach (var stats in point.Channels.Values.OrderBy(s => s.Channel, StringComparer.Ordinal))
         {
