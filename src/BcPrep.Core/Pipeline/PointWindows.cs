@@ -19,8 +19,9 @@ public sealed record DetectedAssignment(SteadyWindow Window, string PointId, str
 public sealed record WindowPlan(IReadOnlyList<PlannedPoint> Points, IReadOnlyList<DetectedAssignment> Detected);
 
 /// <summary>
-/// Merges pinned and detected windows, per point: a pinned window replaces every detected window it overlaps (a
-/// detected window overlapping several pinned ones goes to the one it overlaps most) and keeps its id; the other
+/// Merges pinned and detected windows, per point: a pinned window replaces every detected window whose steady
+/// stretch it overlaps (a stretch overlapping several pinned windows goes to the one it overlaps most) and keeps its
+/// id; the other
 /// detected windows become points OP1, OP2, … in time order, skipping ids the rig file already uses.
 /// </summary>
 public static class PointWindows
@@ -40,7 +41,10 @@ public static class PointWindows
         foreach (var window in accepted.OrderBy(w => w.StartS))
         {
             var onClock = new TimeWindow("", dayStartS + window.StartS, dayStartS + window.EndS);
-            var owner = pinned.Where(p => Overlap(p, onClock) > 0).OrderByDescending(p => Overlap(p, onClock)).FirstOrDefault();
+            // Matched on the whole steady stretch, not only its averaging tail: a stretch is one operating point,
+            // so a window pinned early in it must not leave the detected tail behind as a second point.
+            var stretch = new TimeWindow("", dayStartS + window.StretchStartS, dayStartS + window.StretchEndS);
+            var owner = pinned.Where(p => Overlap(p, stretch) > 0).OrderByDescending(p => Overlap(p, stretch)).FirstOrDefault();
             if (owner is not null)
             {
                 replaced[owner.Id].Add(window);
