@@ -13,5 +13,6 @@ public static class CommandCatalog
         BudgetCommand.Create(common, context),
         CovarianceCommand.Create(common, context),
         EnsembleCommand.Create(common, context),
+        WindowsCommand.Create(common, context),
     ];
 }

@@ -53,7 +53,7 @@ public static class ProcessCommand
                 files = DayOutputs.Build(day, provenance, facePoints);
                 files.Commit(outDir);
             }
-            foreach (var warning in (day.Calibration?.Warnings ?? []).Concat(day.Matrix?.Warnings ?? []))
+            foreach (var warning in day.Warnings.Concat(day.Calibration?.Warnings ?? []).Concat(day.Matrix?.Warnings ?? []))
             {
                 diagnostics.Warning(warning);
             }

@@ -5,7 +5,6 @@ using BcPrep.Reading;
 using BcPrep.Rig;
 using BcPrep.Steady;
 using BcPrep.Uncertainty;
-using DetectorSettings = BcPrep.Steady.SteadySettings;
 
 namespace BcPrep.Pipeline;
 
@@ -35,31 +34,42 @@ public static class DayProcessor
         DayScan.Run(rig, plan, converters, [blocks, firstPass, extent]);
         var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, extent.FirstS, extent.LastS), options.AllowExpired);
 
-        var series = Series(rig, blocks);
+        var series = WindowFinder.Series(rig, blocks);
         SteadyDetectionResult? detection = null;
-        var windows = pinned;
-        var origin = WindowOrigin.RigFile;
-        if (pinned.Count == 0)
+        if (WindowFinder.IsEnabled(rig) || pinned.Count == 0)
         {
-            detection = Detect(rig, series);
-            windows = detection.Accepted.Select((w, i) => new TimeWindow($"OP{i + 1}", w.StartS, w.EndS)).ToList();
-            origin = WindowOrigin.Detected;
-            if (windows.Count == 0)
-            {
-                throw new BcPrepFailure(FailureKind.NoSteadyPoint, NoSteadyProblems(rig, detection, plan.DayStartS));
-            }
-            var secondPass = new WindowCollector(windows, (w, c, t, v) => Collect(stats, w, c, t, v, options));
+            detection = WindowFinder.Detect(rig, series, plan.DayStartS);
+        }
+        // Detection always runs when configured; a window pinned by hand replaces the detected ones it overlaps.
+        var windowPlan = PointWindows.Plan(pinned, detection, plan.DayStartS);
+        if (windowPlan.Points.Count == 0)
+        {
+            throw new BcPrepFailure(FailureKind.NoSteadyPoint, WindowFinder.NoSteadyProblems(rig, detection!));
+        }
+        var detected = windowPlan.Points.Where(p => p.Origin == WindowOrigin.Detected).Select(p => p.Window).ToList();
+        if (detected.Count > 0)
+        {
+            var secondPass = new WindowCollector(detected, (w, c, t, v) => Collect(stats, w, c, t, v, options));
             DayScan.Run(rig, plan, converters, [secondPass]);
+        }
+        var dayWarnings = new List<string>();
+        if (detection is { Accepted.Count: 0 })
+        {
+            dayWarnings.Add("steady detection accepted no window (see the manifest's rejected stretches); only the pinned points are processed");
+        }
+        else if (detection is not null)
+        {
+            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, plan.DayStartS));
         }
 
         var tareStats = TareStats(rig, stats);
-        IReadOnlyList<PointResult> points = windows.Select(w => EvaluatePoint(rig, w, origin, stats[w.Id], tareStats, options)).ToList();
+        IReadOnlyList<PointResult> points = windowPlan.Points.Select(p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, options)).ToList();
         MatrixReport? matrix = null;
         if (options.Matrix is not null)
         {
             (points, matrix) = MatrixNaming.Apply(options.Matrix, points);
         }
-        return new DayResult(rig, plan.DayStartS, points, series, detection, []) { Calibration = calibration, Matrix = matrix };
+        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { Calibration = calibration, Matrix = matrix };
     }
 
     public static double Resolve(TimeBound bound, double dayStartS) => bound.IsAbsolute ? bound.Seconds : dayStartS + bound.Seconds;
@@ -126,32 +136,6 @@ public static class DayProcessor
             }
         }
         return result;
-    }
-
-    private static BlockSeries Series(RigDescription rig, BlockMeanSink blocks)
-    {
-        var length = blocks.Length;
-        return new BlockSeries(blocks.Times(length), rig.Channels.ToDictionary(c => c.Id, c => blocks.Means(c.Id, length), StringComparer.Ordinal));
-    }
-
-    private static SteadyDetectionResult Detect(RigDescription rig, BlockSeries series)
-    {
-        if (rig.Steady.Keys.Count == 0)
-        {
-            throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation(rig.SourceFile, Key: "steady.key"),
-                "no [[point]] windows are pinned and [steady] names no key channel to detect them with");
-        }
-        var keys = rig.Steady.Keys.Select(k => new KeyChannel(k.Channel, series.Means[k.Channel], k.MaxChangeSi / rig.Steady.WindowS, k.MaxScatterSi, k.StepSi)).ToList();
-        var settings = new DetectorSettings(WindowS: rig.Steady.WindowS, MinStretchS: rig.Steady.MinDurationS, TailS: rig.Steady.SettledTailS, StepS: Math.Max(rig.Steady.BlockS, rig.Steady.WindowS / 30));
-        return SteadyStateDetector.Detect(series.TimesS, keys, settings);
-    }
-
-    private static List<Problem> NoSteadyProblems(RigDescription rig, SteadyDetectionResult detection, double dayStartS)
-    {
-        var problems = detection.Rejected.Select(r => new Problem(new SourceLocation("(logs)", Key: string.Create(CultureInfo.InvariantCulture, $"{r.StartS - dayStartS:F0}–{r.EndS - dayStartS:F0} s")),
-            "rejected: " + r.Reason)).ToList();
-        problems.Insert(0, new Problem(new SourceLocation(rig.SourceFile, Key: "steady"), "no steady operating point found; the stretches closest to steady were:"));
-        return problems;
     }
 
     private static PointResult EvaluatePoint(RigDescription rig, TimeWindow window, WindowOrigin origin,

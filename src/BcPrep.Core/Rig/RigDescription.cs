@@ -117,16 +117,23 @@ public sealed record CalibrationRecord(string? Certificate, DateOnly? Calibrated
 /// <summary>An operating point whose averaging window is pinned by hand in the rig file.</summary>
 public sealed record PointSpec(string Id, TimeBound Start, TimeBound End, SourceLocation Location);
 
-/// <summary>Steady-window detection settings (used when no window is pinned).</summary>
+/// <summary>
+/// Steady-window detection settings. Detection runs when <paramref name="Detect"/> is true and there are keys;
+/// windows pinned in the rig file replace the detected windows they overlap.
+/// </summary>
 public sealed record SteadySettings(
     double BlockS,
     double WindowS,
     double MinDurationS,
     double SettledTailS,
-    IReadOnlyList<SteadyKey> Keys);
+    IReadOnlyList<SteadyKey> Keys,
+    bool Detect = true);
 
-/// <summary>Per key channel limits, in SI units of that channel.</summary>
-public sealed record SteadyKey(string Channel, double MaxChangeSi, double MaxScatterSi, double StepSi);
+/// <summary>
+/// Per key channel limits, in SI units of that channel. <paramref name="MinimumSi"/>: the smallest mean that counts
+/// as an operating point (null = none), so that a rig at rest is not taken for a point.
+/// </summary>
+public sealed record SteadyKey(string Channel, double MaxChangeSi, double MaxScatterSi, double StepSi, double? MinimumSi = null);
 
 /// <summary>Inlet profile settings.</summary>
 public sealed record ProfileSettings(

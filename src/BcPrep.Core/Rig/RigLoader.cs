@@ -421,14 +421,16 @@ public static class RigLoader
             var change = k.Quantity("max_change", spread, required: true, minSi: 0);
             var scatter = k.Quantity("max_scatter", spread, required: true, minSi: 0);
             var step = k.Quantity("step", spread, minSi: 0);
+            var minimum = k.Quantity("min", channel?.Dimension ?? Dimension.Dimensionless);
             k.RejectUnknownKeys();
             if (channelId is not null && change is not null && scatter is not null)
             {
-                keys.Add(new SteadyKey(channelId, change.Value, scatter.Value, step ?? 4 * scatter.Value));
+                keys.Add(new SteadyKey(channelId, change.Value, scatter.Value, step ?? 4 * scatter.Value, minimum));
             }
         }
+        var detect = t.Bool("detect", fallback: true);
         t.RejectUnknownKeys();
-        return new SteadySettings(block, window, minDuration, tail, keys);
+        return new SteadySettings(block, window, minDuration, tail, keys, detect);
     }
 
     private static ProfileSettings ReadProfiles(TableReader? t)

@@ -37,6 +37,9 @@ public enum SteadyCriterion
 
     /// <summary>Steady stretch shorter than the minimum duration.</summary>
     Duration,
+
+    /// <summary>Mean below the key channel's operating minimum (e.g. fan off: steady, but not an operating point).</summary>
+    Range,
 }
 
 /// <summary>
@@ -47,7 +50,12 @@ public enum SteadyCriterion
 /// <param name="DriftLimitPerS">Largest acceptable |slope| (unit/s), &gt; 0.</param>
 /// <param name="ScatterLimit">Largest acceptable standard deviation (unit), &gt; 0.</param>
 /// <param name="StepThreshold">Change in mean (unit) treated as a set-point change that splits a stretch; +∞ = off.</param>
-public sealed record KeyChannel(string Name, IReadOnlyList<double> Values, double DriftLimitPerS, double ScatterLimit, double StepThreshold);
+/// <param name="MinimumValue">
+/// Smallest window mean (unit) that counts as an operating point; −∞ = no minimum. A rig at rest (fan off, heater
+/// off) is perfectly steady, yet it is not an operating point.
+/// </param>
+public sealed record KeyChannel(string Name, IReadOnlyList<double> Values, double DriftLimitPerS, double ScatterLimit, double StepThreshold,
+    double MinimumValue = double.NegativeInfinity);
 
 /// <summary>
 /// Detector settings. Defaults (common practice): 300 s test window moved in 10 s steps; a steady stretch must last

@@ -46,7 +46,7 @@ public static class SteadyStateDetector
             {
                 foreach (var (s, e) in SplitAtSetPointSteps(t, y, channels, windows[i].Start, windows[j].End, settings))
                 {
-                    EvaluateStretch(t, y, channels, settings, s, e, accepted, rejected);
+                    EvaluateStretch(t, y, channels, settings, s, TrimTrailingDeparture(t, y, s, e, settings), accepted, rejected);
                 }
             }
             else
@@ -128,6 +128,13 @@ public static class SteadyStateDetector
                 failures.Add(new CriterionFailure(SteadyCriterion.Scatter, fit.StandardDeviation, channel.ScatterLimit,
                     Format($"{channel.Name}: standard deviation {fit.StandardDeviation:G4} > {channel.ScatterLimit:G4} ({fit.StandardDeviation / channel.ScatterLimit:F2}× limit) in [{t[start]}, {t[end]}] s")));
             }
+
+            if (fit.Mean < channel.MinimumValue)
+            {
+                worst = double.PositiveInfinity;
+                failures.Add(new CriterionFailure(SteadyCriterion.Range, fit.Mean, channel.MinimumValue,
+                    Format($"{channel.Name}: mean {fit.Mean:G4} below the operating minimum {channel.MinimumValue:G4} in [{t[start]}, {t[end]}] s (rig at rest, not an operating point)")));
+            }
         }
 
         var criteria = new ChannelCriteria(channel.Name, fit.Mean, fit.SlopePerS, fit.SlopeUncertaintyPerS, fit.ResidualAr1,
@@ -185,6 +192,68 @@ public static class SteadyStateDetector
 
         pieces.Add((s, end));
         return pieces;
+    }
+
+    /// <summary>
+    /// A set-point change that begins inside the last steady test window moves only its last few blocks: too few to
+    /// fail the drift rule, yet they are no longer the old operating point. Walks back from the end while any key
+    /// channel's block lies more than <see cref="DepartureSigmas"/> robust standard deviations (1.4826·MAD) from the
+    /// median of the WindowS/2 before it. Median and MAD, because the blocks already departed sit in that reference.
+    /// </summary>
+    private static int TrimTrailingDeparture(double[] t, double[][] y, int start, int end, SteadySettings settings)
+    {
+        double half = settings.WindowS / 2.0;
+        int e = end;
+        while (e > start && t[e] - t[start] > half && Departs(t, y, e, half))
+        {
+            e--;
+        }
+
+        return e;
+    }
+
+    // Common practice: 4 standard deviations, so that a steady block is trimmed by chance about once in 16 000.
+    private const double DepartureSigmas = 4.0;
+
+    private static bool Departs(double[] t, double[][] y, int k, double half)
+    {
+        foreach (double[] values in y)
+        {
+            if (!double.IsFinite(values[k]))
+            {
+                continue;
+            }
+
+            var reference = new List<double>();
+            for (int i = k - 1; i >= 0 && t[i] >= t[k] - half; i--)
+            {
+                if (double.IsFinite(values[i]))
+                {
+                    reference.Add(values[i]);
+                }
+            }
+
+            if (reference.Count < 5)
+            {
+                continue;
+            }
+
+            double median = Median(reference);
+            double mad = Median(reference.Select(v => Math.Abs(v - median)).ToList());
+            if (mad > 0 && Math.Abs(values[k] - median) > DepartureSigmas * 1.4826 * mad)
+            {
+                return true;
+            }
+        }
+
+        return false;
+    }
+
+    private static double Median(List<double> values)
+    {
+        values.Sort();
+        int n = values.Count;
+        return n % 2 == 1 ? values[n / 2] : 0.5 * (values[(n / 2) - 1] + values[n / 2]);
     }
 
     /// <summary>Mean of finite samples from index k stepping by dir while time stays in [fromS, toS) (before) or [fromS, toS) (after).</summary>
@@ -330,10 +399,10 @@ public static class SteadyStateDetector
                 throw new BcPrepDataException(Format($"Channel '{c.Name}' has {c.Values.Count} values for {timesS.Count} time stamps."));
             }
 
-            if (!(c.DriftLimitPerS > 0.0) || !(c.ScatterLimit > 0.0) || !(c.StepThreshold > 0.0))
+            if (!(c.DriftLimitPerS > 0.0) || !(c.ScatterLimit > 0.0) || !(c.StepThreshold > 0.0) || double.IsNaN(c.MinimumValue))
             {
                 throw new BcPrepDataException(Format(
-                    $"Channel '{c.Name}': drift limit {c.DriftLimitPerS}/s, scatter limit {c.ScatterLimit} and step threshold {c.StepThreshold} must all be positive."));
+                    $"Channel '{c.Name}': drift limit {c.DriftLimitPerS}/s, scatter limit {c.ScatterLimit} and step threshold {c.StepThreshold} must all be positive (operating minimum {c.MinimumValue} not NaN)."));
             }
         }
 

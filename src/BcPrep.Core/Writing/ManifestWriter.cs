@@ -46,6 +46,7 @@ public static class ManifestWriter
             WriteConventions(json, day);
             CalibrationManifest.Write(json, day.Calibration);
             MatrixManifest.Write(json, day, provenance.Matrix);
+            DetectionEvidenceJson.WriteDay(json, day);
             json.WriteStartArray("points");
             foreach (var point in day.Points)
             {
@@ -113,6 +114,7 @@ public static class ManifestWriter
         json.WriteEndArray();
         WriteStrings(json, "warnings", point.Warnings);
         ManifestBoundary.Write(json, point);
+        DetectionEvidenceJson.WritePoint(json, day, point);
         json.WriteStartArray("channels");
         foreach (var stats in point.Channels.Values.OrderBy(s => s.Channel, StringComparer.Ordinal))
         {

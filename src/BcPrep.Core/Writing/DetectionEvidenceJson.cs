@@ -1,0 +1,151 @@
+using System.Text.Json;
+using BcPrep.Pipeline;
+using BcPrep.Steady;
+
+namespace BcPrep.Writing;
+
+/// <summary>
+/// The steady-detection part of the manifest: at day level the settings, the rejected stretches with each failed
+/// criterion (value and limit) and the detection warnings; per point the detected window(s) behind it, the methods
+/// that accepted them and every key channel's criterion values. Times in s since the first sample of the day.
+/// </summary>
+public static class DetectionEvidenceJson
+{
+    /// <summary>Writes the day-level "detection" object (null when detection did not run).</summary>
+    public static void WriteDay(Utf8JsonWriter json, DayResult day)
+    {
+        ArgumentNullException.ThrowIfNull(json);
+        ArgumentNullException.ThrowIfNull(day);
+        if (day.Detection is not { } detection)
+        {
+            json.WriteNull("detection");
+            return;
+        }
+        var steady = day.Rig.Steady;
+        var settings = WindowFinder.Settings(steady);
+        json.WriteStartObject("detection");
+        json.WriteStartObject("settings");
+        Number(json, "block_s", steady.BlockS);
+        Number(json, "window_s", settings.WindowS);
+        Number(json, "step_s", settings.StepS);
+        Number(json, "min_duration_s", settings.MinStretchS);
+        Number(json, "settled_tail_s", settings.TailS);
+        Number(json, "drift_coverage_factor", settings.DriftCoverageFactor);
+        json.WriteString("required_methods", WindowTable.Methods(settings.RequiredMethods));
+        json.WriteStartArray("keys");
+        foreach (var key in steady.Keys)
+        {
+            json.WriteStartObject();
+            json.WriteString("channel", key.Channel);
+            Number(json, "max_change", key.MaxChangeSi);
+            Number(json, "drift_limit_per_s", key.MaxChangeSi / steady.WindowS);
+            Number(json, "max_scatter", key.MaxScatterSi);
+            Number(json, "step", key.StepSi);
+            Number(json, "min", key.MinimumSi ?? double.NaN);
+            json.WriteEndObject();
+        }
+        json.WriteEndArray();
+        json.WriteEndObject();
+        json.WriteNumber("accepted_windows", detection.Accepted.Count);
+        json.WriteStartArray("rejected");
+        foreach (var r in detection.Rejected)
+        {
+            json.WriteStartObject();
+            Number(json, "start_s", r.StartS);
+            Number(json, "end_s", r.EndS);
+            Number(json, "evaluated_start_s", r.EvaluatedStartS);
+            Number(json, "evaluated_end_s", r.EvaluatedEndS);
+            json.WriteString("reason", r.Reason);
+            WriteChannels(json, r.Channels);
+            json.WriteEndObject();
+        }
+        json.WriteEndArray();
+        json.WriteStartArray("warnings");
+        foreach (var warning in day.Warnings)
+        {
+            json.WriteStringValue(warning);
+        }
+        json.WriteEndArray();
+        json.WriteEndObject();
+    }
+
+    /// <summary>
+    /// Writes a point's "detection" object: for a detected point the window it is; for a pinned point the detected
+    /// windows it replaces (empty when detection found none there). Null when detection did not run.
+    /// </summary>
+    public static void WritePoint(Utf8JsonWriter json, DayResult day, PointResult point)
+    {
+        ArgumentNullException.ThrowIfNull(json);
+        ArgumentNullException.ThrowIfNull(day);
+        ArgumentNullException.ThrowIfNull(point);
+        if (day.Detection is null)
+        {
+            json.WriteNull("detection");
+            return;
+        }
+        var pinned = day.Rig.Points.Select(p => new TimeWindow(p.Id, DayProcessor.Resolve(p.Start, day.DayStartS), DayProcessor.Resolve(p.End, day.DayStartS))).ToList();
+        var planned = PointWindows.Plan(pinned, day.Detection, day.DayStartS).Points.FirstOrDefault(p => p.Window.Id == point.Id);
+        json.WriteStartObject("detection");
+        json.WriteString("relation", point.Origin == WindowOrigin.Detected ? "this window" : "detected windows replaced by the pinned window");
+        json.WriteStartArray("windows");
+        foreach (var w in planned?.Detected ?? [])
+        {
+            json.WriteStartObject();
+            json.WriteString("accepted_by", WindowTable.Methods(w.AcceptedBy));
+            Number(json, "start_s", w.StartS);
+            Number(json, "end_s", w.EndS);
+            Number(json, "stretch_start_s", w.StretchStartS);
+            Number(json, "stretch_end_s", w.StretchEndS);
+            WriteChannels(json, w.Channels);
+            json.WriteEndObject();
+        }
+        json.WriteEndArray();
+        json.WriteEndObject();
+    }
+
+    private static void WriteChannels(Utf8JsonWriter json, IReadOnlyList<ChannelCriteria> channels)
+    {
+        json.WriteStartArray("channels");
+        foreach (var c in channels)
+        {
+            json.WriteStartObject();
+            json.WriteString("id", c.Channel);
+            Number(json, "mean", c.Mean);
+            Number(json, "slope_per_s", c.SlopePerS);
+            Number(json, "slope_standard_uncertainty_per_s", c.SlopeUncertaintyPerS);
+            Number(json, "residual_ar1", c.ResidualAr1);
+            Number(json, "drift_limit_per_s", c.DriftLimitPerS);
+            Number(json, "standard_deviation", c.StandardDeviation);
+            Number(json, "scatter_limit", c.ScatterLimit);
+            Number(json, "r", c.R);
+            Number(json, "r_critical", c.RCritical);
+            Number(json, "mser_truncation_s", c.MserTruncationS);
+            json.WriteStartArray("failed");
+            foreach (var f in c.Failures)
+            {
+                json.WriteStartObject();
+                json.WriteString("criterion", f.Criterion.ToString());
+                Number(json, "value", f.Value);
+                Number(json, "limit", f.Limit);
+                json.WriteString("description", f.Description);
+                json.WriteEndObject();
+            }
+            json.WriteEndArray();
+            json.WriteEndObject();
+        }
+        json.WriteEndArray();
+    }
+
+    // JSON has no NaN or infinity: those are written as null (as in the rest of the manifest).
+    private static void Number(Utf8JsonWriter json, string name, double value)
+    {
+        if (double.IsFinite(value))
+        {
+            json.WriteNumber(name, value);
+        }
+        else
+        {
+            json.WriteNull(name);
+        }
+    }
+}
