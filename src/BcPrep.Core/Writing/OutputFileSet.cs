@@ -49,7 +49,7 @@ public sealed class OutputFileSet
         try
         {
             Directory.CreateDirectory(root);
-            RemoveStalePartials(targets.Select(t => Path.GetDirectoryName(t)!).Distinct(StringComparer.Ordinal));
+            RemoveStalePartials(OwnedDirectories(root, targets.Select(t => Path.GetDirectoryName(t)!)));
             for (var i = 0; i < ordered.Count; i++)
             {
                 Directory.CreateDirectory(Path.GetDirectoryName(targets[i])!);
@@ -86,12 +86,23 @@ public sealed class OutputFileSet
         var root = Path.GetFullPath(outputDirectory);
         try
         {
-            RemoveStalePartials(relativePaths.Select(r => Path.GetDirectoryName(Target(root, r))!).Distinct(StringComparer.Ordinal));
+            RemoveStalePartials(OwnedDirectories(root, relativePaths.Select(r => Path.GetDirectoryName(Target(root, r))!)));
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
             throw new BcPrepFailure(FailureKind.Output, new SourceLocation(outputDirectory), "cannot remove temporary files of an interrupted run: " + e.Message);
         }
+    }
+
+    /// <summary>
+    /// The folders a run may sweep: those its files go to, plus every point folder under points/ (a folder of ours
+    /// alone), where an interrupted run of a day with other points may have left temporaries.
+    /// </summary>
+    private static IEnumerable<string> OwnedDirectories(string root, IEnumerable<string> targetDirectories)
+    {
+        var points = Path.Combine(root, "points");
+        var pointFolders = Directory.Exists(points) ? Directory.EnumerateDirectories(points) : [];
+        return targetDirectories.Concat(pointFolders).Distinct(StringComparer.Ordinal).ToList();
     }
 
     private static void RemoveStalePartials(IEnumerable<string> directories)

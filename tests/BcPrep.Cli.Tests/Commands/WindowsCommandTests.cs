@@ -180,7 +180,7 @@ public class WindowsCommandTests
         var points = manifest.RootElement.GetProperty("points").EnumerateArray().ToList();
         Assert.Equal(["OP1", "OP2", "OP3"], points.Select(p => p.GetProperty("id").GetString()));
         Assert.All(points, p => Assert.Equal("rig file", p.GetProperty("window_origin").GetString()));
-        Assert.Equal(47 * 60.0, points[0].GetProperty("window").GetProperty("start_s").GetDouble(), 6);
+        Assert.Equal(49.5 * 60.0, points[0].GetProperty("window").GetProperty("start_s").GetDouble(), 6);
         Assert.All(points, p => Assert.Single(p.GetProperty("detection").GetProperty("windows").EnumerateArray()));
     }
 }

@@ -21,7 +21,7 @@ public class RigLoaderTests
         Assert.Equal(1e-3, tc.RawToSi.Scale, 15); // mV -> V
         Assert.Equal("t_cj", tc.ColdJunctionChannel);
         Assert.Equal(3, rig.Points.Count);
-        Assert.Equal(47 * 60.0, rig.Points[0].Start.Seconds, 12);
+        Assert.Equal(49.5 * 60.0, rig.Points[0].Start.Seconds, 12);
         Assert.Equal(3, rig.Steady.Keys.Count);
         Assert.Equal(0.0004, rig.Steady.Keys[0].MaxChangeSi, 15);
     }
@@ -72,7 +72,7 @@ public class RigLoaderTests
     [InlineData("cold_junction = \"t_cj\"\ntolerance_class = \"1\"\nkey = true", "cold_junction = \"t_cjj\"\ntolerance_class = \"1\"\nkey = true", "did you mean 't_cj'")]
     [InlineData("reference = \"p_baro\"\nsensor = \"linear\"                        # 0-10 V", "reference = \"p_bar\"\nsensor = \"linear\"                        # 0-10 V", "no channel with id 'p_bar'")]
     [InlineData("gain = 60.0", "gain = \"sixty\"", "expected a number")]
-    [InlineData("start = \"47 min\"", "start = \"47 mins\"", "not a unit of duration")]
+    [InlineData("start = \"49.5 min\"", "start = \"49.5 mins\"", "not a unit of duration")]
     public void Invalid_values_are_reported(string original, string replacement, string fragment)
     {
         var text = File.ReadAllText(SampleRigPath);
