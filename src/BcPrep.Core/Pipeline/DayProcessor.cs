@@ -27,7 +27,7 @@ public static class DayProcessor
         var stats = new Dictionary<string, Dictionary<string, ChannelWindowStats>>(StringComparer.Ordinal);
         var tareWindows = TareWindows(rig, plan.DayStartS);
         var pinned = rig.Points.Select(p => new TimeWindow(p.Id, Resolve(p.Start, plan.DayStartS), Resolve(p.End, plan.DayStartS))).ToList();
-        var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(stats, w, c, t, v, options));
+        var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(rig, plan.DayStartS, stats, w, c, t, v));
         DayScan.Run(rig, plan, converters, [blocks, firstPass]);
 
         var series = Series(rig, blocks);
@@ -43,7 +43,7 @@ public static class DayProcessor
             {
                 throw new BcPrepFailure(FailureKind.NoSteadyPoint, NoSteadyProblems(rig, detection, plan.DayStartS));
             }
-            var secondPass = new WindowCollector(windows, (w, c, t, v) => Collect(stats, w, c, t, v, options));
+            var secondPass = new WindowCollector(windows, (w, c, t, v) => Collect(rig, plan.DayStartS, stats, w, c, t, v));
             DayScan.Run(rig, plan, converters, [secondPass]);
         }
 
@@ -59,7 +59,7 @@ public static class DayProcessor
             .Select(c => new TimeWindow("tare:" + c.Id, Resolve(c.Tare!.Start, dayStartS), Resolve(c.Tare.End, dayStartS)))
             .ToList();
 
-    private static void Collect(Dictionary<string, Dictionary<string, ChannelWindowStats>> stats, TimeWindow window, string channel, double[] times, double[] values, ProcessOptions options)
+    private static void Collect(RigDescription rig, double dayStartS, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats, TimeWindow window, string channel, double[] times, double[] values)
     {
         if (window.Id.StartsWith("tare:", StringComparison.Ordinal) && window.Id != "tare:" + channel)
         {
@@ -75,7 +75,7 @@ public static class DayProcessor
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel), string.Create(CultureInfo.InvariantCulture,
                 $"window '{window.Id}' ({window.StartS:F1}–{window.EndS:F1} s on the log clock) holds no samples of '{channel}': is the window inside the day?"));
         }
-        byChannel[channel] = WindowStatistics.Evaluate(channel, window, times, values, options.MaxBridgeS);
+        byChannel[channel] = FaultPolicy.Evaluate(rig, channel, window, times, values, dayStartS);
     }
 
     private static Dictionary<string, ChannelWindowStats> TareStats(RigDescription rig, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)

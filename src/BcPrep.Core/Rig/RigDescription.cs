@@ -18,6 +18,9 @@ public sealed record RigDescription(
     public ChannelSpec? Channel(string id) => Channels.FirstOrDefault(c => c.Id == id);
 
     public IEnumerable<ChannelSpec> WithRole(ChannelRole role) => Channels.Where(c => c.Role == role);
+
+    /// <summary>Signal conditioning settings ([conditioning]).</summary>
+    public ConditioningSpec Conditioning { get; init; } = ConditioningSpec.Default;
 }
 
 /// <summary>Duct geometry; positions are axial coordinates (m) along the duct in one frame of the user's choice.</summary>
@@ -75,7 +78,11 @@ public sealed record ChannelSpec(
     TareSpec? Tare,
     CalibrationRecord? Record,
     bool IsKey,
-    SourceLocation Location);
+    SourceLocation Location)
+{
+    /// <summary>Sensor-fault limits (the channel's <c>limits</c> table).</summary>
+    public ChannelLimits Limits { get; init; } = ChannelLimits.None;
+}
 
 /// <summary>A pinned time interval (seconds since the first sample of the day, or absolute when the log has dates).</summary>
 public sealed record TimeBound(double Seconds, bool IsAbsolute);

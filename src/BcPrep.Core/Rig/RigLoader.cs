@@ -57,12 +57,13 @@ public static class RigLoader
         var points = top.Tables("point").Select(ReadPoint).Where(p => p is not null).Select(p => p!).ToList();
         var steady = ReadSteady(top.Table("steady"), channels, declaredIds);
         var profiles = ReadProfiles(top.Table("inlet_profile"));
+        var conditioning = ConditioningReader.Read(top.Table("conditioning"));
         top.RejectUnknownKeys();
 
         CheckReferences(channels, duct, points, problems);
         return duct is null || log is null
             ? null
-            : new RigDescription(name, fileName, duct, log, channels, points, steady, profiles, coverage);
+            : new RigDescription(name, fileName, duct, log, channels, points, steady, profiles, coverage) { Conditioning = conditioning };
     }
 
     private static DuctGeometry? ReadDuct(TableReader? t)
@@ -160,6 +161,7 @@ public static class RigLoader
             tare = start is null || end is null ? null : new TareSpec(start, end);
         }
         var record = ReadRecord(t);
+        var limits = ConditioningReader.ReadLimits(t.Table("limits"), dimension, sensor);
         if (role == ChannelRole.WallTemperature && position is null)
         {
             t.Report("position", "a wall_temperature channel needs its axial position, e.g. position = \"0.5 m\"");
@@ -171,7 +173,7 @@ public static class RigLoader
         t.RejectUnknownKeys();
         return id is null || sensor is null
             ? null
-            : new ChannelSpec(id, column!, role, dimension, plane, position, reference, sensor, uncertainty, tare, record, isKey, t.Location with { Key = $"channel '{id}'" });
+            : new ChannelSpec(id, column!, role, dimension, plane, position, reference, sensor, uncertainty, tare, record, isKey, t.Location with { Key = $"channel '{id}'" }) { Limits = limits };
     }
 
     private static SensorSpec? ReadSensor(TableReader t, Dimension dimension)
