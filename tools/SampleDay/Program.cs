@@ -108,12 +108,12 @@ internal static class Program
             line.Clear();
             line.Append(start.AddTicks((long)Math.Round(t * TimeSpan.TicksPerSecond)).ToString("yyyy-MM-ddTHH:mm:ss.fff", culture));
             Append(line, ((baroPa / 100.0) - 800.0) / 60.0 + pressureNoise[0].Next(), "F5");
-            Append(line, (inletGauge + 4.0) / 500.0 + pressureNoise[1].Next(), "F5");
+            Append(line, (inletGauge + 4.0) / 500.0 + pressureNoise[1].Next() + Realism.HeaterSwitchingSpikeV(i, scenario.SampleRateHz), "F5");
             Append(line, (outletGauge - 3.0) / 500.0 + pressureNoise[2].Next(), "F5");
             Append(line, 4.0 + (16.0 * massFlow / 0.05) + flowNoise.Next(), "F4");
             Append(line, CallendarVanDusen.ResistanceOhm(RtdNominal.Pt100, coldJunctionK) + rtdNoise.Next(), "F4");
             Append(line, ThermocoupleMv(ambientK, coldJunctionK) + emfNoise[0].Next(), "F4");
-            Append(line, ThermocoupleMv(outletK, coldJunctionK) + emfNoise[1].Next(), "F4");
+            AppendOrDrop(line, ThermocoupleMv(outletK, coldJunctionK) + emfNoise[1].Next(), "F4", Realism.IsDropout(i, scenario.SampleRateHz));
             for (var w = 0; w < wallK.Length; w++)
             {
                 Append(line, ThermocoupleMv(wallK[w], coldJunctionK) + emfNoise[2 + w].Next(), "F4");
@@ -128,6 +128,17 @@ internal static class Program
 
     private static double ThermocoupleMv(double hotK, double coldK) =>
         (Its90Thermocouple.EmfV(ThermocoupleType.K, hotK) - Its90Thermocouple.EmfV(ThermocoupleType.K, coldK)) * 1000.0;
+
+    /// <summary>An empty cell where the logger missed the reading, else the value.</summary>
+    private static void AppendOrDrop(StringBuilder line, double value, string format, bool dropped)
+    {
+        if (dropped)
+        {
+            line.Append(',');
+            return;
+        }
+        Append(line, value, format);
+    }
 
     private static void Append(StringBuilder line, double value, string format) =>
         line.Append(',').Append(value.ToString(format, CultureInfo.InvariantCulture));

@@ -14,23 +14,38 @@ public static class CalibrateCommand
         var rig = RigArguments.Rig();
         var logs = RigArguments.Logs();
         var json = TabularOutput.JsonOption();
+        var conditioned = new Option<bool>("--conditioned")
+        {
+            Description = "Condition each channel first, as set in the rig's [conditioning] table: bridge short gaps, replace spikes (Hampel), " +
+                          "mains notch and low-pass (zero phase); streamed in overlapping chunks, so memory does not grow with the day",
+        };
         var command = new Command("calibrate", "Write every channel's calibrated SI time series as CSV (or JSON lines with --json) to standard output (tares applied).\n" +
                                                "Example: bcprep calibrate sample-logs/marten-rig.toml sample-logs/*.csv | head")
         {
-            rig, logs, json,
+            rig, logs, json, conditioned,
         };
         command.SetAction(parse =>
         {
             var description = RigArguments.LoadRig(parse.GetValue(rig)!);
             using var inputs = new LogArguments(parse.GetValue(logs)!, context);
             var writer = new SeriesWriter(TabularOutput.Create(context.Out, parse.GetValue(json)), description);
-            var verbosity = common.DiagnosticsFor(parse, context).Verbosity;
-            using var progress = ProgressIndicator.Start(context, verbosity, "calibrating", inputs.Inputs.Sum(i => File.Exists(i.Path) ? new FileInfo(i.Path).Length : 0));
+            var diagnostics = common.DiagnosticsFor(parse, context);
+            using var progress = ProgressIndicator.Start(context, diagnostics.Verbosity, "calibrating", inputs.Inputs.Sum(i => File.Exists(i.Path) ? new FileInfo(i.Path).Length : 0));
+            var conditioner = parse.GetValue(conditioned) ? new ConditionedBlockSink(description, writer) : null;
             CalibratedSeries.Stream(description, inputs.Inputs, (plan, _) =>
             {
                 writer.Start(plan.DayStartS);
-                common.DiagnosticsFor(parse, context).Detail($"{plan.Loggers.Count} logger(s), day starts at {plan.DayStartS.ToString("R", CultureInfo.InvariantCulture)} s");
-            }, writer);
+                diagnostics.Detail($"{plan.Loggers.Count} logger(s), day starts at {plan.DayStartS.ToString("R", CultureInfo.InvariantCulture)} s");
+            }, conditioner ?? (IBlockSink)writer);
+            if (conditioner is not null)
+            {
+                conditioner.Complete();
+                foreach (var (channel, totals) in conditioner.Totals.OrderBy(t => t.Key, StringComparer.Ordinal))
+                {
+                    var notches = totals.NotchesHz.Count == 0 ? "no mains notch" : "notches at " + string.Join("/", totals.NotchesHz.Select(f => f.ToString(CultureInfo.InvariantCulture))) + " Hz";
+                    diagnostics.Detail(string.Create(CultureInfo.InvariantCulture, $"conditioned '{channel}': {totals.Bridged} samples bridged, {totals.Spikes} spikes replaced, {notches}"));
+                }
+            }
             return ExitCodes.Success;
         });
         return command;

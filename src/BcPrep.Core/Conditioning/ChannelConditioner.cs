@@ -11,6 +11,7 @@ public static class ChannelConditioner
     /// Gaps are bridged first (<see cref="GapBridging.Bridge"/>); Hampel spike removal runs on the result; notch and
     /// low-pass run zero-phase on each gap-free segment separately (NaN cells and unbridged time jumps cut segments),
     /// because filtering across a gap would smear invented values. Sample rate = 1 / nominal interval.
+    /// The mains notch is skipped when the mains frequency is not below Nyquist (NotchFrequenciesHz stays empty).
     /// Pad length: <see cref="ZeroPhaseFilter.SettlingPadLength"/> (1e-3 residual), capped at segment length − 1; segments not
     /// longer than the scipy default pad are set to NaN and counted in the report.
     /// </summary>
@@ -25,7 +26,9 @@ public static class ChannelConditioner
 
         var sections = new List<SecondOrderSection>();
         var notches = new List<double>();
-        if (settings.MainsHz is double mains)
+        // A notch is only possible below Nyquist: at a low sample rate the logger's own anti-alias filter and
+        // integration time are what suppress mains pickup, and the report's empty notch list says so.
+        if (settings.MainsHz is double mains && mains < fs / 2.0)
         {
             var notch = MainsNotch.WithHarmonics(mains, settings.NotchQ, settings.NotchHarmonics, fs);
             sections.AddRange(notch.Sections);

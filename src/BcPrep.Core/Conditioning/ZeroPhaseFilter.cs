@@ -6,8 +6,9 @@ namespace BcPrep.Conditioning;
 /// Zero-phase forward–backward filtering with odd-extension padding and steady-state initial conditions
 /// (the 'pad' method of scipy.signal.filtfilt / sosfiltfilt). The result has magnitude |H|², zero phase and twice
 /// the order; a single-pass −3 dB cutoff becomes −6 dB.
-/// Gustafsson (1996) initial conditions are not implemented: 'pad' is used because it is well defined for both
-/// forms, matches the widely used reference output sample for sample, and its edge error is bounded by the
+/// Gustafsson (1996) initial conditions are in <see cref="GustafssonFiltFilt"/> (transfer-function form, O(n·m)
+/// memory). The conditioning chain keeps 'pad' on second-order sections: it is well defined for any order and
+/// cutoff, matches the widely used reference output sample for sample, and its edge error is bounded by the
 /// padding; filter the whole record before cutting windows so that edges stay out of operating-point windows.
 /// </summary>
 public static class ZeroPhaseFilter

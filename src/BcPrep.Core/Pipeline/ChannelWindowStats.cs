@@ -20,7 +20,11 @@ public sealed record ChannelWindowStats(
     double Min,
     double Max,
     WindowMeanResult TypeA,
-    IReadOnlyList<SensorFaultFlag> Faults);
+    IReadOnlyList<SensorFaultFlag> Faults)
+{
+    /// <summary>What conditioning did in this window (gaps, spike times, fault verdicts); null when not recorded.</summary>
+    public WindowConditioning? Conditioning { get; init; }
+}
 
 /// <summary>Reduces one channel's window samples to <see cref="ChannelWindowStats"/>.</summary>
 public static class WindowStatistics
@@ -28,29 +32,58 @@ public static class WindowStatistics
     /// <summary>Longest gap (s) bridged by interpolation inside a window; a longer one fails the window.</summary>
     public const double DefaultMaxBridgeS = 2.0;
 
-    public static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, double[] values, double maxBridgeS = DefaultMaxBridgeS)
+    public static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, double[] values, double maxBridgeS = DefaultMaxBridgeS) =>
+        Evaluate(channel, window, timesS, values, new ConditioningSettings(MaxBridgeS: maxBridgeS), new SensorFaultLimits());
+
+    /// <summary>
+    /// Bridges gaps up to <see cref="ConditioningSettings.MaxBridgeS"/> (a longer gap inside the window fails it with
+    /// <see cref="FailureKind.InputData"/>; missing cells at the window edges are dropped and reported), removes
+    /// spikes with the Hampel filter of <paramref name="settings"/> (floor of the robust σ =
+    /// <see cref="ConditioningSettings.HampelScaleFloor"/>), screens the de-spiked samples for sensor faults with
+    /// <paramref name="limits"/>, and takes the mean and Type A uncertainty of the de-spiked, unfiltered samples.
+    /// Notch and low-pass settings are not used here on purpose: a low-pass narrows the scatter and would
+    /// understate the Type A uncertainty. What was done is in <see cref="ChannelWindowStats.Conditioning"/>.
+    /// </summary>
+    public static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, double[] values, ConditioningSettings settings, SensorFaultLimits limits)
     {
+        ArgumentNullException.ThrowIfNull(settings);
         var finite = values.Count(double.IsFinite);
         if (finite < 3)
         {
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel),
                 $"window '{window.Id}' ({window.StartS:F1}–{window.EndS:F1} s) holds {finite} valid samples of '{channel}'; at least 3 are needed");
         }
-        var bridged = GapBridging.Bridge(timesS, values, maxBridgeS);
+        var bridged = GapBridging.Bridge(timesS, values, settings.MaxBridgeS);
         var interior = bridged.Report.Unbridged.Where(g => !g.AtRecordEdge).ToList();
         if (interior.Count > 0)
         {
             var gap = interior.OrderByDescending(g => g.DurationS).First();
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel), string.Create(System.Globalization.CultureInfo.InvariantCulture,
-                $"channel '{channel}' has a {gap.DurationS:F1} s gap ({gap.StartS:F1}–{gap.EndS:F1} s) inside window '{window.Id}', longer than the {maxBridgeS:G} s that may be bridged"));
+                $"channel '{channel}' has a {gap.DurationS:F1} s gap ({gap.StartS:F1}–{gap.EndS:F1} s) inside window '{window.Id}', longer than the {settings.MaxBridgeS:G} s that may be bridged"));
         }
-        var kept = bridged.Values.Where(double.IsFinite).ToArray();
-        var despiked = HampelFilter.Apply(kept);
+        var keptTimes = new List<double>(bridged.Values.Length);
+        var kept = new List<double>(bridged.Values.Length);
+        for (var i = 0; i < bridged.Values.Length; i++)
+        {
+            if (double.IsFinite(bridged.Values[i]))
+            {
+                keptTimes.Add(bridged.TimesS[i]);
+                kept.Add(bridged.Values[i]);
+            }
+        }
+        var despiked = HampelFilter.Apply(kept.ToArray(), settings.HampelHalfWindow, settings.HampelSigmas, settings.HampelScaleFloor);
         var clean = despiked.Values;
-        var faults = SensorFaults.Check(clean, new SensorFaultLimits()).Flags;
+        var faults = SensorFaults.Check(clean, limits).Flags;
         var typeA = WindowMean.Evaluate(clean);
+        var report = new WindowConditioning(
+            bridged.Report.Bridged.ToList(), bridged.Report.Unbridged.ToList(),
+            despiked.ReplacedIndices.Select(i => keptTimes[i]).ToList(),
+            faults.Select(f => new FaultVerdict(f, FaultSeverity.Warning, f.FirstIndex >= 0 && f.FirstIndex < keptTimes.Count ? keptTimes[f.FirstIndex] : double.NaN)).ToList());
         return new ChannelWindowStats(
             channel, window.Id, clean.Length, values.Length - finite, bridged.Report.InterpolatedSamples,
-            despiked.ReplacedIndices.Count, typeA.Mean, typeA.StandardDeviation, clean.Min(), clean.Max(), typeA, faults);
+            despiked.ReplacedIndices.Count, typeA.Mean, typeA.StandardDeviation, clean.Min(), clean.Max(), typeA, faults)
+        {
+            Conditioning = report,
+        };
     }
 }

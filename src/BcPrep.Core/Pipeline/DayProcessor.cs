@@ -29,7 +29,7 @@ public static class DayProcessor
         var stats = new Dictionary<string, Dictionary<string, ChannelWindowStats>>(StringComparer.Ordinal);
         var tareWindows = TareWindows(rig, plan.DayStartS);
         var pinned = rig.Points.Select(p => new TimeWindow(p.Id, Resolve(p.Start, plan.DayStartS), Resolve(p.End, plan.DayStartS))).ToList();
-        var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(stats, w, c, t, v, options, PinnedLocation(rig, w)));
+        var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(rig, plan.DayStartS, stats, w, c, t, v, PinnedLocation(rig, w)));
         var extent = new DayExtentSink();
         DayScan.Run(rig, plan, converters, [blocks, firstPass, extent]);
         var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, extent.FirstS, extent.LastS), options.AllowExpired);
@@ -49,7 +49,7 @@ public static class DayProcessor
         var detected = windowPlan.Points.Where(p => p.Origin == WindowOrigin.Detected).Select(p => p.Window).ToList();
         if (detected.Count > 0)
         {
-            var secondPass = new WindowCollector(detected, (w, c, t, v) => Collect(stats, w, c, t, v, options));
+            var secondPass = new WindowCollector(detected, (w, c, t, v) => Collect(rig, plan.DayStartS, stats, w, c, t, v));
             DayScan.Run(rig, plan, converters, [secondPass]);
         }
         var dayWarnings = new List<string>();
@@ -79,7 +79,7 @@ public static class DayProcessor
             .Select(c => new TimeWindow("tare:" + c.Id, Resolve(c.Tare!.Start, dayStartS), Resolve(c.Tare.End, dayStartS)))
             .ToList();
 
-    private static void Collect(Dictionary<string, Dictionary<string, ChannelWindowStats>> stats, TimeWindow window, string channel, double[] times, double[] values, ProcessOptions options,
+    private static void Collect(RigDescription rig, double dayStartS, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats, TimeWindow window, string channel, double[] times, double[] values,
         SourceLocation? pinnedAt = null)
     {
         if (window.Id.StartsWith("tare:", StringComparison.Ordinal) && window.Id != "tare:" + channel)
@@ -99,13 +99,13 @@ public static class DayProcessor
         }
         if (pinnedAt is null)
         {
-            byChannel[channel] = WindowStatistics.Evaluate(channel, window, times, values, options.MaxBridgeS);
+            byChannel[channel] = FaultPolicy.Evaluate(rig, channel, window, times, values, dayStartS);
             return;
         }
-        WindowCoverage.Require(window, channel, times, options.MaxBridgeS, pinnedAt);
+        WindowCoverage.Require(window, channel, times, rig.Conditioning.MaxBridgeS, pinnedAt);
         try
         {
-            byChannel[channel] = WindowStatistics.Evaluate(channel, window, times, values, options.MaxBridgeS);
+            byChannel[channel] = FaultPolicy.Evaluate(rig, channel, window, times, values, dayStartS);
         }
         catch (BcPrepFailure failure)
         {

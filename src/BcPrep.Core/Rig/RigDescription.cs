@@ -27,6 +27,9 @@ public sealed record RigDescription(
 
     /// <summary>Sampling of the inlet profile onto a face's points (<c>[inlet_profile.face]</c>), if asked for.</summary>
     public InletFaceSpec? InletFace { get; init; }
+
+    /// <summary>Signal conditioning settings ([conditioning]).</summary>
+    public ConditioningSpec Conditioning { get; init; } = ConditioningSpec.Default;
 }
 
 /// <summary>Duct geometry; positions are axial coordinates (m) along the duct in one frame of the user's choice.</summary>
@@ -96,6 +99,9 @@ public sealed record ChannelSpec(
 {
     /// <summary>Radial position (m from the axis) of a rake sensor; null for a plane's bulk sensor.</summary>
     public double? RadiusM { get; init; }
+
+    /// <summary>Sensor-fault limits (the channel's <c>limits</c> table).</summary>
+    public ChannelLimits Limits { get; init; } = ChannelLimits.None;
 }
 
 /// <summary>A pinned time interval (seconds since the first sample of the day, or absolute when the log has dates).</summary>

@@ -61,13 +61,14 @@ public static class RigLoader
         var profiles = ReadProfiles(profileTable);
         var flowMeter = BoundaryKeys.ReadFlowMeter(top.Table("flow_meter"));
         var wall = BoundaryKeys.ReadWall(top.Table("wall"));
+        var conditioning = ConditioningReader.Read(top.Table("conditioning"));
         top.RejectUnknownKeys();
 
         CheckReferences(channels, duct, points, problems);
         BoundaryKeys.Check(channels, duct, flowMeter, problems);
         return duct is null || log is null
             ? null
-            : new RigDescription(name, fileName, duct, log, channels, points, steady, profiles, coverage) { FlowMeter = flowMeter, Wall = wall, InletFace = face };
+            : new RigDescription(name, fileName, duct, log, channels, points, steady, profiles, coverage) { FlowMeter = flowMeter, Wall = wall, InletFace = face, Conditioning = conditioning };
     }
 
     private static DuctGeometry? ReadDuct(TableReader? t)
@@ -167,6 +168,7 @@ public static class RigLoader
             tare = start is null || end is null ? null : new TareSpec(start, end);
         }
         var record = ReadRecord(t);
+        var limits = ConditioningReader.ReadLimits(t.Table("limits"), dimension, sensor);
         if (role == ChannelRole.WallTemperature && position is null)
         {
             t.Report("position", "a wall_temperature channel needs its axial position, e.g. position = \"0.5 m\"");
@@ -182,7 +184,7 @@ public static class RigLoader
         t.RejectUnknownKeys();
         return id is null || sensor is null
             ? null
-            : new ChannelSpec(id, column!, role, dimension, plane, position, reference, sensor, uncertainty, tare, record, isKey, t.Location with { Key = $"channel '{id}'" }) { RadiusM = radius };
+            : new ChannelSpec(id, column!, role, dimension, plane, position, reference, sensor, uncertainty, tare, record, isKey, t.Location with { Key = $"channel '{id}'" }) { RadiusM = radius, Limits = limits };
     }
 
     private static SensorSpec? ReadSensor(TableReader t, Dimension dimension)

@@ -27,7 +27,7 @@ public static class BoundaryTables
             var unit = UnitOf(day, name);
             header.AddRange([$"{name} [{unit}]", $"u({name}) [{unit}]", $"U({name}) [{unit}]", $"k({name})"]);
         }
-        header.AddRange(["checks", "warnings"]);
+        header.AddRange(["checks", "warnings", "conditioning"]);
         var table = new CsvTable(header)
             .Comment($"BcPrep summary; rig '{day.Rig.Name}'; times in s since the first sample of the day; u = standard uncertainty, U = expanded uncertainty at p = {day.Rig.CoverageProbability.ToString(CultureInfo.InvariantCulture)} with coverage factor k");
         foreach (var point in day.Points)
@@ -44,6 +44,7 @@ public static class BoundaryTables
             }
             row.Add(string.Join("; ", point.Checks.Select(c => $"{c.Name}: {(c.Passed ? "pass" : "warn")}")));
             row.Add(point.Warnings.Count);
+            row.Add(ConditioningManifest.SummaryCell(point));
             table.Add([.. row]);
         }
         return table;

@@ -86,6 +86,7 @@ public static class ManifestWriter
         json.WriteString("type_a", "window mean of de-spiked, unfiltered samples; standard uncertainty corrected for autocorrelation (integrated autocorrelation time, Sokal window)");
         json.WriteString("turbulence", InletTurbulence.ConventionDescription);
         json.WriteString("properties", Physics.DryAir.PropertySourceDescription);
+        ConditioningManifest.WriteSettings(json, day.Rig.Conditioning);
         json.WriteEndObject();
     }
 
@@ -130,6 +131,7 @@ public static class ManifestWriter
             Number(json, "effective_samples", stats.TypeA.EffectiveSampleCount);
             Number(json, "naive_standard_uncertainty", stats.TypeA.NaiveStandardUncertainty);
             WriteStrings(json, "faults", stats.Faults.Select(f => $"{f.Kind}: {f.Evidence}").ToList());
+            ConditioningManifest.WriteChannel(json, stats, day.DayStartS);
             json.WriteEndObject();
         }
         json.WriteEndArray();

@@ -1,0 +1,95 @@
+using BcPrep.Conditioning;
+using BcPrep.Rig;
+
+namespace BcPrep.Pipeline;
+
+/// <summary>
+/// Conditions calibrated row blocks channel by channel (<see cref="StreamingConditioner"/>, settings from the rig
+/// file) and passes conditioned rows on to another block sink. Rows leave with a delay of about one chunk; call
+/// <see cref="Complete"/> after the last block. A new logger (another channel list) completes the previous one.
+/// Memory per channel: one chunk plus its overlap, whatever the length of the day.
+/// </summary>
+public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, int coreLength = 65536) : IBlockSink
+{
+    private readonly Dictionary<string, StreamingConditioner> _conditioners = new(StringComparer.Ordinal);
+    private IReadOnlyList<string>? _channels;
+
+    /// <summary>Per channel (all loggers so far): samples replaced by the Hampel filter and samples bridged.</summary>
+    public IReadOnlyDictionary<string, (long Spikes, long Bridged, IReadOnlyList<double> NotchesHz)> Totals => _totals;
+
+    private readonly Dictionary<string, (long Spikes, long Bridged, IReadOnlyList<double> NotchesHz)> _totals = new(StringComparer.Ordinal);
+
+    public void AcceptBlock(IReadOnlyList<string> channels, double[] timeS, IReadOnlyList<double[]> valuesSi, int count)
+    {
+        ArgumentNullException.ThrowIfNull(channels);
+        ArgumentNullException.ThrowIfNull(valuesSi);
+        if (_channels is not null && !_channels.SequenceEqual(channels))
+        {
+            Complete();
+        }
+        if (_channels is null)
+        {
+            _channels = channels.ToList();
+            foreach (var id in channels)
+            {
+                var spec = rig.Channel(id) ?? throw new InvalidOperationException($"channel '{id}' is not in the rig description");
+                _conditioners[id] = new StreamingConditioner(ChannelConditioningPlan.Settings(rig, spec), coreLength);
+            }
+        }
+        for (var c = 0; c < channels.Count; c++)
+        {
+            _conditioners[channels[c]].Push(timeS.AsSpan(0, count), valuesSi[c].AsSpan(0, count));
+        }
+        Drain();
+    }
+
+    /// <summary>Conditions and passes on what is left of the current logger.</summary>
+    public void Complete()
+    {
+        if (_channels is null)
+        {
+            return;
+        }
+        foreach (var id in _channels)
+        {
+            _conditioners[id].Complete();
+        }
+        Drain();
+        foreach (var id in _channels)
+        {
+            var s = _conditioners[id];
+            _totals[id] = (s.SpikesReplaced, s.BridgedSamples, s.NotchFrequenciesHz);
+        }
+        _conditioners.Clear();
+        _channels = null;
+    }
+
+    /// <summary>Passes on the rows every channel has finished (all channels of a logger share one time axis).</summary>
+    private void Drain()
+    {
+        var channels = _channels!;
+        var ready = channels.Min(id => _conditioners[id].OutputTimesS.Count);
+        if (ready == 0)
+        {
+            return;
+        }
+        var first = _conditioners[channels[0]].OutputTimesS;
+        var times = first.GetRange(0, ready).ToArray();
+        var values = new List<double[]>(channels.Count);
+        foreach (var id in channels)
+        {
+            var s = _conditioners[id];
+            for (var i = 0; i < ready; i++)
+            {
+                if (s.OutputTimesS[i] != times[i])
+                {
+                    throw new InvalidOperationException($"conditioned time axes of '{channels[0]}' and '{id}' differ at {times[i]} s");
+                }
+            }
+            values.Add(s.OutputValues.GetRange(0, ready).ToArray());
+            s.OutputTimesS.RemoveRange(0, ready);
+            s.OutputValues.RemoveRange(0, ready);
+        }
+        inner.AcceptBlock(channels, times, values, ready);
+    }
+}

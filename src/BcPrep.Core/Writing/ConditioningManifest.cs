@@ -1,0 +1,112 @@
+using System.Globalization;
+using System.Text.Json;
+using BcPrep.Conditioning;
+using BcPrep.Pipeline;
+using BcPrep.Rig;
+
+namespace BcPrep.Writing;
+
+/// <summary>The conditioning parts of the manifest and the summary: settings used, and per channel and window what was changed.</summary>
+public static class ConditioningManifest
+{
+    /// <summary>At most this many spike times are listed per channel and window (the count is always complete).</summary>
+    public const int ListedSpikeTimes = 10;
+
+    /// <summary>Which signal feeds which stage; repeated in the manifest because it decides the Type A uncertainty.</summary>
+    public const string SignalUse =
+        "window mean and Type A uncertainty: gap-bridged, de-spiked, unfiltered samples (a low-pass narrows the scatter and would understate the uncertainty); " +
+        "notch and low-pass serve only the conditioned series (calibrate --conditioned), detection and plots";
+
+    /// <summary>Writes the "conditioning" object of the conventions: the settings in force (SI).</summary>
+    public static void WriteSettings(Utf8JsonWriter json, ConditioningSpec spec)
+    {
+        ArgumentNullException.ThrowIfNull(json);
+        ArgumentNullException.ThrowIfNull(spec);
+        json.WriteStartObject("conditioning");
+        json.WriteNumber("max_bridge_s", spec.MaxBridgeS);
+        json.WriteNumber("hampel_half_window", spec.HampelHalfWindow);
+        json.WriteNumber("hampel_sigmas", spec.HampelSigmas);
+        json.WriteNumber("lowpass_order", spec.LowPassOrder);
+        NumberOrNull(json, "lowpass_cutoff_hz", spec.LowPassCutoffHz);
+        NumberOrNull(json, "mains_hz", spec.MainsHz);
+        json.WriteNumber("notch_q", spec.NotchQ);
+        json.WriteNumber("notch_harmonics", spec.NotchHarmonics);
+        json.WriteString("zero_phase_edges", ChannelConditioner.PaddingMethod);
+        json.WriteString("signal_use", SignalUse);
+        json.WriteString("fault_policy", "implausible readings, or readings at a declared rail, on a channel the boundary conditions use fail the point (exit code 3); stuck channels, flat at the window's own extreme, and faults on 'other' channels are warnings");
+        json.WriteEndObject();
+    }
+
+    /// <summary>Writes a channel's "conditioning" object: bridged and open gaps, spikes, faults; times in s since day start.</summary>
+    public static void WriteChannel(Utf8JsonWriter json, ChannelWindowStats stats, double dayStartS)
+    {
+        ArgumentNullException.ThrowIfNull(json);
+        ArgumentNullException.ThrowIfNull(stats);
+        if (stats.Conditioning is not { } c)
+        {
+            return;
+        }
+        json.WriteStartObject("conditioning");
+        WriteGaps(json, "bridged_gaps", c.BridgedGaps, dayStartS);
+        WriteGaps(json, "open_edge_gaps", c.OpenEdgeGaps, dayStartS);
+        json.WriteNumber("spikes_replaced", c.SpikeTimesS.Count);
+        json.WriteStartArray("first_spike_times_s");
+        foreach (var t in c.SpikeTimesS.Take(ListedSpikeTimes))
+        {
+            json.WriteNumberValue(t - dayStartS);
+        }
+        json.WriteEndArray();
+        json.WriteStartArray("faults");
+        foreach (var v in c.Faults)
+        {
+            json.WriteStartObject();
+            json.WriteString("kind", v.Flag.Kind.ToString().ToLowerInvariant());
+            json.WriteString("severity", v.Severity == FaultSeverity.Failure ? "failure" : "warning");
+            json.WriteNumber("samples", v.Flag.SampleCount);
+            NumberOrNull(json, "fraction", v.Flag.Fraction);
+            NumberOrNull(json, "first_time_s", v.FirstTimeS - dayStartS);
+            NumberOrNull(json, "evidence_value", v.Flag.EvidenceValue);
+            json.WriteString("evidence", v.Flag.Evidence);
+            json.WriteEndObject();
+        }
+        json.WriteEndArray();
+        json.WriteEndObject();
+    }
+
+    /// <summary>Compact summary cell of a point: "bridged B; spikes S; faults F" summed over its channels.</summary>
+    public static string SummaryCell(PointResult point)
+    {
+        ArgumentNullException.ThrowIfNull(point);
+        var channels = point.Channels.Values;
+        var bridged = channels.Sum(s => s.BridgedSamples);
+        var spikes = channels.Sum(s => s.SpikesReplaced);
+        var faults = channels.Sum(s => s.Faults.Count);
+        return string.Create(CultureInfo.InvariantCulture, $"bridged {bridged}; spikes {spikes}; faults {faults}");
+    }
+
+    private static void WriteGaps(Utf8JsonWriter json, string name, IReadOnlyList<DataGap> gaps, double dayStartS)
+    {
+        json.WriteStartArray(name);
+        foreach (var g in gaps)
+        {
+            json.WriteStartObject();
+            json.WriteNumber("start_s", g.StartS - dayStartS);
+            json.WriteNumber("end_s", g.EndS - dayStartS);
+            json.WriteNumber("missing_samples", g.MissingSamples);
+            json.WriteEndObject();
+        }
+        json.WriteEndArray();
+    }
+
+    private static void NumberOrNull(Utf8JsonWriter json, string name, double? value)
+    {
+        if (value is { } v && double.IsFinite(v))
+        {
+            json.WriteNumber(name, v);
+        }
+        else
+        {
+            json.WriteNull(name);
+        }
+    }
+}
