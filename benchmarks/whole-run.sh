@@ -9,7 +9,7 @@ hours=("${@:-0.5 1 2}"); read -r -a hours <<< "${hours[*]}"
 rate=${RATE:-200}
 data=${BENCH_DATA:-/tmp/bcprep-bench}
 mkdir -p "$data"
-dotnet build -c Release src/BcPrep.Cli benchmarks/ParseBaseline tools/SampleDay -nologo -v q >/dev/null
+for p in src/BcPrep.Cli benchmarks/ParseBaseline tools/SampleDay; do dotnet build -c Release "$p" -nologo -v q >/dev/null; done
 cli=src/BcPrep.Cli/bin/Release/net10.0/bcprep
 base=benchmarks/ParseBaseline/bin/Release/net10.0/ParseBaseline
 gen=tools/SampleDay/bin/Release/net10.0/SampleDay

@@ -29,9 +29,11 @@ public static class DayProcessor
         var stats = new Dictionary<string, Dictionary<string, ChannelWindowStats>>(StringComparer.Ordinal);
         var tareWindows = TareWindows(rig, plan.DayStartS);
         var pinned = rig.Points.Select(p => new TimeWindow(p.Id, Resolve(p.Start, plan.DayStartS), Resolve(p.End, plan.DayStartS))).ToList();
-        var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(rig, plan.DayStartS, stats, w, c, t, v, PinnedLocation(rig, w)));
+        var book = new WindowStatsBook();
+        var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v, PinnedLocation(rig, w)));
         var extent = new DayExtentSink();
         DayScan.Run(rig, plan, converters, [blocks, firstPass, extent]);
+        book.DrainInto(stats);
         var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, extent.FirstS, extent.LastS), options.AllowExpired);
 
         var series = WindowFinder.Series(rig, blocks);
@@ -49,8 +51,9 @@ public static class DayProcessor
         var detected = windowPlan.Points.Where(p => p.Origin == WindowOrigin.Detected).Select(p => p.Window).ToList();
         if (detected.Count > 0)
         {
-            var secondPass = new WindowCollector(detected, (w, c, t, v) => Collect(rig, plan.DayStartS, stats, w, c, t, v));
+            var secondPass = new WindowCollector(detected, (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v));
             DayScan.Run(rig, plan, converters, [secondPass]);
+            book.DrainInto(stats);
         }
         var dayWarnings = new List<string>();
         if (detection is { Accepted.Count: 0 })
@@ -79,17 +82,12 @@ public static class DayProcessor
             .Select(c => new TimeWindow("tare:" + c.Id, Resolve(c.Tare!.Start, dayStartS), Resolve(c.Tare.End, dayStartS)))
             .ToList();
 
-    private static void Collect(RigDescription rig, double dayStartS, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats, TimeWindow window, string channel, double[] times, double[] values,
+    private static void Collect(RigDescription rig, double dayStartS, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,
         SourceLocation? pinnedAt = null)
     {
         if (window.Id.StartsWith("tare:", StringComparison.Ordinal) && window.Id != "tare:" + channel)
         {
             return;
-        }
-        if (!stats.TryGetValue(window.Id, out var byChannel))
-        {
-            byChannel = new Dictionary<string, ChannelWindowStats>(StringComparer.Ordinal);
-            stats[window.Id] = byChannel;
         }
         if (times.Length == 0)
         {
@@ -99,19 +97,22 @@ public static class DayProcessor
         }
         if (pinnedAt is null)
         {
-            byChannel[channel] = FaultPolicy.Evaluate(rig, channel, window, times, values, dayStartS);
+            book.Add(window.Id, channel, () => FaultPolicy.Evaluate(rig, channel, window, times, values, dayStartS));
             return;
         }
         WindowCoverage.Require(window, channel, times, rig.Conditioning.MaxBridgeS, pinnedAt);
-        try
+        book.Add(window.Id, channel, () =>
         {
-            byChannel[channel] = FaultPolicy.Evaluate(rig, channel, window, times, values, dayStartS);
-        }
-        catch (BcPrepFailure failure)
-        {
-            // Point the reader at the window in the rig file as well as at the channel.
-            throw new BcPrepFailure(failure.Kind, failure.Problems.Select(p => p with { Location = pinnedAt with { Key = $"{pinnedAt.Key}, channel '{channel}'" } }).ToList());
-        }
+            try
+            {
+                return FaultPolicy.Evaluate(rig, channel, window, times, values, dayStartS);
+            }
+            catch (BcPrepFailure failure)
+            {
+                // Point the reader at the window in the rig file as well as at the channel.
+                throw new BcPrepFailure(failure.Kind, failure.Problems.Select(p => p with { Location = pinnedAt with { Key = $"{pinnedAt.Key}, channel '{channel}'" } }).ToList());
+            }
+        });
     }
 
     /// <summary>Where a window pinned in the rig file (operating point or tare) is written; null for a detected one.</summary>

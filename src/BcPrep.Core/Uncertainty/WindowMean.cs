@@ -45,10 +45,10 @@ public static class WindowMean
             return new WindowMeanResult(mean, 0.0, n, 0, true, 1.0, 1.0, n, 0.0, n - 1.0, n - 1.0, double.PositiveInfinity, 0.0, true, options.Cutoff);
         }
 
-        var rho = Correlation.Auto(samples, 0, n - 1);
+        var rho = new LazyAutocorrelation(samples, mean);
         var (cutoff, gammaRaw, converged) = options.Cutoff == AutocorrelationCutoff.SokalWindow
-            ? SokalWindow(rho, n, options.SokalFactor)
-            : BartlettBand(rho, n);
+            ? SokalWindow(k => rho[k], rho.Length, n, options.SokalFactor)
+            : BartlettBand(k => rho[k], rho.Length, n);
         var gamma = Math.Max(gammaRaw, 1.0);
         var nEff = n / gamma;
         if (nEff < 2.0)
@@ -99,38 +99,45 @@ public static class WindowMean
     }
 
     /// <summary>Smallest M with M ≥ c·γ̂(M); returns (M, γ̂(M), converged).</summary>
-    internal static (int Cutoff, double Gamma, bool Converged) SokalWindow(double[] rho, int n, double c)
+    internal static (int Cutoff, double Gamma, bool Converged) SokalWindow(double[] rho, int n, double c) =>
+        SokalWindow(k => rho[k], rho.Length, n, c);
+
+    private static (int Cutoff, double Gamma, bool Converged) SokalWindow(Func<int, double> rho, int length, int n, double c)
     {
         var gamma = 1.0;
-        for (var k = 1; k < rho.Length; k++)
+        for (var k = 1; k < length; k++)
         {
-            gamma += 2.0 * (1.0 - (double)k / n) * rho[k];
+            gamma += 2.0 * (1.0 - (double)k / n) * rho(k);
             if (k >= c * gamma)
             {
                 return (k, gamma, true);
             }
         }
 
-        return (rho.Length - 1, gamma, false);
+        return (length - 1, gamma, false);
     }
 
     /// <summary>Sum up to the last lag before the first ρ̂(k) inside the Bartlett band; returns (m, γ̂, true).</summary>
-    internal static (int Cutoff, double Gamma, bool Converged) BartlettBand(double[] rho, int n)
+    internal static (int Cutoff, double Gamma, bool Converged) BartlettBand(double[] rho, int n) =>
+        BartlettBand(k => rho[k], rho.Length, n);
+
+    private static (int Cutoff, double Gamma, bool Converged) BartlettBand(Func<int, double> rho, int length, int n)
     {
         var gamma = 1.0;
         var sumSquares = 0.0;
-        for (var k = 1; k < rho.Length; k++)
+        for (var k = 1; k < length; k++)
         {
+            var r = rho(k);
             var band = 2.0 * Math.Sqrt((1.0 + 2.0 * sumSquares) / n);
-            if (Math.Abs(rho[k]) <= band)
+            if (Math.Abs(r) <= band)
             {
                 return (k - 1, gamma, true);
             }
 
-            gamma += 2.0 * (1.0 - (double)k / n) * rho[k];
-            sumSquares += rho[k] * rho[k];
+            gamma += 2.0 * (1.0 - (double)k / n) * r;
+            sumSquares += r * r;
         }
 
-        return (rho.Length - 1, gamma, true);
+        return (length - 1, gamma, true);
     }
 }

@@ -1,0 +1,43 @@
+using System.Runtime.ExceptionServices;
+
+namespace BcPrep.Pipeline;
+
+/// <summary>
+/// Reduces window samples to statistics on the thread pool while the scan goes on reading, so that a day's
+/// windows use both cores. Results are gathered in the order the windows were handed in, and the first failure
+/// in that order is the one reported, so runs stay deterministic whatever the scheduling.
+/// </summary>
+internal sealed class WindowStatsBook
+{
+    private readonly List<(string Window, string Channel, Task<ChannelWindowStats> Work)> _pending = [];
+
+    public void Add(string window, string channel, Func<ChannelWindowStats> evaluate) =>
+        _pending.Add((window, channel, Task.Run(evaluate)));
+
+    /// <summary>Waits for every window handed in so far and files the results into <paramref name="into"/>.</summary>
+    public void DrainInto(Dictionary<string, Dictionary<string, ChannelWindowStats>> into)
+    {
+        try
+        {
+            Task.WaitAll([.. _pending.Select(p => p.Work)]);
+        }
+        catch (AggregateException)
+        {
+            // Rethrown below in hand-in order, unwrapped.
+        }
+        foreach (var (window, channel, work) in _pending)
+        {
+            if (work.IsFaulted)
+            {
+                ExceptionDispatchInfo.Capture(work.Exception!.InnerException!).Throw();
+            }
+            if (!into.TryGetValue(window, out var byChannel))
+            {
+                byChannel = new Dictionary<string, ChannelWindowStats>(StringComparer.Ordinal);
+                into[window] = byChannel;
+            }
+            byChannel[channel] = work.Result;
+        }
+        _pending.Clear();
+    }
+}

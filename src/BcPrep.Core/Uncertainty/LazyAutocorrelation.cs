@@ -1,0 +1,92 @@
+using System.Numerics;
+using MathNet.Numerics.Statistics;
+
+namespace BcPrep.Uncertainty;
+
+/// <summary>
+/// The biased sample autocorrelation ρ̂(k) = Σᵢ dᵢ dᵢ₊ₖ / Σᵢ dᵢ² (d = x − mean; the estimator of MathNet's
+/// Correlation.Auto), computed only as far as it is read. The Sokal and Bartlett cut-offs stop after a few times
+/// the correlation time, usually tens of lags, so direct sums over those lags cost far less than an FFT of the
+/// whole window; when many lags are needed it falls back to the FFT once.
+/// </summary>
+internal sealed class LazyAutocorrelation
+{
+    /// <summary>Beyond this many lags a full FFT is cheaper than direct sums (each lag costs n multiply-adds).</summary>
+    internal const int DirectLagLimit = 256;
+
+    private readonly double[] _samples;
+    private readonly double[] _deviations;
+    private readonly double _sumOfSquares;
+    private double[] _rho;
+    private int _known;
+
+    public LazyAutocorrelation(double[] samples, double mean)
+    {
+        _samples = samples;
+        _deviations = new double[samples.Length];
+        var ss = 0.0;
+        for (var i = 0; i < samples.Length; i++)
+        {
+            var d = samples[i] - mean;
+            _deviations[i] = d;
+            ss += d * d;
+        }
+        _sumOfSquares = ss;
+        _rho = new double[Math.Min(samples.Length, 64)];
+        _rho[0] = 1.0;
+        _known = 1;
+    }
+
+    public int Length => _samples.Length;
+
+    public double this[int lag]
+    {
+        get
+        {
+            if (lag >= _known)
+            {
+                Extend(lag);
+            }
+            return _rho[lag];
+        }
+    }
+
+    private void Extend(int lag)
+    {
+        var target = Math.Min(Length, Math.Max(lag + 1, 2 * _known));
+        if (target > DirectLagLimit)
+        {
+            _rho = Correlation.Auto(_samples, 0, Length - 1);
+            _known = Length;
+            return;
+        }
+        if (_rho.Length < target)
+        {
+            Array.Resize(ref _rho, target);
+        }
+        for (var k = _known; k < target; k++)
+        {
+            _rho[k] = LaggedProduct(_deviations, k) / _sumOfSquares;
+        }
+        _known = target;
+    }
+
+    private static double LaggedProduct(double[] d, int lag)
+    {
+        var a = d.AsSpan(0, d.Length - lag);
+        var b = d.AsSpan(lag);
+        var width = Vector<double>.Count;
+        var acc = Vector<double>.Zero;
+        var i = 0;
+        for (; i <= a.Length - width; i += width)
+        {
+            acc += new Vector<double>(a.Slice(i, width)) * new Vector<double>(b.Slice(i, width));
+        }
+        var sum = Vector.Sum(acc);
+        for (; i < a.Length; i++)
+        {
+            sum += a[i] * b[i];
+        }
+        return sum;
+    }
+}
