@@ -17,7 +17,7 @@ public static class ChannelConversion
             {
                 var type = ThermocoupleTypeOf(tc);
                 var rawToSi = tc.RawToSi;
-                return (raw, coldJunctionK) => ColdJunction.HotJunctionTemperatureK(type, rawToSi.Apply(raw), coldJunctionK);
+                return (raw, referenceEmfV) => Its90Thermocouple.TemperatureK(type, rawToSi.Apply(raw) + referenceEmfV);
             }
             case RtdSensor rtd:
             {

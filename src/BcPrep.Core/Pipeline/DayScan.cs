@@ -1,5 +1,6 @@
 using System.Collections.Concurrent;
 using System.Globalization;
+using BcPrep.Calibration;
 using BcPrep.Reading;
 using BcPrep.Rig;
 
@@ -134,13 +135,16 @@ public static class DayScan
     private static void ConvertBlock(LogInput file, LogBlock block, LoggerFiles logger, IReadOnlyList<ChannelSpec> channels,
         IReadOnlyDictionary<string, SampleConverter> converters, Dictionary<string, double[]> si)
     {
+        var referenceEmf = new Dictionary<(string, ThermocoupleType), double[]>();
         foreach (var channel in channels)
         {
             var raw = block.Columns[IndexOf(logger, channel)];
             var output = si[channel.Id];
             var convert = converters[channel.Id];
-            var coldJunction = channel.Sensor is ThermocoupleSensor { ColdJunctionChannel: { } cj } ? si[cj] : null;
-            var fixedCj = channel.Sensor is ThermocoupleSensor { ColdJunctionK: { } k } ? k : double.NaN;
+            var reference = ReferenceJunctionEmf(file, block, channel, si, referenceEmf);
+            var fixedReference = channel.Sensor is ThermocoupleSensor { ColdJunctionK: { } k } tc
+                ? Its90Thermocouple.EmfV(ChannelConversion.ThermocoupleTypeOf(tc), k)
+                : 0.0;
             for (var i = 0; i < block.Count; i++)
             {
                 var x = raw[i];
@@ -151,7 +155,7 @@ public static class DayScan
                 }
                 try
                 {
-                    output[i] = convert(x, coldJunction is null ? fixedCj : coldJunction[i]);
+                    output[i] = convert(x, reference is null ? fixedReference : reference[i]);
                 }
                 catch (BcPrepDataException e) when (e is not BcPrepFailure)
                 {
@@ -160,6 +164,41 @@ public static class DayScan
                 }
             }
         }
+    }
+
+    /// <summary>
+    /// E(T_cj) of each row for a thermocouple served by a cold-junction channel, computed once per block and per
+    /// (junction, type) pair: the direct function (with type K's exponential term) is the costly part of a
+    /// conversion, and several thermocouples usually share one junction.
+    /// </summary>
+    private static double[]? ReferenceJunctionEmf(LogInput file, LogBlock block, ChannelSpec channel, Dictionary<string, double[]> si,
+        Dictionary<(string, ThermocoupleType), double[]> cache)
+    {
+        if (channel.Sensor is not ThermocoupleSensor { ColdJunctionChannel: { } junction } tc)
+        {
+            return null;
+        }
+        var type = ChannelConversion.ThermocoupleTypeOf(tc);
+        if (cache.TryGetValue((junction, type), out var emf))
+        {
+            return emf;
+        }
+        var junctionK = si[junction];
+        emf = new double[block.Count];
+        for (var i = 0; i < block.Count; i++)
+        {
+            try
+            {
+                emf[i] = double.IsNaN(junctionK[i]) ? double.NaN : Its90Thermocouple.EmfV(type, junctionK[i]);
+            }
+            catch (BcPrepDataException e) when (e is not BcPrepFailure)
+            {
+                throw new BcPrepFailure(FailureKind.InputData, new SourceLocation(file.DisplayName, (int)block.LineNumbers[i], null, channel.Column),
+                    $"cold junction '{junction}' of channel '{channel.Id}' at t = {Fmt(block.TimeS[i])} s reads {Fmt(junctionK[i])} K: {e.Message}");
+            }
+        }
+        cache[(junction, type)] = emf;
+        return emf;
     }
 
     private static int IndexOf(LoggerFiles logger, ChannelSpec channel)

@@ -45,6 +45,10 @@ public sealed class WindowCollector : IChannelSink
                 }
                 if (t <= window.EndS)
                 {
+                    if (state.Times[w].Count == 0)
+                    {
+                        Reserve(state, w, window, timeS, i);
+                    }
                     state.Times[w].Add(t);
                     state.Values[w].Add(valueSi[i]);
                 }
@@ -71,6 +75,23 @@ public sealed class WindowCollector : IChannelSink
         {
             Flush(channel, state, w);
         }
+    }
+
+    /// <summary>
+    /// Sizes a window's lists from the sample interval seen at its first sample, so a long window at a high rate is
+    /// not grown by doubling and copying (which would hold up to three copies of it at once).
+    /// </summary>
+    private static void Reserve(ChannelState state, int w, TimeWindow window, ReadOnlySpan<double> timeS, int i)
+    {
+        var interval = i + 1 < timeS.Length ? timeS[i + 1] - timeS[i] : i > 0 ? timeS[i] - timeS[i - 1] : 0.0;
+        if (!(interval > 0))
+        {
+            return;
+        }
+        var expected = ((window.EndS - timeS[i]) / interval * 1.02) + 16;
+        var capacity = (int)Math.Min(expected, 256_000_000);
+        state.Times[w].Capacity = capacity;
+        state.Values[w].Capacity = capacity;
     }
 
     private void Flush(string channel, ChannelState state, int w)
