@@ -52,7 +52,9 @@ public static class ProcessCommand
             {
                 day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)) { AllowExpired = allowed, Matrix = plan });
                 files = DayOutputs.Build(day, provenance, facePoints, ReportOption.Files(parse.GetValue(report), day, diagnostics));
+                var superseded = ReportOption.Superseded(outDir, files.Files.Select(f => f.RelativePath));
                 files.Commit(outDir);
+                ReportOption.RemoveSuperseded(outDir, superseded);
             }
             foreach (var warning in day.Warnings.Concat(day.Calibration?.Warnings ?? []).Concat(day.Matrix?.Warnings ?? []))
             {
