@@ -18,10 +18,11 @@ public static class ProcessCommand
         var seed = new Option<int>("--seed") { Description = "Seed of the Monte Carlo trials.", DefaultValueFactory = _ => 1 };
         var allowExpired = LabOptions.AllowExpired();
         var matrix = LabOptions.Matrix();
+        var report = ReportOption.Create();
         var command = new Command("process", "Reduce a test day to boundary conditions with uncertainties, one folder per operating point.\n" +
                                              "Example: bcprep process sample-logs/marten-rig.toml sample-logs/marten-2026-11-24-*.csv --out out")
         {
-            rig, logs, output, force, monteCarlo, seed, allowExpired, matrix,
+            rig, logs, output, force, monteCarlo, seed, allowExpired, matrix, report,
         };
         command.SetAction(parse =>
         {
@@ -33,7 +34,7 @@ public static class ProcessCommand
             var allowed = parse.GetValue(allowExpired) ?? [];
             var provenance = new RunProvenance(BcPrepApp.Version, LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!), inputs.Fingerprints())
             {
-                Choices = allowed.Select(a => "allow-expired=" + a).ToList(),
+                Choices = allowed.Select(a => "allow-expired=" + a).Concat(ReportOption.Choices(parse.GetValue(report))).ToList(),
                 Matrix = parse.GetValue(matrix) is { } matrixPath ? LogArguments.Fingerprint(matrixPath, matrixPath) : null,
             };
             var facePoints = FacePoints.Read(description, parse.GetValue(rig)!);
@@ -50,8 +51,10 @@ public static class ProcessCommand
             using (ProgressIndicator.Start(context, diagnostics.Verbosity, "processing", provenance.Logs.Sum(l => l.Bytes)))
             {
                 day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)) { AllowExpired = allowed, Matrix = plan });
-                files = DayOutputs.Build(day, provenance, facePoints);
+                files = DayOutputs.Build(day, provenance, facePoints, ReportOption.Files(parse.GetValue(report), day, diagnostics));
+                var superseded = ReportOption.Superseded(outDir, files.Files.Select(f => f.RelativePath));
                 files.Commit(outDir);
+                ReportOption.RemoveSuperseded(outDir, superseded);
             }
             foreach (var warning in day.Warnings.Concat(day.Calibration?.Warnings ?? []).Concat(day.Matrix?.Warnings ?? []))
             {

@@ -7,8 +7,13 @@ public static class DayOutputs
 {
     public const string ManifestName = "manifest.json";
 
-    /// <summary>Every output file; <c>facePointsM</c> are the inlet-face points (m) the caller read from the file of <c>[inlet_profile.face]</c> (null: no face file).</summary>
-    public static OutputFileSet Build(DayResult day, RunProvenance provenance, IReadOnlyList<Profiles.Point3>? facePointsM = null)
+    /// <summary>
+    /// Every output file; <c>facePointsM</c> are the inlet-face points (m) the caller read from the file of
+    /// <c>[inlet_profile.face]</c> (null: no face file). <c>extraFiles</c> (e.g. the report's figures and page, built
+    /// outside Core) join the same commit, so the manifest lists and hashes them like every other output.
+    /// </summary>
+    public static OutputFileSet Build(DayResult day, RunProvenance provenance, IReadOnlyList<Profiles.Point3>? facePointsM = null,
+        IEnumerable<(string RelativePath, byte[] Content)>? extraFiles = null)
     {
         var files = new OutputFileSet();
         files.Add("summary.csv", BoundaryTables.Summary(day).ToString());
@@ -24,6 +29,10 @@ public static class DayOutputs
             {
                 files.Add(folder + "inlet-face.csv", InletFaceTable.Build(point, face, facePointsM).ToString());
             }
+        }
+        foreach (var (path, content) in extraFiles ?? [])
+        {
+            files.Add(path, content);
         }
         var names = files.Files.Select(f => f.RelativePath).Append(ManifestName).ToList();
         files.Add(ManifestName, ManifestWriter.Write(day, provenance, names, files.Hashes()));

@@ -1,0 +1,61 @@
+using System.Diagnostics;
+
+namespace BcPrep.Tests.Report;
+
+/// <summary>
+/// Headless Chromium for the page test. Missing Chromium fails the test, never skips it: in CI (variable CI set) it
+/// should have been installed by .ci/install; elsewhere the message says how to install it.
+/// </summary>
+internal static class HeadlessBrowser
+{
+    private static readonly string[] Names = ["chromium", "chromium-browser"];
+
+    public static string Find()
+    {
+        foreach (var directory in (Environment.GetEnvironmentVariable("PATH") ?? "").Split(Path.PathSeparator, StringSplitOptions.RemoveEmptyEntries))
+        {
+            foreach (var name in Names)
+            {
+                var candidate = Path.Combine(directory, name);
+                if (File.Exists(candidate))
+                {
+                    return candidate;
+                }
+            }
+        }
+        var message = Environment.GetEnvironmentVariable("CI") is { Length: > 0 }
+            ? "chromium is not on PATH in CI: .ci/install should have installed it (apt-get install chromium)"
+            : "chromium is not on PATH: install it (Debian/Ubuntu: sudo apt-get install chromium) to run the report page test";
+        Assert.Fail(message);
+        return "";
+    }
+
+    /// <summary>Loads <paramref name="pagePath"/> with no network access of its own and returns the DOM after the page's load event.</summary>
+    public static string DumpDom(string pagePath, string profileFolder)
+    {
+        var start = new ProcessStartInfo(Find())
+        {
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            UseShellExecute = false,
+        };
+        foreach (var argument in (string[])[
+                     "--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update",
+                     "--disable-sync", "--no-first-run", "--user-data-dir=" + profileFolder, "--virtual-time-budget=10000",
+                     "--dump-dom", new Uri(pagePath).AbsoluteUri,
+                 ])
+        {
+            start.ArgumentList.Add(argument);
+        }
+        using var process = Process.Start(start)!;
+        var error = process.StandardError.ReadToEndAsync();
+        var output = process.StandardOutput.ReadToEndAsync();
+        if (!process.WaitForExit(TimeSpan.FromMinutes(2)))
+        {
+            process.Kill(entireProcessTree: true);
+            Assert.Fail("chromium did not finish within 2 minutes");
+        }
+        Assert.True(process.ExitCode == 0, $"chromium exited with {process.ExitCode}: {error.Result}");
+        return output.Result;
+    }
+}
