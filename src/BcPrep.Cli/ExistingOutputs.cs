@@ -26,6 +26,30 @@ public static class ExistingOutputs
         }
     }
 
+    /// <summary>
+    /// A cheap first test: false when the folder cannot be up to date whatever the logs hash to (no manifest, or
+    /// its logs have other sizes). Only when it is true are the logs hashed before the run; otherwise hashing
+    /// overlaps the processing.
+    /// </summary>
+    public static bool MayBeUpToDate(string outputDirectory, IEnumerable<long> logBytes)
+    {
+        try
+        {
+            var manifest = Path.Combine(outputDirectory, DayOutputs.ManifestName);
+            if (!File.Exists(manifest))
+            {
+                return false;
+            }
+            using var document = JsonDocument.Parse(File.ReadAllBytes(manifest));
+            var recorded = document.RootElement.GetProperty("logs").EnumerateArray().Select(l => l.GetProperty("bytes").GetInt64()).Order();
+            return recorded.SequenceEqual(logBytes.Order());
+        }
+        catch (Exception e) when (e is JsonException or IOException or UnauthorizedAccessException or InvalidOperationException or KeyNotFoundException or FormatException)
+        {
+            return false;
+        }
+    }
+
     public static bool IsUpToDate(string outputDirectory, string runKey)
     {
         var manifest = Path.Combine(outputDirectory, DayOutputs.ManifestName);

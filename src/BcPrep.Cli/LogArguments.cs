@@ -49,6 +49,9 @@ public sealed class LogArguments : IDisposable
 
     public IReadOnlyList<InputFingerprint> Fingerprints() => Inputs.Select(i => Fingerprint(i.DisplayName, i.Path)).ToList();
 
+    /// <summary>Byte sizes of the logs (0 for one that cannot be read: the reading stage reports it properly).</summary>
+    public IEnumerable<long> Sizes() => Inputs.Select(i => File.Exists(i.Path) ? new FileInfo(i.Path).Length : 0L);
+
     public void Dispose()
     {
         foreach (var path in _temporary)

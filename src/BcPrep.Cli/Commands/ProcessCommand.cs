@@ -32,14 +32,18 @@ public static class ProcessCommand
             var outDir = parse.GetValue(output)!;
             var plan = parse.GetValue(matrix) is { } path ? LabOptions.LoadMatrix(path, description) : null;
             var allowed = parse.GetValue(allowExpired) ?? [];
-            var provenance = new RunProvenance(BcPrepApp.Version, LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!), inputs.Fingerprints())
+            var rigFingerprint = LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!);
+            RunProvenance Provenance(IReadOnlyList<InputFingerprint> logFingerprints) => new(BcPrepApp.Version, rigFingerprint, logFingerprints)
             {
                 Choices = allowed.Select(a => "allow-expired=" + a).Concat(ReportOption.Choices(parse.GetValue(report))).ToList(),
                 Matrix = parse.GetValue(matrix) is { } matrixPath ? LogArguments.Fingerprint(matrixPath, matrixPath) : null,
             };
             var facePoints = FacePoints.Read(description, parse.GetValue(rig)!);
             // The face points file is not among the hashed inputs, so a configured face always recomputes.
-            if (!parse.GetValue(force) && facePoints is null && ExistingOutputs.IsUpToDate(outDir, provenance.Key))
+            var mayBeUpToDate = !parse.GetValue(force) && facePoints is null && ExistingOutputs.MayBeUpToDate(outDir, inputs.Sizes());
+            // Hashing a multi-GB day is a full read: when the outputs cannot be up to date it runs beside the processing.
+            var hashing = mayBeUpToDate ? Task.FromResult(inputs.Fingerprints()) : Task.Run(inputs.Fingerprints);
+            if (mayBeUpToDate && ExistingOutputs.IsUpToDate(outDir, Provenance(hashing.Result).Key))
             {
                 OutputFileSet.RemoveStalePartials(outDir, ExistingOutputs.ListedFiles(outDir));
                 diagnostics.Info($"{outDir}: up to date (inputs, rig file and tool version unchanged); nothing to do. Use --force to recompute.");
@@ -48,9 +52,10 @@ public static class ProcessCommand
             diagnostics.Detail($"reading {inputs.Inputs.Count} log file(s)");
             OutputFileSet files;
             DayResult day;
-            using (ProgressIndicator.Start(context, diagnostics.Verbosity, "processing", provenance.Logs.Sum(l => l.Bytes)))
+            using (ProgressIndicator.Start(context, diagnostics.Verbosity, "processing", inputs.Sizes().Sum()))
             {
                 day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)) { AllowExpired = allowed, Matrix = plan });
+                var provenance = Provenance(hashing.GetAwaiter().GetResult());
                 files = DayOutputs.Build(day, provenance, facePoints, ReportOption.Files(parse.GetValue(report), day, diagnostics));
                 var superseded = ReportOption.Superseded(outDir, files.Files.Select(f => f.RelativePath));
                 files.Commit(outDir);
