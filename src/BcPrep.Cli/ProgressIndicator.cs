@@ -36,7 +36,12 @@ public sealed class ProgressIndicator : IDisposable
         if (IsWanted(context.ErrorIsTerminal, verbosity))
         {
             _error = context.Error;
-            _timer = new Timer(_ => Draw(), null, _delay, period);
+            if (_delay == TimeSpan.Zero)
+            {
+                // Work known to be long shows its line at once, not when a busy thread pool gets to the timer.
+                Draw();
+            }
+            _timer = new Timer(_ => Draw(), null, _delay == TimeSpan.Zero ? period : _delay, period);
         }
     }
 

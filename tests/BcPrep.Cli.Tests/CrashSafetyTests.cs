@@ -21,12 +21,12 @@ public sealed class CrashSafetyTests(ITestOutputHelper output)
         var outDir = temp.File("out");
         Assert.Equal(0, CliRunner.Run(SampleDay.ProcessArgs(outDir)).ExitCode);
         var before = SampleDay.Snapshot(outDir);
-        var large = LargeDay(temp, copies: 12);
+        var large = LargeDay(temp, copies: 40);
 
         using var process = Process.Start(BuiltBinary.StartInfo(["process", SampleDay.Rig, .. large, "--out", outDir, "--verbose"]))!;
         var started = await process.StandardError.ReadLineAsync().WaitAsync(TimeSpan.FromSeconds(60));
         Assert.Contains("reading", started, StringComparison.Ordinal);
-        await Task.Delay(300);
+        await Task.Delay(50);
         Assert.False(process.HasExited, "the run finished before it could be interrupted; make the day larger");
         process.Kill(entireProcessTree: true);
         process.WaitForExit();

@@ -27,21 +27,36 @@ public sealed class BlockMeanSink : IChannelSink
             acc = ([], []);
             _channels[channel] = acc;
         }
-        for (var i = 0; i < timeS.Length; i++)
+        // Times increase, so samples come in runs that share a block: sum each run locally and touch the lists
+        // once per run rather than once per sample.
+        var i = 0;
+        while (i < timeS.Length)
         {
-            var v = valueSi[i];
-            if (double.IsNaN(v))
+            var index = (int)Math.Floor((timeS[i] - _originS) / _blockS);
+            var blockEndS = _originS + ((index + 1) * _blockS);
+            var sum = 0.0;
+            var count = 0;
+            // The run's first sample always belongs to it, even where rounding puts it on the block's end.
+            for (var first = true; i < timeS.Length && (first || timeS[i] < blockEndS); i++, first = false)
+            {
+                var v = valueSi[i];
+                if (!double.IsNaN(v))
+                {
+                    sum += v;
+                    count++;
+                }
+            }
+            if (count == 0)
             {
                 continue;
             }
-            var index = (int)Math.Floor((timeS[i] - _originS) / _blockS);
             while (acc.Sum.Count <= index)
             {
                 acc.Sum.Add(0.0);
                 acc.Count.Add(0);
             }
-            acc.Sum[index] += v;
-            acc.Count[index]++;
+            acc.Sum[index] += sum;
+            acc.Count[index] += count;
         }
     }
 
