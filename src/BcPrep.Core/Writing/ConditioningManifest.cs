@@ -27,8 +27,8 @@ public static class ConditioningManifest
         json.WriteNumber("hampel_half_window", spec.HampelHalfWindow);
         json.WriteNumber("hampel_sigmas", spec.HampelSigmas);
         json.WriteNumber("lowpass_order", spec.LowPassOrder);
-        NumberOrNull(json, "lowpass_cutoff_hz", spec.LowPassCutoffHz);
-        NumberOrNull(json, "mains_hz", spec.MainsHz);
+        JsonFields.Number(json, "lowpass_cutoff_hz", spec.LowPassCutoffHz);
+        JsonFields.Number(json, "mains_hz", spec.MainsHz);
         json.WriteNumber("notch_q", spec.NotchQ);
         json.WriteNumber("notch_harmonics", spec.NotchHarmonics);
         json.WriteString("zero_phase_edges", ChannelConditioner.PaddingMethod);
@@ -63,9 +63,9 @@ public static class ConditioningManifest
             json.WriteString("kind", v.Flag.Kind.ToString().ToLowerInvariant());
             json.WriteString("severity", v.Severity == FaultSeverity.Failure ? "failure" : "warning");
             json.WriteNumber("samples", v.Flag.SampleCount);
-            NumberOrNull(json, "fraction", v.Flag.Fraction);
-            NumberOrNull(json, "first_time_s", v.FirstTimeS - dayStartS);
-            NumberOrNull(json, "evidence_value", v.Flag.EvidenceValue);
+            JsonFields.Number(json, "fraction", v.Flag.Fraction);
+            JsonFields.Number(json, "first_time_s", v.FirstTimeS - dayStartS);
+            JsonFields.Number(json, "evidence_value", v.Flag.EvidenceValue);
             json.WriteString("evidence", v.Flag.Evidence);
             json.WriteEndObject();
         }
@@ -96,17 +96,5 @@ public static class ConditioningManifest
             json.WriteEndObject();
         }
         json.WriteEndArray();
-    }
-
-    private static void NumberOrNull(Utf8JsonWriter json, string name, double? value)
-    {
-        if (value is { } v && double.IsFinite(v))
-        {
-            json.WriteNumber(name, v);
-        }
-        else
-        {
-            json.WriteNull(name);
-        }
     }
 }

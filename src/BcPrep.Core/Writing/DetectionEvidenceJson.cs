@@ -25,23 +25,23 @@ public static class DetectionEvidenceJson
         var settings = WindowFinder.Settings(steady);
         json.WriteStartObject("detection");
         json.WriteStartObject("settings");
-        Number(json, "block_s", steady.BlockS);
-        Number(json, "window_s", settings.WindowS);
-        Number(json, "step_s", settings.StepS);
-        Number(json, "min_duration_s", settings.MinStretchS);
-        Number(json, "settled_tail_s", settings.TailS);
-        Number(json, "drift_coverage_factor", settings.DriftCoverageFactor);
+        JsonFields.Number(json, "block_s", steady.BlockS);
+        JsonFields.Number(json, "window_s", settings.WindowS);
+        JsonFields.Number(json, "step_s", settings.StepS);
+        JsonFields.Number(json, "min_duration_s", settings.MinStretchS);
+        JsonFields.Number(json, "settled_tail_s", settings.TailS);
+        JsonFields.Number(json, "drift_coverage_factor", settings.DriftCoverageFactor);
         json.WriteString("required_methods", WindowTable.Methods(settings.RequiredMethods));
         json.WriteStartArray("keys");
         foreach (var key in steady.Keys)
         {
             json.WriteStartObject();
             json.WriteString("channel", key.Channel);
-            Number(json, "max_change", key.MaxChangeSi);
-            Number(json, "drift_limit_per_s", key.MaxChangeSi / steady.WindowS);
-            Number(json, "max_scatter", key.MaxScatterSi);
-            Number(json, "step", key.StepSi);
-            Number(json, "min", key.MinimumSi ?? double.NaN);
+            JsonFields.Number(json, "max_change", key.MaxChangeSi);
+            JsonFields.Number(json, "drift_limit_per_s", key.MaxChangeSi / steady.WindowS);
+            JsonFields.Number(json, "max_scatter", key.MaxScatterSi);
+            JsonFields.Number(json, "step", key.StepSi);
+            JsonFields.Number(json, "min", key.MinimumSi ?? double.NaN);
             json.WriteEndObject();
         }
         json.WriteEndArray();
@@ -51,10 +51,10 @@ public static class DetectionEvidenceJson
         foreach (var r in detection.Rejected)
         {
             json.WriteStartObject();
-            Number(json, "start_s", r.StartS);
-            Number(json, "end_s", r.EndS);
-            Number(json, "evaluated_start_s", r.EvaluatedStartS);
-            Number(json, "evaluated_end_s", r.EvaluatedEndS);
+            JsonFields.Number(json, "start_s", r.StartS);
+            JsonFields.Number(json, "end_s", r.EndS);
+            JsonFields.Number(json, "evaluated_start_s", r.EvaluatedStartS);
+            JsonFields.Number(json, "evaluated_end_s", r.EvaluatedEndS);
             json.WriteString("reason", r.Reason);
             WriteChannels(json, r.Channels);
             json.WriteEndObject();
@@ -92,10 +92,10 @@ public static class DetectionEvidenceJson
         {
             json.WriteStartObject();
             json.WriteString("accepted_by", WindowTable.Methods(w.AcceptedBy));
-            Number(json, "start_s", w.StartS);
-            Number(json, "end_s", w.EndS);
-            Number(json, "stretch_start_s", w.StretchStartS);
-            Number(json, "stretch_end_s", w.StretchEndS);
+            JsonFields.Number(json, "start_s", w.StartS);
+            JsonFields.Number(json, "end_s", w.EndS);
+            JsonFields.Number(json, "stretch_start_s", w.StretchStartS);
+            JsonFields.Number(json, "stretch_end_s", w.StretchEndS);
             WriteChannels(json, w.Channels);
             json.WriteEndObject();
         }
@@ -110,23 +110,23 @@ public static class DetectionEvidenceJson
         {
             json.WriteStartObject();
             json.WriteString("id", c.Channel);
-            Number(json, "mean", c.Mean);
-            Number(json, "slope_per_s", c.SlopePerS);
-            Number(json, "slope_standard_uncertainty_per_s", c.SlopeUncertaintyPerS);
-            Number(json, "residual_ar1", c.ResidualAr1);
-            Number(json, "drift_limit_per_s", c.DriftLimitPerS);
-            Number(json, "standard_deviation", c.StandardDeviation);
-            Number(json, "scatter_limit", c.ScatterLimit);
-            Number(json, "r", c.R);
-            Number(json, "r_critical", c.RCritical);
-            Number(json, "mser_truncation_s", c.MserTruncationS);
+            JsonFields.Number(json, "mean", c.Mean);
+            JsonFields.Number(json, "slope_per_s", c.SlopePerS);
+            JsonFields.Number(json, "slope_standard_uncertainty_per_s", c.SlopeUncertaintyPerS);
+            JsonFields.Number(json, "residual_ar1", c.ResidualAr1);
+            JsonFields.Number(json, "drift_limit_per_s", c.DriftLimitPerS);
+            JsonFields.Number(json, "standard_deviation", c.StandardDeviation);
+            JsonFields.Number(json, "scatter_limit", c.ScatterLimit);
+            JsonFields.Number(json, "r", c.R);
+            JsonFields.Number(json, "r_critical", c.RCritical);
+            JsonFields.Number(json, "mser_truncation_s", c.MserTruncationS);
             json.WriteStartArray("failed");
             foreach (var f in c.Failures)
             {
                 json.WriteStartObject();
                 json.WriteString("criterion", f.Criterion.ToString());
-                Number(json, "value", f.Value);
-                Number(json, "limit", f.Limit);
+                JsonFields.Number(json, "value", f.Value);
+                JsonFields.Number(json, "limit", f.Limit);
                 json.WriteString("description", f.Description);
                 json.WriteEndObject();
             }
@@ -134,18 +134,5 @@ public static class DetectionEvidenceJson
             json.WriteEndObject();
         }
         json.WriteEndArray();
-    }
-
-    // JSON has no NaN or infinity: those are written as null (as in the rest of the manifest).
-    private static void Number(Utf8JsonWriter json, string name, double value)
-    {
-        if (double.IsFinite(value))
-        {
-            json.WriteNumber(name, value);
-        }
-        else
-        {
-            json.WriteNull(name);
-        }
     }
 }

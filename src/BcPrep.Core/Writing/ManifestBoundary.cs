@@ -16,7 +16,7 @@ internal static class ManifestBoundary
         var model = point.Model;
         json.WriteStartObject("boundary");
         json.WriteString("fluid", model.IsMoistAir ? "moist air (CIPM-2007 density, mass-weighted cp; dry-air viscosity)" : "dry air");
-        Number(json, "vapour_mole_fraction", point.Nominal.VapourMoleFraction);
+        JsonFields.Number(json, "vapour_mole_fraction", point.Nominal.VapourMoleFraction);
         json.WriteString("mass_flow_source", model.FlowMeter?.Kind switch
         {
             FlowMeterKind.Orifice => "orifice plate, ISO 5167-2",
@@ -52,19 +52,19 @@ internal static class ManifestBoundary
         {
             json.WriteString("tapping", tapping.ToString());
         }
-        Number(json, "mass_flow", r.MassFlowKgPerS);
-        Number(json, "diameter_ratio", r.DiameterRatio);
-        Number(json, "discharge_coefficient", r.DischargeCoefficient);
-        Number(json, "expansibility", r.Expansibility);
-        Number(json, "velocity_of_approach_factor", r.VelocityOfApproachFactor);
-        Number(json, "pipe_reynolds", r.PipeReynolds);
+        JsonFields.Number(json, "mass_flow", r.MassFlowKgPerS);
+        JsonFields.Number(json, "diameter_ratio", r.DiameterRatio);
+        JsonFields.Number(json, "discharge_coefficient", r.DischargeCoefficient);
+        JsonFields.Number(json, "expansibility", r.Expansibility);
+        JsonFields.Number(json, "velocity_of_approach_factor", r.VelocityOfApproachFactor);
+        JsonFields.Number(json, "pipe_reynolds", r.PipeReynolds);
         json.WriteNumber("iterations", r.Iterations);
-        Number(json, "discharge_coefficient_expanded_uncertainty_percent", r.DischargeCoefficientExpandedUncertaintyPercent);
-        Number(json, "expansibility_expanded_uncertainty_percent", r.ExpansibilityExpandedUncertaintyPercent);
-        Number(json, "upstream_pressure", meter.UpstreamPressurePa);
-        Number(json, "upstream_temperature", meter.UpstreamTemperatureK);
-        Number(json, "upstream_density", meter.UpstreamDensityKgPerM3);
-        Strings(json, "warnings", r.Warnings);
+        JsonFields.Number(json, "discharge_coefficient_expanded_uncertainty_percent", r.DischargeCoefficientExpandedUncertaintyPercent);
+        JsonFields.Number(json, "expansibility_expanded_uncertainty_percent", r.ExpansibilityExpandedUncertaintyPercent);
+        JsonFields.Number(json, "upstream_pressure", meter.UpstreamPressurePa);
+        JsonFields.Number(json, "upstream_temperature", meter.UpstreamTemperatureK);
+        JsonFields.Number(json, "upstream_density", meter.UpstreamDensityKgPerM3);
+        JsonFields.Strings(json, "warnings", r.Warnings);
         json.WriteEndObject();
     }
 
@@ -76,15 +76,15 @@ internal static class ManifestBoundary
         json.WriteString("model_used", v.ModelUsed.ToString());
         json.WriteString("selection", "auto: laminar below Re_D 2300, power law above (transitional 2300-4000 flagged); a named model is used as given");
         json.WriteNumber("points", v.Profile.RadiusM.Length);
-        Number(json, "reynolds", v.Reynolds);
-        Number(json, "bulk_velocity", v.BulkVelocityMPerS);
-        Number(json, "darcy_friction_factor", v.DarcyFrictionFactor);
-        Number(json, "friction_velocity", v.FrictionVelocityMPerS);
-        Number(json, "power_law_exponent", v.PowerLawExponent);
-        Number(json, "model_mass_flow_relative_error", v.ModelMassFlowRelativeError);
-        Number(json, "raw_discretisation_relative_error", v.RawDiscretisationRelativeError);
-        Number(json, "scale_factor", v.ScaleFactor);
-        Strings(json, "diagnostics", v.Diagnostics);
+        JsonFields.Number(json, "reynolds", v.Reynolds);
+        JsonFields.Number(json, "bulk_velocity", v.BulkVelocityMPerS);
+        JsonFields.Number(json, "darcy_friction_factor", v.DarcyFrictionFactor);
+        JsonFields.Number(json, "friction_velocity", v.FrictionVelocityMPerS);
+        JsonFields.Number(json, "power_law_exponent", v.PowerLawExponent);
+        JsonFields.Number(json, "model_mass_flow_relative_error", v.ModelMassFlowRelativeError);
+        JsonFields.Number(json, "raw_discretisation_relative_error", v.RawDiscretisationRelativeError);
+        JsonFields.Number(json, "scale_factor", v.ScaleFactor);
+        JsonFields.Strings(json, "diagnostics", v.Diagnostics);
         json.WriteEndObject();
     }
 
@@ -94,29 +94,7 @@ internal static class ManifestBoundary
         json.WriteStartObject("inlet_temperature_profile");
         json.WriteString("source", rake is null ? "uniform" : "rake");
         json.WriteNumber("clamped_points", rake?.ClampedPointCount ?? 0);
-        Strings(json, "diagnostics", rake?.Diagnostics ?? []);
+        JsonFields.Strings(json, "diagnostics", rake?.Diagnostics ?? []);
         json.WriteEndObject();
-    }
-
-    private static void Strings(Utf8JsonWriter json, string name, IEnumerable<string> values)
-    {
-        json.WriteStartArray(name);
-        foreach (var value in values)
-        {
-            json.WriteStringValue(value);
-        }
-        json.WriteEndArray();
-    }
-
-    private static void Number(Utf8JsonWriter json, string name, double value)
-    {
-        if (double.IsFinite(value))
-        {
-            json.WriteNumber(name, value);
-        }
-        else
-        {
-            json.WriteNull(name);
-        }
     }
 }

@@ -30,7 +30,7 @@ public static class ManifestWriter
             json.WriteString("version", provenance.ToolVersion);
             json.WriteEndObject();
             json.WriteString("run_key", provenance.Key);
-            WriteStrings(json, "cautions", Cautions.All);
+            JsonFields.Strings(json, "cautions", Cautions.All);
             json.WriteStartObject("rig");
             json.WriteString("name", day.Rig.Name);
             WriteFingerprint(json, provenance.Rig);
@@ -53,7 +53,7 @@ public static class ManifestWriter
                 WritePoint(json, day, point);
             }
             json.WriteEndArray();
-            WriteStrings(json, "files", files);
+            JsonFields.Strings(json, "files", files);
             if (outputHashes is not null)
             {
                 json.WriteStartObject("file_sha256");
@@ -80,8 +80,8 @@ public static class ManifestWriter
         json.WriteStartObject("conventions");
         json.WriteString("units", "SI throughout: Pa (absolute), K, kg/s, m, W");
         json.WriteString("time", "window times in s since the first sample of the day; day_start in s since 1970-01-01 UTC when the log has dates, else on the logger clock");
-        Number(json, "day_start", day.DayStartS);
-        Number(json, "coverage_probability", day.Rig.CoverageProbability);
+        JsonFields.Number(json, "day_start", day.DayStartS);
+        JsonFields.Number(json, "coverage_probability", day.Rig.CoverageProbability);
         json.WriteString("expanded_uncertainty", "U = k u, k from Student's t at the effective degrees of freedom (Welch-Satterthwaite; conservative rule with correlated inputs)");
         json.WriteString("type_a", "window mean of de-spiked, unfiltered samples; standard uncertainty corrected for autocorrelation (integrated autocorrelation time, Sokal window)");
         json.WriteString("turbulence", InletTurbulence.ConventionDescription);
@@ -96,9 +96,9 @@ public static class ManifestWriter
         json.WriteString("id", point.Id);
         json.WriteString("window_origin", point.Origin == WindowOrigin.RigFile ? "rig file" : "detected");
         json.WriteStartObject("window");
-        Number(json, "start_s", point.Window.StartS - day.DayStartS);
-        Number(json, "end_s", point.Window.EndS - day.DayStartS);
-        Number(json, "duration_s", point.Window.DurationS);
+        JsonFields.Number(json, "start_s", point.Window.StartS - day.DayStartS);
+        JsonFields.Number(json, "end_s", point.Window.EndS - day.DayStartS);
+        JsonFields.Number(json, "duration_s", point.Window.DurationS);
         json.WriteEndObject();
         json.WriteStartArray("checks");
         foreach (var check in point.Checks)
@@ -106,14 +106,14 @@ public static class ManifestWriter
             json.WriteStartObject();
             json.WriteString("name", check.Name);
             json.WriteString("verdict", check.Passed ? "pass" : "warn");
-            Number(json, "value", check.Value);
-            Number(json, "limit", check.Limit);
+            JsonFields.Number(json, "value", check.Value);
+            JsonFields.Number(json, "limit", check.Limit);
             json.WriteString("unit", check.Unit);
             json.WriteString("basis", check.Basis);
             json.WriteEndObject();
         }
         json.WriteEndArray();
-        WriteStrings(json, "warnings", point.Warnings);
+        JsonFields.Strings(json, "warnings", point.Warnings);
         ManifestBoundary.Write(json, point);
         DetectionEvidenceJson.WritePoint(json, day, point);
         json.WriteStartArray("channels");
@@ -125,12 +125,12 @@ public static class ManifestWriter
             json.WriteNumber("missing_cells", stats.MissingCount);
             json.WriteNumber("bridged_samples", stats.BridgedSamples);
             json.WriteNumber("spikes_replaced", stats.SpikesReplaced);
-            Number(json, "mean", stats.Mean);
-            Number(json, "standard_deviation", stats.StandardDeviation);
-            Number(json, "type_a_standard_uncertainty", stats.TypeA.StandardUncertainty);
-            Number(json, "effective_samples", stats.TypeA.EffectiveSampleCount);
-            Number(json, "naive_standard_uncertainty", stats.TypeA.NaiveStandardUncertainty);
-            WriteStrings(json, "faults", stats.Faults.Select(f => $"{f.Kind}: {f.Evidence}").ToList());
+            JsonFields.Number(json, "mean", stats.Mean);
+            JsonFields.Number(json, "standard_deviation", stats.StandardDeviation);
+            JsonFields.Number(json, "type_a_standard_uncertainty", stats.TypeA.StandardUncertainty);
+            JsonFields.Number(json, "effective_samples", stats.TypeA.EffectiveSampleCount);
+            JsonFields.Number(json, "naive_standard_uncertainty", stats.TypeA.NaiveStandardUncertainty);
+            JsonFields.Strings(json, "faults", stats.Faults.Select(f => $"{f.Kind}: {f.Evidence}").ToList());
             ConditioningManifest.WriteChannel(json, stats, day.DayStartS);
             json.WriteEndObject();
         }
@@ -143,18 +143,18 @@ public static class ManifestWriter
             json.WriteStartObject();
             json.WriteString("name", definition.Name);
             json.WriteString("unit", definition.Unit);
-            Number(json, "value", g.Estimate);
-            Number(json, "standard_uncertainty", g.StandardUncertainty);
-            Number(json, "expanded_uncertainty", g.ExpandedUncertainty);
-            Number(json, "coverage_factor", g.CoverageFactor);
-            Number(json, "degrees_of_freedom", g.DegreesOfFreedom);
+            JsonFields.Number(json, "value", g.Estimate);
+            JsonFields.Number(json, "standard_uncertainty", g.StandardUncertainty);
+            JsonFields.Number(json, "expanded_uncertainty", g.ExpandedUncertainty);
+            JsonFields.Number(json, "coverage_factor", g.CoverageFactor);
+            JsonFields.Number(json, "degrees_of_freedom", g.DegreesOfFreedom);
             if (point.MonteCarlo is { } mc)
             {
                 json.WriteStartObject("monte_carlo");
-                Number(json, "value", mc.Outputs[i].Estimate);
-                Number(json, "standard_uncertainty", mc.Outputs[i].StandardUncertainty);
-                Number(json, "interval_low", mc.Outputs[i].Low);
-                Number(json, "interval_high", mc.Outputs[i].High);
+                JsonFields.Number(json, "value", mc.Outputs[i].Estimate);
+                JsonFields.Number(json, "standard_uncertainty", mc.Outputs[i].StandardUncertainty);
+                JsonFields.Number(json, "interval_low", mc.Outputs[i].Low);
+                JsonFields.Number(json, "interval_high", mc.Outputs[i].High);
                 json.WriteBoolean("gum_validated", point.Validation![i].IsValidated);
                 json.WriteEndObject();
             }
@@ -166,8 +166,8 @@ public static class ManifestWriter
                     json.WriteStartObject();
                     json.WriteString("input", line.InputName);
                     json.WriteString("type", line.Evaluation == Uncertainty.EvaluationType.TypeA ? "A" : "B");
-                    Number(json, "contribution", line.Contribution);
-                    Number(json, "variance_share", line.VarianceShare);
+                    JsonFields.Number(json, "contribution", line.Contribution);
+                    JsonFields.Number(json, "variance_share", line.VarianceShare);
                     json.WriteEndObject();
                 }
                 json.WriteEndArray();
@@ -177,28 +177,5 @@ public static class ManifestWriter
         json.WriteEndArray();
         CovarianceTables.WriteManifest(json, point);
         json.WriteEndObject();
-    }
-
-    private static void WriteStrings(Utf8JsonWriter json, string name, IEnumerable<string> values)
-    {
-        json.WriteStartArray(name);
-        foreach (var value in values)
-        {
-            json.WriteStringValue(value);
-        }
-        json.WriteEndArray();
-    }
-
-    /// <summary>JSON has no NaN or infinity: those are written as null.</summary>
-    private static void Number(Utf8JsonWriter json, string name, double value)
-    {
-        if (double.IsFinite(value))
-        {
-            json.WriteNumber(name, value);
-        }
-        else
-        {
-            json.WriteNull(name);
-        }
     }
 }
