@@ -31,7 +31,7 @@ for h in "${hours[@]}"; do
     mkdir -p "$dir"; "$gen" "$dir" 7 --rate "$rate" --hours "$h" --single >/dev/null
   fi
   file="$dir/marten-2026-11-24-am.csv"
-  mb=$(awk -v b="$(stat -c %s "$file")" 'BEGIN {printf "%.1f", b/1e6}')
+  mb=$(awk -v b="$(stat -L -c %s "$file")" 'BEGIN {printf "%.1f", b/1e6}')
   cat "$file" > /dev/null   # page cache: both sides read from memory
   pt=(); ct=(); rss=()
   for _ in $(seq "$runs"); do

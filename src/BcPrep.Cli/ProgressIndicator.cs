@@ -1,4 +1,5 @@
 using System.Globalization;
+using BcPrep.Reading;
 
 namespace BcPrep.Cli;
 
@@ -7,8 +8,8 @@ namespace BcPrep.Cli;
 /// log data and the elapsed time, redrawn in place and erased when the work ends. It appears only when standard
 /// error is a terminal, the verbosity is not quiet, and the work is long: after <see cref="LongWorkDelay"/>, or at
 /// once for more than <see cref="LargeInputBytes"/> of logs. In pipes, files and tests it writes nothing at all.
-/// It shows elapsed time rather than a fraction because the pipeline streams its logs and does not report how far
-/// it has read (no bar is better than a bar that lies).
+/// With a <see cref="ReadProgress"/> it also shows the pass over the day and the share of the logs read in it
+/// (a day whose operating points are detected is read twice, so the share restarts once).
 /// </summary>
 public sealed class ProgressIndicator : IDisposable
 {
@@ -23,15 +24,17 @@ public sealed class ProgressIndicator : IDisposable
     private readonly TextWriter? _error;
     private readonly string _label;
     private readonly TimeSpan _delay;
+    private readonly Func<string>? _detail;
     private readonly long _startTicks = Environment.TickCount64;
     private readonly Timer? _timer;
     private readonly Lock _gate = new();
     private int _drawnLength;
     private bool _disposed;
 
-    internal ProgressIndicator(CliContext context, Verbosity verbosity, string label, long inputBytes, TimeSpan delay, TimeSpan period)
+    internal ProgressIndicator(CliContext context, Verbosity verbosity, string label, long inputBytes, TimeSpan delay, TimeSpan period, Func<string>? detail = null)
     {
         _label = label;
+        _detail = detail;
         _delay = inputBytes > LargeInputBytes ? TimeSpan.Zero : delay;
         if (IsWanted(context.ErrorIsTerminal, verbosity))
         {
@@ -49,8 +52,9 @@ public sealed class ProgressIndicator : IDisposable
     public static bool IsWanted(bool errorIsTerminal, Verbosity verbosity) => errorIsTerminal && verbosity != Verbosity.Quiet;
 
     /// <summary>Starts the indicator for work on <paramref name="inputBytes"/> of logs; dispose it when the work ends.</summary>
-    public static ProgressIndicator Start(CliContext context, Verbosity verbosity, string task, long inputBytes) =>
-        new(context, verbosity, string.Create(CultureInfo.InvariantCulture, $"{task} ({inputBytes / 1e6:F1} MB of logs)"), inputBytes, LongWorkDelay, RedrawPeriod);
+    public static ProgressIndicator Start(CliContext context, Verbosity verbosity, string task, long inputBytes, ReadProgress? progress = null) =>
+        new(context, verbosity, string.Create(CultureInfo.InvariantCulture, $"{task} ({inputBytes / 1e6:F1} MB of logs)"), inputBytes, LongWorkDelay, RedrawPeriod,
+            progress is null ? null : progress.Describe);
 
     public void Dispose()
     {
@@ -79,7 +83,9 @@ public sealed class ProgressIndicator : IDisposable
                 return;
             }
             var elapsedS = (Environment.TickCount64 - _startTicks) / 1000;
-            var line = string.Create(CultureInfo.InvariantCulture, $"{_label}: {elapsedS} s");
+            var line = _detail is null
+                ? string.Create(CultureInfo.InvariantCulture, $"{_label}: {elapsedS} s")
+                : string.Create(CultureInfo.InvariantCulture, $"{_label}: {_detail()}, {elapsedS} s");
             _error.Write("\r" + line.PadRight(_drawnLength));
             _error.Flush();
             _drawnLength = Math.Max(_drawnLength, line.Length);

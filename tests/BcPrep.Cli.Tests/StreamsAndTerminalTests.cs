@@ -72,6 +72,21 @@ public sealed class StreamsAndTerminalTests
     }
 
     [Fact]
+    public void Progress_line_shows_the_pass_and_share_of_the_logs_read()
+    {
+        var terminal = new StringWriter();
+        var reading = new BcPrep.Reading.ReadProgress(2000);
+        reading.StartPass();
+        reading.Advance(500);
+
+        using (new ProgressIndicator(Context(terminal, terminal: true), Verbosity.Normal, "working", 2000, TimeSpan.Zero, TimeSpan.FromSeconds(10), reading.Describe))
+        {
+        }
+
+        Assert.StartsWith("\rworking: pass 1, 25 %, 0 s", terminal.ToString(), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Short_work_on_a_terminal_shows_no_progress_line()
     {
         var terminal = new StringWriter();

@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using BcPrep.Pipeline;
+using BcPrep.Reading;
 using BcPrep.Writing;
 
 namespace BcPrep.Cli.Commands;
@@ -52,9 +53,15 @@ public static class ProcessCommand
             diagnostics.Detail($"reading {inputs.Inputs.Count} log file(s)");
             OutputFileSet files;
             DayResult day;
-            using (ProgressIndicator.Start(context, diagnostics.Verbosity, "processing", inputs.Sizes().Sum()))
+            var reading = new ReadProgress(inputs.Sizes().Sum());
+            using (ProgressIndicator.Start(context, diagnostics.Verbosity, "processing", reading.TotalBytes, reading))
             {
-                day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed)) { AllowExpired = allowed, Matrix = plan });
+                day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed))
+                {
+                    AllowExpired = allowed,
+                    Matrix = plan,
+                    Progress = reading,
+                });
                 var provenance = Provenance(hashing.GetAwaiter().GetResult());
                 files = DayOutputs.Build(day, provenance, facePoints, ReportOption.Files(parse.GetValue(report), day, diagnostics));
                 var superseded = ReportOption.Superseded(outDir, files.Files.Select(f => f.RelativePath));

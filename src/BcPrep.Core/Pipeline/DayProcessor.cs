@@ -32,7 +32,7 @@ public static class DayProcessor
         var book = new WindowStatsBook();
         var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v, PinnedLocation(rig, w)));
         var extent = new DayExtentSink();
-        DayScan.Run(rig, plan, converters, [blocks, firstPass, extent]);
+        DayScan.Run(rig, plan, converters, [blocks, firstPass, extent], progress: options.Progress);
         book.DrainInto(stats);
         var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, extent.FirstS, extent.LastS), options.AllowExpired);
 
@@ -52,7 +52,7 @@ public static class DayProcessor
         if (detected.Count > 0)
         {
             var secondPass = new WindowCollector(detected, (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v));
-            DayScan.Run(rig, plan, converters, [secondPass]);
+            DayScan.Run(rig, plan, converters, [secondPass], progress: options.Progress);
             book.DrainInto(stats);
         }
         var dayWarnings = new List<string>();

@@ -19,15 +19,17 @@ public static class DayScan
         DayPlan plan,
         IReadOnlyDictionary<string, SampleConverter> converters,
         IReadOnlyList<IChannelSink> sinks,
-        IBlockSink? blockSink = null)
+        IBlockSink? blockSink = null,
+        ReadProgress? progress = null)
     {
+        progress?.StartPass();
         foreach (var logger in plan.Loggers)
         {
-            ScanLogger(rig, logger, converters, sinks, blockSink);
+            ScanLogger(rig, logger, converters, sinks, blockSink, progress);
         }
     }
 
-    private static void ScanLogger(RigDescription rig, LoggerFiles logger, IReadOnlyDictionary<string, SampleConverter> converters, IReadOnlyList<IChannelSink> sinks, IBlockSink? blockSink)
+    private static void ScanLogger(RigDescription rig, LoggerFiles logger, IReadOnlyDictionary<string, SampleConverter> converters, IReadOnlyList<IChannelSink> sinks, IBlockSink? blockSink, ReadProgress? progress)
     {
         var channels = OrderByDependency(logger.Channels, rig);
         var columns = logger.Channels.Select(c => c.Column).ToList();
@@ -36,7 +38,7 @@ public static class DayScan
         var blockArrays = ids.Select(id => si[id]).ToList();
         var previousEnd = double.NegativeInfinity;
         string? previousFile = null;
-        foreach (var (file, block, first) in ReadAhead(rig, logger, columns))
+        foreach (var (file, block, first) in ReadAhead(rig, logger, columns, progress))
         {
             if (first)
             {
@@ -74,7 +76,7 @@ public static class DayScan
     /// circulate between the two threads, so memory stays bounded; a failure on either side stops both and the
     /// reader's own exception (file, line, column) reaches the caller unchanged.
     /// </summary>
-    private static IEnumerable<(LogInput File, LogBlock Block, bool FirstOfFile)> ReadAhead(RigDescription rig, LoggerFiles logger, IReadOnlyList<string> columns)
+    private static IEnumerable<(LogInput File, LogBlock Block, bool FirstOfFile)> ReadAhead(RigDescription rig, LoggerFiles logger, IReadOnlyList<string> columns, ReadProgress? progress)
     {
         const int InFlight = 3;
         using var free = new BlockingCollection<LogBlock>();
@@ -92,6 +94,7 @@ public static class DayScan
                 {
                     using var reader = new LogFileReader(file, rig.Log, columns);
                     var first = true;
+                    var reported = 0L;
                     while (true)
                     {
                         var block = free.Take(stop.Token);
@@ -100,6 +103,8 @@ public static class DayScan
                             free.Add(block);
                             break;
                         }
+                        progress?.Advance(reader.BytesRead - reported);
+                        reported = reader.BytesRead;
                         filled.Add((file, block, first), stop.Token);
                         first = false;
                     }

@@ -12,4 +12,7 @@ public sealed record ProcessOptions(
 
     /// <summary>The planned points; when given, matched points take the matrix names.</summary>
     public Lab.TestMatrix? Matrix { get; init; }
+
+    /// <summary>Where the reading reports how far it has got (for a progress display); null for none.</summary>
+    public Reading.ReadProgress? Progress { get; init; }
 }

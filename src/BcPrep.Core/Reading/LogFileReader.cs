@@ -77,6 +77,9 @@ public sealed class LogFileReader : IDisposable
 
     public string Name => _input.DisplayName;
 
+    /// <summary>Bytes of the (decompressed) log read so far: where the current record starts.</summary>
+    public long BytesRead => _csv.ByteOffset;
+
     /// <summary>Reads header names only (to group files by logger before reading them).</summary>
     public static IReadOnlyList<string> ReadHeader(LogInput input, LogFormat format)
     {
