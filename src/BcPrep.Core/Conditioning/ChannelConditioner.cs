@@ -5,15 +5,17 @@ public static class ChannelConditioner
 {
     /// <summary>Text written to the manifest for the edge handling of zero-phase filtering.</summary>
     public const string PaddingMethod =
-        "odd extension, steady-state initial conditions (pad); pad length = samples for the slowest pole to decay to 1e-3, capped at segment length − 1";
+        "Gustafsson (1996) initial states, section by section (forward-backward equals backward-forward at both ends; no invented samples)";
 
     /// <summary>
     /// Gaps are bridged first (<see cref="GapBridging.Bridge"/>); Hampel spike removal runs on the result; notch and
     /// low-pass run zero-phase on each gap-free segment separately (NaN cells and unbridged time jumps cut segments),
     /// because filtering across a gap would smear invented values. Sample rate = 1 / nominal interval.
     /// The mains notch is skipped when the mains frequency is not below Nyquist (NotchFrequenciesHz stays empty).
-    /// Pad length: <see cref="ZeroPhaseFilter.SettlingPadLength"/> (1e-3 residual), capped at segment length − 1; segments not
-    /// longer than the scipy default pad are set to NaN and counted in the report.
+    /// Edges: Gustafsson's initial states (<see cref="GustafssonFiltFilt"/>), applied to one second-order section at a
+    /// time. A cascade of zero-phase sections is zero-phase with gain ∏|Hᵢ|², the gain of forward–backward over the
+    /// whole cascade, and each biquad stays well conditioned where the expanded transfer function of a low cutoff
+    /// would not. Segments not longer than the scipy default pad are set to NaN and counted in the report.
     /// </summary>
     /// <exception cref="BcPrepDataException">Invalid settings or time stamps (see the step functions).</exception>
     public static ConditionedSeries Condition(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values, ConditioningSettings settings)
@@ -52,10 +54,20 @@ public static class ChannelConditioner
         return new ConditionedSeries(gaps.TimesS, x, gaps.Interpolated, report);
     }
 
+    /// <summary>Zero-phase filtering in place, one section after the other, each with Gustafsson's initial states.</summary>
+    internal static void FilterZeroPhase(IReadOnlyList<SecondOrderSection> sections, Span<double> x)
+    {
+        foreach (var section in sections)
+        {
+            double[] b = section.IsFirstOrder ? [section.B0, section.B1] : [section.B0, section.B1, section.B2];
+            double[] a = section.IsFirstOrder ? [1.0, section.A1] : [1.0, section.A1, section.A2];
+            GustafssonFiltFilt.Apply(b, a, x).CopyTo(x);
+        }
+    }
+
     private static (int Segments, int Unfiltered) FilterSegments(double[] t, double[] x, List<SecondOrderSection> sections, double jumpS)
     {
         int minimumPad = ZeroPhaseFilter.DefaultPadLength(sections);
-        int settlingPad = ZeroPhaseFilter.SettlingPadLength(sections);
         int segments = 0, unfiltered = 0;
         int start = 0;
         while (start < x.Length)
@@ -75,8 +87,7 @@ public static class ChannelConditioner
             int length = end - start;
             if (length > minimumPad)
             {
-                int pad = Math.Min(settlingPad, length - 1);
-                ZeroPhaseFilter.FiltFilt(sections, x.AsSpan(start, length), pad).CopyTo(x.AsSpan(start, length));
+                FilterZeroPhase(sections, x.AsSpan(start, length));
                 segments++;
             }
             else

@@ -144,7 +144,9 @@ public sealed class StreamingConditioner
         {
             sections.AddRange(ButterworthDesign.LowPass(_settings.LowPassOrder, cutoff, fs).Sections);
         }
-        var settle = sections.Count > 0 ? ZeroPhaseFilter.SettlingPadLength(sections, SeamResidual) : 0;
+        // Twice the settling length: each section's edge states (Gustafsson) start a transient that the sections
+        // after it carry on, so one decay length of the slowest pole is not quite enough for the whole cascade.
+        var settle = sections.Count > 0 ? 2 * ZeroPhaseFilter.SettlingPadLength(sections, SeamResidual) : 0;
         var bridge = (int)Math.Ceiling(_settings.MaxBridgeS / nominal);
         return settle + (2 * bridge) + (4 * _settings.HampelHalfWindow) + 16;
     }

@@ -32,7 +32,9 @@ public static class DayProcessor
         var book = new WindowStatsBook();
         var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v, PinnedLocation(rig, w)));
         var extent = new DayExtentSink();
-        DayScan.Run(rig, plan, converters, [blocks, firstPass, extent], progress: options.Progress);
+        var feed = DetectionFeed.For(rig, blocks);
+        DayScan.Run(rig, plan, converters, [.. feed.ChannelSinks, firstPass, extent], feed.BlockSink, options.Progress);
+        feed.Complete();
         book.DrainInto(stats);
         var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, extent.FirstS, extent.LastS), options.AllowExpired);
 

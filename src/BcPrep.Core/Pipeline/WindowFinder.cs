@@ -29,9 +29,10 @@ public static class WindowFinder
         ArgumentNullException.ThrowIfNull(rig);
         var plan = DayPlan.Create(rig, logs);
         var converters = rig.Channels.ToDictionary(c => c.Id, ChannelConversion.For, StringComparer.Ordinal);
-        var blocks = new BlockMeanSink(plan.DayStartS, rig.Steady.BlockS);
-        DayScan.Run(rig, plan, converters, [blocks]);
-        var series = Series(rig, blocks);
+        var feed = DetectionFeed.For(rig, new BlockMeanSink(plan.DayStartS, rig.Steady.BlockS));
+        DayScan.Run(rig, plan, converters, feed.ChannelSinks, feed.BlockSink);
+        feed.Complete();
+        var series = Series(rig, feed.Blocks);
         return new DayWindows(plan.DayStartS, series, Detect(rig, series, plan.DayStartS));
     }
 

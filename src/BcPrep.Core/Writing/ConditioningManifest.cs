@@ -15,7 +15,8 @@ public static class ConditioningManifest
     /// <summary>Which signal feeds which stage; repeated in the manifest because it decides the Type A uncertainty.</summary>
     public const string SignalUse =
         "window mean and Type A uncertainty: gap-bridged, de-spiked, unfiltered samples (a low-pass narrows the scatter and would understate the uncertainty); " +
-        "notch and low-pass serve only the conditioned series (calibrate --conditioned), detection and plots";
+        "block means for steady detection and the day plots: conditioned samples (bridged, de-spiked, notch and low-pass) when a notch or low-pass is set, calibrated samples otherwise; " +
+        "calibrate --conditioned writes the conditioned series";
 
     /// <summary>Writes the "conditioning" object of the conventions: the settings in force (SI).</summary>
     public static void WriteSettings(Utf8JsonWriter json, ConditioningSpec spec)

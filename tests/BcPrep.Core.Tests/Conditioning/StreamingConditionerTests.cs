@@ -62,7 +62,10 @@ public class StreamingConditionerTests
                 worst = Math.Max(worst, Math.Abs(a - b));
             }
         }
-        Assert.True(worst < 1e-9, $"largest seam difference {worst}");
+        // The signal sits near 1000: 1e-11 of it is 1e-8. Gustafsson's end states come from a small least-squares solve
+        // whose rounding depends on the chunk length (about 3e-12 relative here); a seam artefact would be a filter
+        // transient, orders of magnitude larger.
+        Assert.True(worst < 1e-8, $"largest seam difference {worst}");
         Assert.Equal(whole.Report.SpikesReplaced, streaming.SpikesReplaced);
         foreach (var planted in new[] { 3000, 4999, 5000, 25_003, 90_000 })
         {
