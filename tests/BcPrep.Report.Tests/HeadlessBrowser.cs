@@ -3,8 +3,9 @@ using System.Diagnostics;
 namespace BcPrep.Tests.Report;
 
 /// <summary>
-/// Headless Chromium for the page test. Missing Chromium fails the test, never skips it: in CI (variable CI set) it
-/// should have been installed by .ci/install; elsewhere the message says how to install it.
+/// Headless Chromium for the page test. In CI (variable CI set) missing Chromium fails the test: .ci/install should
+/// have installed it. On a developer's fresh machine the test is reported as skipped, with how to install it, so
+/// that `dotnet test` works there as README promises while CI still checks the page in a real browser.
 /// </summary>
 internal static class HeadlessBrowser
 {
@@ -23,11 +24,11 @@ internal static class HeadlessBrowser
                 }
             }
         }
-        var message = Environment.GetEnvironmentVariable("CI") is { Length: > 0 }
-            ? "chromium is not on PATH in CI: .ci/install should have installed it (apt-get install chromium)"
-            : "chromium is not on PATH: install it (Debian/Ubuntu: sudo apt-get install chromium) to run the report page test";
-        Assert.Fail(message);
-        return "";
+        if (Environment.GetEnvironmentVariable("CI") is { Length: > 0 })
+        {
+            Assert.Fail("chromium is not on PATH in CI: .ci/install should have installed it (apt-get install chromium)");
+        }
+        throw new SkipException("chromium is not on PATH: install it (Debian/Ubuntu: sudo apt-get install chromium) to run the report page test");
     }
 
     /// <summary>Loads <paramref name="pagePath"/> with no network access of its own and returns the DOM after the page's load event.</summary>
