@@ -33,7 +33,8 @@ public static class DayProcessor
         var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v, PinnedLocation(rig, w)));
         var extent = new DayExtentSink();
         var feed = DetectionFeed.For(rig, blocks);
-        DayScan.Run(rig, plan, converters, [.. feed.ChannelSinks, firstPass, extent], feed.BlockSink, options.Progress);
+        var index = new ScanIndex();
+        DayScan.Run(rig, plan, converters, [.. feed.ChannelSinks, firstPass, extent], feed.BlockSink, options.Progress, index);
         feed.Complete();
         book.DrainInto(stats);
         var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, extent.FirstS, extent.LastS), options.AllowExpired);
@@ -54,7 +55,8 @@ public static class DayProcessor
         if (detected.Count > 0)
         {
             var secondPass = new WindowCollector(detected, (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v));
-            DayScan.Run(rig, plan, converters, [secondPass], progress: options.Progress);
+            // Only the blocks covering the detected windows are read again (seeking by the first pass's index).
+            DayScan.Run(rig, plan, converters, [secondPass], progress: options.Progress, index: index, onlyWindows: detected);
             book.DrainInto(stats);
         }
         var dayWarnings = new List<string>();
@@ -74,7 +76,7 @@ public static class DayProcessor
         {
             (points, matrix) = MatrixNaming.Apply(options.Matrix, points);
         }
-        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { Calibration = calibration, Matrix = matrix };
+        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks };
     }
 
     public static double Resolve(TimeBound bound, double dayStartS) => bound.IsAbsolute ? bound.Seconds : dayStartS + bound.Seconds;

@@ -20,16 +20,25 @@ public static class DayScan
         IReadOnlyDictionary<string, SampleConverter> converters,
         IReadOnlyList<IChannelSink> sinks,
         IBlockSink? blockSink = null,
-        ReadProgress? progress = null)
+        ReadProgress? progress = null,
+        ScanIndex? index = null,
+        IReadOnlyList<TimeWindow>? onlyWindows = null)
     {
         progress?.StartPass();
+        var reading = new ReadingPlan(index, onlyWindows?.OrderBy(w => w.StartS).ToList());
         foreach (var logger in plan.Loggers)
         {
-            ScanLogger(rig, logger, converters, sinks, blockSink, progress);
+            ScanLogger(rig, logger, converters, sinks, blockSink, progress, reading);
         }
     }
 
-    private static void ScanLogger(RigDescription rig, LoggerFiles logger, IReadOnlyDictionary<string, SampleConverter> converters, IReadOnlyList<IChannelSink> sinks, IBlockSink? blockSink, ReadProgress? progress)
+    /// <summary>
+    /// How the files are read: in full, recording the block index when one is given; or, with windows and an index
+    /// from an earlier pass, only the blocks that cover the windows.
+    /// </summary>
+    private sealed record ReadingPlan(ScanIndex? Index, IReadOnlyList<TimeWindow>? Windows);
+
+    private static void ScanLogger(RigDescription rig, LoggerFiles logger, IReadOnlyDictionary<string, SampleConverter> converters, IReadOnlyList<IChannelSink> sinks, IBlockSink? blockSink, ReadProgress? progress, ReadingPlan reading)
     {
         var channels = OrderByDependency(logger.Channels, rig);
         var columns = logger.Channels.Select(c => c.Column).ToList();
@@ -38,7 +47,7 @@ public static class DayScan
         var blockArrays = ids.Select(id => si[id]).ToList();
         var previousEnd = double.NegativeInfinity;
         string? previousFile = null;
-        foreach (var (file, block, first) in ReadAhead(rig, logger, columns, progress))
+        foreach (var (file, block, first) in ReadAhead(rig, logger, columns, progress, reading))
         {
             if (first)
             {
@@ -76,7 +85,7 @@ public static class DayScan
     /// circulate between the two threads, so memory stays bounded; a failure on either side stops both and the
     /// reader's own exception (file, line, column) reaches the caller unchanged.
     /// </summary>
-    private static IEnumerable<(LogInput File, LogBlock Block, bool FirstOfFile)> ReadAhead(RigDescription rig, LoggerFiles logger, IReadOnlyList<string> columns, ReadProgress? progress)
+    private static IEnumerable<(LogInput File, LogBlock Block, bool FirstOfFile)> ReadAhead(RigDescription rig, LoggerFiles logger, IReadOnlyList<string> columns, ReadProgress? progress, ReadingPlan reading)
     {
         const int InFlight = 3;
         using var free = new BlockingCollection<LogBlock>();
@@ -93,6 +102,12 @@ public static class DayScan
                 foreach (var file in logger.Files)
                 {
                     using var reader = new LogFileReader(file, rig.Log, columns);
+                    var blocks = reading.Windows is null ? null : reading.Index?.Blocks(file);
+                    if (blocks is not null && reader.CanSeek)
+                    {
+                        ReadWindowsOnly(reader, blocks, reading.Windows!, file, free, filled, progress, reading.Index!, stop.Token);
+                        continue;
+                    }
                     var first = true;
                     var reported = 0L;
                     while (true)
@@ -105,6 +120,7 @@ public static class DayScan
                         }
                         progress?.Advance(reader.BytesRead - reported);
                         reported = reader.BytesRead;
+                        reading.Index?.Record(file, block, reader.CanSeek);
                         filled.Add((file, block, first), stop.Token);
                         first = false;
                     }
@@ -133,6 +149,49 @@ public static class DayScan
             catch (OperationCanceledException)
             {
                 // The consumer stopped first; its own exception (if any) is the one that matters.
+            }
+        }
+    }
+
+    /// <summary>
+    /// Reads only the blocks that cover the windows: for each window, seek to the last block starting at or before
+    /// it (unless reading already runs past that point) and read on until a block starts after the window's end.
+    /// Blocks are never delivered twice, so sample times keep increasing for the sinks.
+    /// </summary>
+    private static void ReadWindowsOnly(LogFileReader reader, IReadOnlyList<(double TimeS, long Offset, long Line)> blocks, IReadOnlyList<TimeWindow> windows,
+        LogInput file, BlockingCollection<LogBlock> free, BlockingCollection<(LogInput, LogBlock, bool)> filled, ReadProgress? progress, ScanIndex index, CancellationToken stop)
+    {
+        var next = 0; // index of the next block not yet delivered
+        foreach (var window in windows)
+        {
+            var target = 0;
+            while (target + 1 < blocks.Count && blocks[target + 1].TimeS <= window.StartS)
+            {
+                target++;
+            }
+            if (blocks.Count == 0 || blocks[0].TimeS > window.EndS)
+            {
+                continue; // the window ends before this file starts
+            }
+            if (target > next)
+            {
+                // Blocks are re-read with the first pass's boundaries (same block size), so block k starts at k's offset.
+                reader.SeekTo(blocks[target].Offset, blocks[target].Line);
+                index.CountSeek();
+                next = target;
+            }
+            while (next < blocks.Count && blocks[next].TimeS <= window.EndS)
+            {
+                var block = free.Take(stop);
+                var start = reader.BytesRead;
+                if (!reader.ReadBlock(block))
+                {
+                    free.Add(block);
+                    return;
+                }
+                progress?.Advance(reader.BytesRead - start);
+                filled.Add((file, block, false), stop);
+                next++;
             }
         }
     }

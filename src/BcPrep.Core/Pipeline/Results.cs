@@ -59,6 +59,9 @@ public sealed record DayResult(
 
     /// <summary>How the points matched the test matrix, when one was given.</summary>
     public Lab.MatrixReport? Matrix { get; init; }
+
+    /// <summary>Jumps the second pass made over blocks it did not need (0 when it read on or was not needed).</summary>
+    public int SecondPassSeeks { get; init; }
 }
 
 /// <summary>Block means of every channel over the day (for detection evidence and plots).</summary>

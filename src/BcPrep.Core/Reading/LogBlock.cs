@@ -23,6 +23,9 @@ public sealed class LogBlock
 
     public int Count { get; internal set; }
 
+    /// <summary>Byte offset in its file where the block's first row starts (for seeking back to it).</summary>
+    public long FirstByteOffset { get; internal set; }
+
     public double[] TimeS { get; }
 
     /// <summary>1-based line of each row in its file, for error messages.</summary>

@@ -16,7 +16,10 @@ public sealed class LogFileReader : IDisposable
 
     private readonly LogInput _input;
     private readonly LogFormat _format;
-    private readonly CsvReader _csv;
+    private readonly char _separator;
+    private CsvReader _csv;
+    private long _byteBase;
+    private long _lineBase;
     private readonly NumberFormatInfo _numbers;
     private readonly int _timeIndex;
     private readonly int[] _columnIndices;
@@ -31,15 +34,9 @@ public sealed class LogFileReader : IDisposable
         _format = format;
         _numbers = new NumberFormatInfo { NumberDecimalSeparator = format.DecimalSeparator.ToString(), NumberGroupSeparator = "" };
         var stream = input.Open();
-        var separator = format.Separator ?? SniffSeparator(stream, format.DecimalSeparator);
-        _csv = CsvReader.Create(stream, new CsvReaderOptions
-        {
-            Separator = separator,
-            HasHeader = true,
-            TrackLineNumbers = true,
-            MaxRecordSize = MaxRecordBytes,
-            FormatProvider = _numbers,
-        }, leaveOpen: false);
+        CanSeek = stream is not System.IO.Compression.GZipStream && !StartsWithUtf16Mark(input.Path);
+        _separator = format.Separator ?? SniffSeparator(stream, format.DecimalSeparator);
+        _csv = CsvReader.Create(stream, Options(hasHeader: true), leaveOpen: false);
         string[] header;
         try
         {
@@ -78,7 +75,48 @@ public sealed class LogFileReader : IDisposable
     public string Name => _input.DisplayName;
 
     /// <summary>Bytes of the (decompressed) log read so far: where the current record starts.</summary>
-    public long BytesRead => _csv.ByteOffset;
+    public long BytesRead => _byteBase + _csv.ByteOffset;
+
+    /// <summary>
+    /// Whether <see cref="SeekTo"/> works: a plain file whose byte offsets are file positions (not gzip, whose
+    /// offsets count decompressed bytes, nor UTF-16, whose offsets count its UTF-8 form).
+    /// </summary>
+    public bool CanSeek { get; }
+
+    /// <summary>
+    /// Continues reading at a row recorded earlier from <see cref="LogBlock.FirstByteOffset"/> and its line (the
+    /// header is not read again; column positions stay those of the header).
+    /// </summary>
+    public void SeekTo(long byteOffset, long lineNumber)
+    {
+        if (!CanSeek)
+        {
+            throw new InvalidOperationException("this log cannot be read from an offset");
+        }
+        _csv.Dispose();
+        var stream = new FileStream(_input.Path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16, FileOptions.SequentialScan);
+        stream.Seek(byteOffset, SeekOrigin.Begin);
+        _csv = CsvReader.Create(stream, Options(hasHeader: false), leaveOpen: false);
+        _byteBase = byteOffset;
+        _lineBase = lineNumber - 1;
+        _lastTime = double.NegativeInfinity;
+    }
+
+    private CsvReaderOptions Options(bool hasHeader) => new()
+    {
+        Separator = _separator,
+        HasHeader = hasHeader,
+        TrackLineNumbers = true,
+        MaxRecordSize = MaxRecordBytes,
+        FormatProvider = _numbers,
+    };
+
+    private static bool StartsWithUtf16Mark(string path)
+    {
+        using var file = File.OpenRead(path);
+        Span<byte> mark = stackalloc byte[2];
+        return file.ReadAtLeast(mark, 2, throwOnEndOfStream: false) == 2 && ((mark[0] == 0xFF && mark[1] == 0xFE) || (mark[0] == 0xFE && mark[1] == 0xFF));
+    }
 
     /// <summary>Reads header names only (to group files by logger before reading them).</summary>
     public static IReadOnlyList<string> ReadHeader(LogInput input, LogFormat format)
@@ -93,7 +131,11 @@ public sealed class LogFileReader : IDisposable
         var n = 0;
         while (n < block.Capacity && Next())
         {
-            var line = _csv.LineNumber;
+            var line = _lineBase + _csv.LineNumber;
+            if (n == 0)
+            {
+                block.FirstByteOffset = BytesRead;
+            }
             if (_csv.FieldCount != _headerCount)
             {
                 throw Fail(line, null, $"the row has {_csv.FieldCount} fields but the header has {_headerCount}");
