@@ -1,11 +1,12 @@
 #!/usr/bin/env bash
 # Whole-run benchmark of `bcprep process` against a parse-only baseline (same CSV reader, same file), at three
 # file sizes, median of several runs each. Prints a Markdown table to paste into BENCHMARKS.md.
-# Usage: RATE=1000 benchmarks/whole-run.sh [runs] [hours...]   (defaults: 5 runs; 0.5 1 2 hours of a 200 Hz day)
+# Usage: RATE=500 benchmarks/whole-run.sh [runs] [hours...]   (defaults: 5 runs; 1 2 4 hours of a 200 Hz day)
+# A day shorter than about an hour holds no settled operating point (the first settles at about 49 min).
 set -euo pipefail
 cd "$(dirname "$0")/.."
 runs=${1:-5}; shift || true
-hours=("${@:-0.5 1 2}"); read -r -a hours <<< "${hours[*]}"
+hours=("${@:-1 2 4}"); read -r -a hours <<< "${hours[*]}"
 rate=${RATE:-200}
 data=${BENCH_DATA:-/tmp/bcprep-bench}
 mkdir -p "$data"
@@ -19,8 +20,12 @@ gen=tools/SampleDay/bin/Release/net10.0/SampleDay
 rig="$data/rig-detect.toml"
 sed '/^\[\[point\]\]/,/^end = /d' sample-logs/marten-rig.toml > "$rig"
 
-# One timed run: prints "seconds peak_kB".
-timed() { /usr/bin/time -f "%e %M" "$@" 2>&1 >/dev/null | tail -1; }
+# One timed run: prints "seconds peak_kB"; a run that fails stops the benchmark (a refused day is no timing).
+timed() {
+  local out
+  out=$(/usr/bin/time -f "%e %M" "$@" 2>&1 >/dev/null) || { echo "benchmark run failed: $*" >&2; echo "$out" >&2; exit 1; }
+  echo "$out" | tail -1
+}
 median() { sort -n | awk '{a[NR]=$1} END {print (NR%2) ? a[(NR+1)/2] : (a[NR/2]+a[NR/2+1])/2}'; }
 
 echo "| day | file MB | parse-only s (MB/s) | process s (MB/s) | process / parse-only throughput | process peak RSS MB |"
@@ -35,9 +40,9 @@ for h in "${hours[@]}"; do
   cat "$file" > /dev/null   # page cache: both sides read from memory
   pt=(); ct=(); rss=()
   for _ in $(seq "$runs"); do
-    read -r s _ < <(timed "$base" "$file"); pt+=("$s")
+    result=$(timed "$base" "$file") || exit 1; read -r s _ <<< "$result"; pt+=("$s")
     rm -rf "$dir/out"
-    read -r s k < <(timed "$cli" process "$rig" "$file" --out "$dir/out" --force); ct+=("$s"); rss+=("$k")
+    result=$(timed "$cli" process "$rig" "$file" --out "$dir/out" --force) || exit 1; read -r s k <<< "$result"; ct+=("$s"); rss+=("$k")
   done
   p=$(printf '%s\n' "${pt[@]}" | median); c=$(printf '%s\n' "${ct[@]}" | median); r=$(printf '%s\n' "${rss[@]}" | median)
   awk -v h="$h" -v rate="$rate" -v mb="$mb" -v p="$p" -v c="$c" -v r="$r" 'BEGIN {
