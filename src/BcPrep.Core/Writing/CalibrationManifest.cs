@@ -24,12 +24,7 @@ public static class CalibrationManifest
         json.WriteString("source", SourceText(report.Dates.Source));
         json.WriteEndObject();
         json.WriteString("rule", "a sensor may be used up to and including its calibration due date; later use fails unless explicitly allowed");
-        json.WriteStartArray("allow_expired");
-        foreach (var name in report.AllowExpired)
-        {
-            json.WriteStringValue(name);
-        }
-        json.WriteEndArray();
+        JsonFields.Strings(json, "allow_expired", report.AllowExpired);
         json.WriteStartArray("channels");
         foreach (var channel in report.Channels)
         {
@@ -44,12 +39,7 @@ public static class CalibrationManifest
             json.WriteEndObject();
         }
         json.WriteEndArray();
-        json.WriteStartArray("warnings");
-        foreach (var warning in report.Warnings)
-        {
-            json.WriteStringValue(warning);
-        }
-        json.WriteEndArray();
+        JsonFields.Strings(json, "warnings", report.Warnings);
         json.WriteEndObject();
     }
 

@@ -60,12 +60,7 @@ public static class DetectionEvidenceJson
             json.WriteEndObject();
         }
         json.WriteEndArray();
-        json.WriteStartArray("warnings");
-        foreach (var warning in day.Warnings)
-        {
-            json.WriteStringValue(warning);
-        }
-        json.WriteEndArray();
+        JsonFields.Strings(json, "warnings", day.Warnings);
         json.WriteEndObject();
     }
 

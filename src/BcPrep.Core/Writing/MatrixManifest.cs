@@ -45,12 +45,7 @@ public static class MatrixManifest
             json.WriteEndObject();
         }
         json.WriteEndArray();
-        json.WriteStartArray("unmatched_points");
-        foreach (var id in report.UnmatchedPoints)
-        {
-            json.WriteStringValue(id);
-        }
-        json.WriteEndArray();
+        JsonFields.Strings(json, "unmatched_points", report.UnmatchedPoints);
         json.WriteStartArray("rows_without_point");
         foreach (var row in report.RowsWithoutPoint)
         {
@@ -60,12 +55,7 @@ public static class MatrixManifest
             json.WriteEndObject();
         }
         json.WriteEndArray();
-        json.WriteStartArray("warnings");
-        foreach (var warning in report.Warnings)
-        {
-            json.WriteStringValue(warning);
-        }
-        json.WriteEndArray();
+        JsonFields.Strings(json, "warnings", report.Warnings);
         json.WriteEndObject();
     }
 }
