@@ -44,14 +44,15 @@ public static class WindowStatistics
     /// Notch and low-pass settings are not used here on purpose: a low-pass narrows the scatter and would
     /// understate the Type A uncertainty. What was done is in <see cref="ChannelWindowStats.Conditioning"/>.
     /// </summary>
-    public static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, double[] values, ConditioningSettings settings, SensorFaultLimits limits)
+    /// <remarks>Messages give times since dayStartS, the first sample of the day on the log clock.</remarks>
+    public static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, double[] values, ConditioningSettings settings, SensorFaultLimits limits, double dayStartS = 0.0)
     {
         ArgumentNullException.ThrowIfNull(settings);
         var finite = values.Count(double.IsFinite);
         if (finite < 3)
         {
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel),
-                $"window '{window.Id}' ({window.StartS:F1}–{window.EndS:F1} s) holds {finite} valid samples of '{channel}'; at least 3 are needed");
+                $"window '{window.Id}' ({window.StartS - dayStartS:F1}–{window.EndS - dayStartS:F1} s since the first sample of the day) holds {finite} valid samples of '{channel}'; at least 3 are needed");
         }
         var bridged = GapBridging.Bridge(timesS, values, settings.MaxBridgeS);
         var interior = bridged.Report.Unbridged.Where(g => !g.AtRecordEdge).ToList();
@@ -59,7 +60,7 @@ public static class WindowStatistics
         {
             var gap = interior.OrderByDescending(g => g.DurationS).First();
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel), string.Create(System.Globalization.CultureInfo.InvariantCulture,
-                $"channel '{channel}' has a {gap.DurationS:F1} s gap ({gap.StartS:F1}–{gap.EndS:F1} s) inside window '{window.Id}', longer than the {settings.MaxBridgeS:G} s that may be bridged"));
+                $"channel '{channel}' has a {gap.DurationS:F1} s gap ({gap.StartS - dayStartS:F1}–{gap.EndS - dayStartS:F1} s since the first sample of the day) inside window '{window.Id}', longer than the {settings.MaxBridgeS:G} s that may be bridged"));
         }
         var keptTimes = new List<double>(bridged.Values.Length);
         var kept = new List<double>(bridged.Values.Length);

@@ -97,7 +97,7 @@ public static class DayProcessor
         {
             var where = pinnedAt is null ? new SourceLocation("(logs)", Key: channel) : pinnedAt with { Key = $"{pinnedAt.Key}, channel '{channel}'" };
             throw new BcPrepFailure(FailureKind.InputData, where, string.Create(CultureInfo.InvariantCulture,
-                $"window '{window.Id}' ({window.StartS:F1}–{window.EndS:F1} s on the log clock) holds no samples of '{channel}': is the window inside the day?"));
+                $"window '{window.Id}' ({window.StartS - dayStartS:F1}–{window.EndS - dayStartS:F1} s since the first sample of the day) holds no samples of '{channel}': is the window inside the day?"));
         }
         if (pinnedAt is null)
         {

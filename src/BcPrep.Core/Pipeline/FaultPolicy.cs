@@ -44,10 +44,10 @@ public static class FaultPolicy
         var channel = rig.Channel(channelId);
         if (channel is null)
         {
-            return WindowStatistics.Evaluate(channelId, window, timesS, values, rig.Conditioning.MaxBridgeS);
+            return WindowStatistics.Evaluate(channelId, window, timesS, values, new ConditioningSettings(MaxBridgeS: rig.Conditioning.MaxBridgeS), new SensorFaultLimits(), dayStartS);
         }
         var limits = ChannelConditioningPlan.Limits(channel);
-        var stats = WindowStatistics.Evaluate(channelId, window, timesS, values, ChannelConditioningPlan.Settings(rig, channel), limits);
+        var stats = WindowStatistics.Evaluate(channelId, window, timesS, values, ChannelConditioningPlan.Settings(rig, channel), limits, dayStartS);
         var report = stats.Conditioning!;
         var verdicts = report.Faults.Select(v => v with { Severity = Judge(channel, v.Flag, limits) }).ToList();
         if (verdicts.FirstOrDefault(v => v.Severity == FaultSeverity.Failure) is { } failing)
