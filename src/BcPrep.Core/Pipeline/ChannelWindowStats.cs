@@ -29,12 +29,6 @@ public sealed record ChannelWindowStats(
 /// <summary>Reduces one channel's window samples to <see cref="ChannelWindowStats"/>.</summary>
 public static class WindowStatistics
 {
-    /// <summary>Longest gap (s) bridged by interpolation inside a window; a longer one fails the window.</summary>
-    public const double DefaultMaxBridgeS = 2.0;
-
-    public static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, double[] values, double maxBridgeS = DefaultMaxBridgeS) =>
-        Evaluate(channel, window, timesS, values, new ConditioningSettings(MaxBridgeS: maxBridgeS), new SensorFaultLimits());
-
     /// <summary>
     /// Bridges gaps up to <see cref="ConditioningSettings.MaxBridgeS"/> (a longer gap inside the window fails it with
     /// <see cref="FailureKind.InputData"/>; missing cells at the window edges are dropped and reported), removes

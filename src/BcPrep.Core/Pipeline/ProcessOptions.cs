@@ -4,7 +4,6 @@ namespace BcPrep.Pipeline;
 public sealed record ProcessOptions(
     bool MonteCarlo = false,
     int Seed = 1,
-    double MaxBridgeS = WindowStatistics.DefaultMaxBridgeS,
     int MonteCarloMaxTrials = 200_000)
 {
     /// <summary>Channel ids (or "all") whose expired calibration the person explicitly allows; recorded in the manifest.</summary>
