@@ -8,7 +8,7 @@ public static class ChannelConditioner
         "Gustafsson (1996) initial states, section by section (forward-backward equals backward-forward at both ends; no invented samples)";
 
     /// <summary>
-    /// Gaps are bridged first (<see cref="GapBridging.Bridge"/>); Hampel spike removal runs on the result; notch and
+    /// Gaps are bridged first (<see cref="GapBridging.Bridge(ReadOnlySpan{double}, ReadOnlySpan{double}, double)"/>); Hampel spike removal runs on the result; notch and
     /// low-pass run zero-phase on each gap-free segment separately (NaN cells and unbridged time jumps cut segments),
     /// because filtering across a gap would smear invented values. Sample rate = 1 / nominal interval.
     /// The mains notch is skipped when the mains frequency is not below Nyquist (NotchFrequenciesHz stays empty).

@@ -1,5 +1,4 @@
 using System.Globalization;
-using MathNet.Numerics.Statistics;
 
 namespace BcPrep.Conditioning;
 
@@ -14,7 +13,7 @@ public readonly record struct DataGap(double StartS, double EndS, int MissingSam
     public double DurationS => EndS - StartS;
 }
 
-/// <summary>What <see cref="GapBridging.Bridge"/> found and changed.</summary>
+/// <summary>What <see cref="GapBridging.Bridge(ReadOnlySpan{double}, ReadOnlySpan{double}, double)"/> found and changed.</summary>
 public sealed record GapReport(
     double NominalIntervalS,
     int NonFiniteCells,
@@ -49,7 +48,22 @@ public static class GapBridging
     /// </summary>
     /// <exception cref="BcPrepDataException">Lengths differ, fewer than 2 samples, a non-finite or non-increasing
     /// time stamp, or maxBridgeS negative/NaN.</exception>
-    public static GapBridgeResult Bridge(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values, double maxBridgeS)
+    public static GapBridgeResult Bridge(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values, double maxBridgeS) =>
+        Bridge(timesS, values, maxBridgeS, null, null);
+
+    /// <summary>
+    /// As <see cref="Bridge(ReadOnlySpan{double}, ReadOnlySpan{double}, double)"/>, but when nothing is bridged the
+    /// result holds <paramref name="timesS"/> and <paramref name="values"/> themselves instead of copies: a window of
+    /// a long, clean record is not copied just to be read.
+    /// </summary>
+    public static GapBridgeResult Bridge(double[] timesS, double[] values, double maxBridgeS)
+    {
+        ArgumentNullException.ThrowIfNull(timesS);
+        ArgumentNullException.ThrowIfNull(values);
+        return Bridge(timesS, values, maxBridgeS, timesS, values);
+    }
+
+    private static GapBridgeResult Bridge(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values, double maxBridgeS, double[]? sameTimes, double[]? sameValues)
     {
         Validate(timesS, values, maxBridgeS);
         double nominal = NominalInterval(timesS);
@@ -98,6 +112,12 @@ public static class GapBridging
         {
             int first = previousValid + 1;
             gaps.Add(new DataGap(timesS[first], timesS[^1], values.Length - first, false, true));
+        }
+
+        if (bridgedPairs.Count == 0 && sameTimes is not null && sameValues is not null)
+        {
+            var report = new GapReport(nominal, nonFinite, jumps, 0, 0, gaps);
+            return new GapBridgeResult(sameTimes, sameValues, new bool[sameValues.Length], report);
         }
 
         return Assemble(timesS, values, nominal, jumpS, bridgedPairs, gaps, nonFinite, jumps);
@@ -177,13 +197,14 @@ public static class GapBridging
 
     private static double NominalInterval(ReadOnlySpan<double> timesS)
     {
-        var steps = new double[timesS.Length - 1];
+        // The selection reorders its input, so it works on a per-thread scratch copy of the steps.
+        var steps = ThreadScratch.Rent(ScratchSlots.TimeSteps, timesS.Length - 1);
         for (int i = 1; i < timesS.Length; i++)
         {
             steps[i - 1] = timesS[i] - timesS[i - 1];
         }
 
-        return ArrayStatistics.MedianInplace(steps);
+        return OrderStatistics.MedianInPlace(steps.AsSpan(0, timesS.Length - 1));
     }
 
     private static void Validate(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values, double maxBridgeS)

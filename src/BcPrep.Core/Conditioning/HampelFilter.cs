@@ -28,6 +28,11 @@ public static class HampelFilter
     public static HampelResult Apply(ReadOnlySpan<double> x, int halfWindow = 3, double sigmaThreshold = 3.0, double scaleFloor = 0.0)
     {
         Validate(halfWindow, sigmaThreshold, scaleFloor);
+        if (halfWindow == SevenPointWindow.HalfWindow && x.Length > 2 * halfWindow && AllFinite(x))
+        {
+            return ApplySevenPoint(x, sigmaThreshold, scaleFloor);
+        }
+
         int n = x.Length;
         var output = x.ToArray();
         var replaced = new List<int>();
@@ -37,12 +42,19 @@ public static class HampelFilter
         for (int i = 0; i < n; i++)
         {
             int leaving = i - halfWindow - 1;
-            if (leaving >= 0)
+            int last = Math.Min(n - 1, i + halfWindow);
+            if (leaving >= 0 && right < last)
+            {
+                // In the middle of the record one sample leaves as one enters: one slide instead of two shifts.
+                right++;
+                window.Replace(x[leaving], x[right]);
+            }
+            else if (leaving >= 0)
             {
                 window.Remove(x[leaving]);
             }
 
-            while (right < Math.Min(n - 1, i + halfWindow))
+            while (right < last)
             {
                 right++;
                 window.Add(x[right]);
@@ -63,6 +75,66 @@ public static class HampelFilter
         }
 
         return new HampelResult(output, replaced);
+    }
+
+    /// <summary>
+    /// The default window (k = 3) on finite samples: median and MAD of each full window from a sorting network,
+    /// without branches that depend on the data, which is what made the sliding sorted window slow on noisy signals.
+    /// The truncated windows at the two ends go through the general sorted window. Same values as the general path.
+    /// </summary>
+    private static HampelResult ApplySevenPoint(ReadOnlySpan<double> x, double sigmaThreshold, double scaleFloor)
+    {
+        const int k = SevenPointWindow.HalfWindow;
+        int n = x.Length;
+        var output = x.ToArray();
+        var replaced = new List<int>();
+        for (int i = 0; i < n; i++)
+        {
+            double median;
+            double mad;
+            if (i >= k && i < n - k)
+            {
+                (median, mad) = SevenPointWindow.MedianAndMad(x.Slice(i - k, (2 * k) + 1));
+            }
+            else
+            {
+                (median, mad) = TruncatedWindow(x, i, k);
+            }
+
+            double scale = Math.Max(MadToSigma * mad, scaleFloor);
+            if (scale > 0.0 && Math.Abs(x[i] - median) > sigmaThreshold * scale)
+            {
+                output[i] = median;
+                replaced.Add(i);
+            }
+        }
+
+        return new HampelResult(output, replaced);
+    }
+
+    private static (double Median, double Mad) TruncatedWindow(ReadOnlySpan<double> x, int i, int k)
+    {
+        var window = new SortedWindow((2 * k) + 1);
+        for (int j = Math.Max(0, i - k); j <= Math.Min(x.Length - 1, i + k); j++)
+        {
+            window.Add(x[j]);
+        }
+
+        double median = window.Median();
+        return (median, window.MedianAbsoluteDeviation(median));
+    }
+
+    private static bool AllFinite(ReadOnlySpan<double> x)
+    {
+        foreach (var v in x)
+        {
+            if (!double.IsFinite(v))
+            {
+                return false;
+            }
+        }
+
+        return true;
     }
 
     private static void Validate(int halfWindow, double sigmaThreshold, double scaleFloor)
@@ -100,10 +172,41 @@ public static class HampelFilter
                 return;
             }
 
-            int pos = LowerBound(value);
-            Array.Copy(_sorted, pos, _sorted, pos + 1, Count - pos);
+            int pos = Count;
+            while (pos > 0 && _sorted[pos - 1] > value)
+            {
+                _sorted[pos] = _sorted[pos - 1];
+                pos--;
+            }
+
             _sorted[pos] = value;
             Count++;
+        }
+
+        /// <summary>Removes <paramref name="leaving"/> and adds <paramref name="entering"/> by sliding the entries between their places.</summary>
+        public void Replace(double leaving, double entering)
+        {
+            if (!double.IsFinite(leaving) || !double.IsFinite(entering))
+            {
+                Remove(leaving);
+                Add(entering);
+                return;
+            }
+
+            int pos = LowerBound(leaving);
+            while (pos + 1 < Count && _sorted[pos + 1] < entering)
+            {
+                _sorted[pos] = _sorted[pos + 1];
+                pos++;
+            }
+
+            while (pos > 0 && _sorted[pos - 1] > entering)
+            {
+                _sorted[pos] = _sorted[pos - 1];
+                pos--;
+            }
+
+            _sorted[pos] = entering;
         }
 
         public void Remove(double value)
@@ -113,8 +216,11 @@ public static class HampelFilter
                 return;
             }
 
-            int pos = LowerBound(value);
-            Array.Copy(_sorted, pos + 1, _sorted, pos, Count - pos - 1);
+            for (int pos = LowerBound(value); pos < Count - 1; pos++)
+            {
+                _sorted[pos] = _sorted[pos + 1];
+            }
+
             Count--;
         }
 

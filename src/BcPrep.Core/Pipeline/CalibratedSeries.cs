@@ -12,13 +12,13 @@ public static class CalibratedSeries
     public static void Stream(RigDescription rig, IReadOnlyList<LogInput> logs, Action<DayPlan, IReadOnlyDictionary<string, double>> onStart, IBlockSink sink)
     {
         var plan = DayPlan.Create(rig, logs);
-        var converters = rig.Channels.ToDictionary(c => c.Id, ChannelConversion.For, StringComparer.Ordinal);
+        var converters = rig.Channels.ToDictionary(c => c.Id, BlockConverter.For, StringComparer.Ordinal);
         var tares = TareMeans(rig, plan, converters);
         onStart(plan, tares);
         DayScan.Run(rig, plan, converters, [], new TareApplyingSink(tares, sink));
     }
 
-    private static Dictionary<string, double> TareMeans(RigDescription rig, DayPlan plan, IReadOnlyDictionary<string, SampleConverter> converters)
+    private static Dictionary<string, double> TareMeans(RigDescription rig, DayPlan plan, IReadOnlyDictionary<string, BlockConverter> converters)
     {
         var result = new Dictionary<string, double>(StringComparer.Ordinal);
         var windows = rig.Channels.Where(c => c.Tare is not null)

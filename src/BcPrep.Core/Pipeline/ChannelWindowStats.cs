@@ -42,7 +42,7 @@ public static class WindowStatistics
     public static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, double[] values, ConditioningSettings settings, SensorFaultLimits limits, double dayStartS = 0.0)
     {
         ArgumentNullException.ThrowIfNull(settings);
-        var finite = values.Count(double.IsFinite);
+        var finite = FiniteCount(values);
         if (finite < 3)
         {
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel),
@@ -56,29 +56,65 @@ public static class WindowStatistics
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel), string.Create(System.Globalization.CultureInfo.InvariantCulture,
                 $"channel '{channel}' has a {gap.DurationS:F1} s gap ({gap.StartS - dayStartS:F1}–{gap.EndS - dayStartS:F1} s since the first sample of the day) inside window '{window.Id}', longer than the {settings.MaxBridgeS:G} s that may be bridged"));
         }
-        var keptTimes = new List<double>(bridged.Values.Length);
-        var kept = new List<double>(bridged.Values.Length);
-        for (var i = 0; i < bridged.Values.Length; i++)
-        {
-            if (double.IsFinite(bridged.Values[i]))
-            {
-                keptTimes.Add(bridged.TimesS[i]);
-                kept.Add(bridged.Values[i]);
-            }
-        }
-        var despiked = HampelFilter.Apply(kept.ToArray(), settings.HampelHalfWindow, settings.HampelSigmas, settings.HampelScaleFloor);
+        var (keptTimes, kept) = FiniteSamples(bridged.TimesS, bridged.Values);
+        var despiked = HampelFilter.Apply(kept, settings.HampelHalfWindow, settings.HampelSigmas, settings.HampelScaleFloor);
         var clean = despiked.Values;
         var faults = SensorFaults.Check(clean, limits).Flags;
         var typeA = WindowMean.Evaluate(clean);
+        var (min, max) = Range(clean);
         var report = new WindowConditioning(
             bridged.Report.Bridged.ToList(), bridged.Report.Unbridged.ToList(),
             despiked.ReplacedIndices.Select(i => keptTimes[i]).ToList(),
-            faults.Select(f => new FaultVerdict(f, FaultSeverity.Warning, f.FirstIndex >= 0 && f.FirstIndex < keptTimes.Count ? keptTimes[f.FirstIndex] : double.NaN)).ToList());
+            faults.Select(f => new FaultVerdict(f, FaultSeverity.Warning, f.FirstIndex >= 0 && f.FirstIndex < keptTimes.Length ? keptTimes[f.FirstIndex] : double.NaN)).ToList());
         return new ChannelWindowStats(
             channel, window.Id, clean.Length, values.Length - finite, bridged.Report.InterpolatedSamples,
-            despiked.ReplacedIndices.Count, typeA.Mean, typeA.StandardDeviation, clean.Min(), clean.Max(), typeA, faults)
+            despiked.ReplacedIndices.Count, typeA.Mean, typeA.StandardDeviation, min, max, typeA, faults)
         {
             Conditioning = report,
         };
+    }
+
+    private static int FiniteCount(double[] values)
+    {
+        var count = 0;
+        foreach (var v in values)
+        {
+            count += double.IsFinite(v) ? 1 : 0;
+        }
+        return count;
+    }
+
+    /// <summary>The finite samples with their times; the arrays themselves when all are finite (the usual case).</summary>
+    private static (double[] TimesS, double[] Values) FiniteSamples(double[] timesS, double[] values)
+    {
+        var finite = FiniteCount(values);
+        if (finite == values.Length)
+        {
+            return (timesS, values);
+        }
+        var keptTimes = new double[finite];
+        var kept = new double[finite];
+        var o = 0;
+        for (var i = 0; i < values.Length; i++)
+        {
+            if (double.IsFinite(values[i]))
+            {
+                keptTimes[o] = timesS[i];
+                kept[o++] = values[i];
+            }
+        }
+        return (keptTimes, kept);
+    }
+
+    private static (double Min, double Max) Range(double[] values)
+    {
+        var min = double.PositiveInfinity;
+        var max = double.NegativeInfinity;
+        foreach (var v in values)
+        {
+            min = Math.Min(min, v);
+            max = Math.Max(max, v);
+        }
+        return (min, max);
     }
 }

@@ -24,7 +24,7 @@ public static class DayProcessor
         var plan = DayPlan.Create(rig, logs);
         // Fail before the long scan when a sensor was already out of calibration on the first sample's date.
         CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, plan.DayStartS, plan.DayStartS), options.AllowExpired);
-        var converters = rig.Channels.ToDictionary(c => c.Id, ChannelConversion.For, StringComparer.Ordinal);
+        var converters = rig.Channels.ToDictionary(c => c.Id, BlockConverter.For, StringComparer.Ordinal);
         var blocks = new BlockMeanSink(plan.DayStartS, rig.Steady.BlockS);
         var stats = new Dictionary<string, Dictionary<string, ChannelWindowStats>>(StringComparer.Ordinal);
         var tareWindows = TareWindows(rig, plan.DayStartS);

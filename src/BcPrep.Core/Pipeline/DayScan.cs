@@ -17,7 +17,7 @@ public static class DayScan
     public static void Run(
         RigDescription rig,
         DayPlan plan,
-        IReadOnlyDictionary<string, SampleConverter> converters,
+        IReadOnlyDictionary<string, BlockConverter> converters,
         IReadOnlyList<IChannelSink> sinks,
         IBlockSink? blockSink = null,
         ReadProgress? progress = null,
@@ -38,7 +38,7 @@ public static class DayScan
     /// </summary>
     private sealed record ReadingPlan(ScanIndex? Index, IReadOnlyList<TimeWindow>? Windows);
 
-    private static void ScanLogger(RigDescription rig, LoggerFiles logger, IReadOnlyDictionary<string, SampleConverter> converters, IReadOnlyList<IChannelSink> sinks, IBlockSink? blockSink, ReadProgress? progress, ReadingPlan reading)
+    private static void ScanLogger(RigDescription rig, LoggerFiles logger, IReadOnlyDictionary<string, BlockConverter> converters, IReadOnlyList<IChannelSink> sinks, IBlockSink? blockSink, ReadProgress? progress, ReadingPlan reading)
     {
         var channels = OrderByDependency(logger.Channels, rig);
         var columns = logger.Channels.Select(c => c.Column).ToList();
@@ -197,7 +197,7 @@ public static class DayScan
     }
 
     private static void ConvertBlock(LogInput file, LogBlock block, LoggerFiles logger, IReadOnlyList<ChannelSpec> channels,
-        IReadOnlyDictionary<string, SampleConverter> converters, Dictionary<string, double[]> si)
+        IReadOnlyDictionary<string, BlockConverter> converters, Dictionary<string, double[]> si)
     {
         var referenceEmf = new Dictionary<(string, ThermocoupleType), double[]>();
         foreach (var channel in channels)
@@ -209,25 +209,36 @@ public static class DayScan
             var fixedReference = channel.Sensor is ThermocoupleSensor { ColdJunctionK: { } k } tc
                 ? Its90Thermocouple.EmfV(ChannelConversion.ThermocoupleTypeOf(tc), k)
                 : 0.0;
-            for (var i = 0; i < block.Count; i++)
+            try
             {
-                var x = raw[i];
-                if (double.IsNaN(x))
-                {
-                    output[i] = double.NaN;
-                    continue;
-                }
-                try
-                {
-                    output[i] = convert(x, reference is null ? fixedReference : reference[i]);
-                }
-                catch (BcPrepDataException e) when (e is not BcPrepFailure)
-                {
-                    throw new BcPrepFailure(FailureKind.InputData, new SourceLocation(file.DisplayName, (int)block.LineNumbers[i], null, channel.Column),
-                        $"channel '{channel.Id}' at t = {Fmt(block.TimeS[i])} s reads {Fmt(x)} {channel.Sensor.RawUnit}: {e.Message}");
-                }
+                convert.Convert(raw.AsSpan(0, block.Count), reference is null ? default : reference.AsSpan(0, block.Count), fixedReference, output);
+            }
+            catch (BcPrepDataException e) when (e is not BcPrepFailure)
+            {
+                throw FailedSample(file, block, channel, convert, raw, reference, fixedReference);
             }
         }
+    }
+
+    /// <summary>The error for the first sample of a failed block that cannot be converted: file, line, column, time and value.</summary>
+    private static BcPrepFailure FailedSample(LogInput file, LogBlock block, ChannelSpec channel, BlockConverter convert, double[] raw, double[]? reference, double fixedReference)
+    {
+        for (var i = 0; i < block.Count; i++)
+        {
+            try
+            {
+                if (!double.IsNaN(raw[i]))
+                {
+                    convert.PerSample(raw[i], reference is null ? fixedReference : reference[i]);
+                }
+            }
+            catch (BcPrepDataException e) when (e is not BcPrepFailure)
+            {
+                return new BcPrepFailure(FailureKind.InputData, new SourceLocation(file.DisplayName, (int)block.LineNumbers[i], null, channel.Column),
+                    $"channel '{channel.Id}' at t = {Fmt(block.TimeS[i])} s reads {Fmt(raw[i])} {channel.Sensor.RawUnit}: {e.Message}");
+            }
+        }
+        throw new InvalidOperationException($"channel '{channel.Id}': the block failed but no sample fails alone");
     }
 
     /// <summary>

@@ -33,35 +33,80 @@ public sealed class WindowCollector : IChannelSink
             state = new ChannelState(_windows.Count);
             _state[channel] = state;
         }
-        for (var i = 0; i < timeS.Length; i++)
+        if (timeS.IsEmpty)
         {
-            var t = timeS[i];
-            for (var w = state.FirstOpen; w < _windows.Count; w++)
+            return;
+        }
+        // Times increase, so each window takes one contiguous run of the block: copy runs, not samples.
+        for (var w = state.FirstOpen; w < _windows.Count; w++)
+        {
+            var window = _windows[w];
+            if (timeS[^1] < window.StartS)
             {
-                var window = _windows[w];
-                if (t < window.StartS)
-                {
-                    break;
-                }
-                if (t <= window.EndS)
-                {
-                    if (state.Times[w].Count == 0)
-                    {
-                        Reserve(state, w, window, timeS, i);
-                    }
-                    state.Times[w].Add(t);
-                    state.Values[w].Add(valueSi[i]);
-                }
-                else
-                {
-                    Flush(channel, state, w);
-                }
+                break; // windows are ordered by start: this one and the rest begin after the block
             }
-            while (state.FirstOpen < _windows.Count && state.Done[state.FirstOpen])
+            if (state.Done[w])
             {
-                state.FirstOpen++;
+                continue;
+            }
+            var first = FirstAtOrAfter(timeS, window.StartS);
+            var end = FirstAfter(timeS, window.EndS);
+            if (end > first)
+            {
+                if (state.Times[w].Count == 0)
+                {
+                    Reserve(state, w, window, timeS, first);
+                }
+                state.Times[w].AddRange(timeS[first..end]);
+                state.Values[w].AddRange(valueSi[first..end]);
+            }
+            if (end < timeS.Length)
+            {
+                Flush(channel, state, w);
             }
         }
+        while (state.FirstOpen < _windows.Count && state.Done[state.FirstOpen])
+        {
+            state.FirstOpen++;
+        }
+    }
+
+    private static int FirstAtOrAfter(ReadOnlySpan<double> timeS, double limitS)
+    {
+        var lo = 0;
+        var hi = timeS.Length;
+        while (lo < hi)
+        {
+            var mid = (lo + hi) >>> 1;
+            if (timeS[mid] < limitS)
+            {
+                lo = mid + 1;
+            }
+            else
+            {
+                hi = mid;
+            }
+        }
+        return lo;
+    }
+
+    private static int FirstAfter(ReadOnlySpan<double> timeS, double limitS)
+    {
+        var lo = 0;
+        var hi = timeS.Length;
+        while (lo < hi)
+        {
+            var mid = (lo + hi) >>> 1;
+            if (timeS[mid] <= limitS)
+            {
+                lo = mid + 1;
+            }
+            else
+            {
+                hi = mid;
+            }
+        }
+        return lo;
     }
 
     public void Complete(string channel)

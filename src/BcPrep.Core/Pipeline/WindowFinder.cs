@@ -28,7 +28,7 @@ public static class WindowFinder
     {
         ArgumentNullException.ThrowIfNull(rig);
         var plan = DayPlan.Create(rig, logs);
-        var converters = rig.Channels.ToDictionary(c => c.Id, ChannelConversion.For, StringComparer.Ordinal);
+        var converters = rig.Channels.ToDictionary(c => c.Id, BlockConverter.For, StringComparer.Ordinal);
         var feed = DetectionFeed.For(rig, new BlockMeanSink(plan.DayStartS, rig.Steady.BlockS));
         DayScan.Run(rig, plan, converters, feed.ChannelSinks, feed.BlockSink);
         feed.Complete();

@@ -1,5 +1,4 @@
 using System.Numerics;
-using MathNet.Numerics.Statistics;
 
 namespace BcPrep.Uncertainty;
 
@@ -7,7 +6,7 @@ namespace BcPrep.Uncertainty;
 /// The biased sample autocorrelation ρ̂(k) = Σᵢ dᵢ dᵢ₊ₖ / Σᵢ dᵢ² (d = x − mean; the estimator of MathNet's
 /// Correlation.Auto), computed only as far as it is read. The Sokal and Bartlett cut-offs stop after a few times
 /// the correlation time, usually tens of lags, so direct sums over those lags cost far less than an FFT of the
-/// whole window; when many lags are needed it falls back to the FFT once.
+/// whole window; when many lags are needed (a slow or drifting channel) it switches to one FFT of the whole window.
 /// </summary>
 internal sealed class LazyAutocorrelation
 {
@@ -17,12 +16,14 @@ internal sealed class LazyAutocorrelation
     private readonly double[] _samples;
     private readonly double[] _deviations;
     private readonly double _sumOfSquares;
+    private readonly double _mean;
     private double[] _rho;
     private int _known;
 
     public LazyAutocorrelation(double[] samples, double mean)
     {
         _samples = samples;
+        _mean = mean;
         _deviations = new double[samples.Length];
         var ss = 0.0;
         for (var i = 0; i < samples.Length; i++)
@@ -56,7 +57,7 @@ internal sealed class LazyAutocorrelation
         var target = Math.Min(Length, Math.Max(lag + 1, 2 * _known));
         if (target > DirectLagLimit)
         {
-            _rho = Correlation.Auto(_samples, 0, Length - 1);
+            _rho = FftAutocorrelation.Compute(_samples, _mean);
             _known = Length;
             return;
         }

@@ -7,7 +7,7 @@ namespace BcPrep.Uncertainty;
 /// Type A uncertainty of the mean of an autocorrelated steady window (reference sheet 4.1):
 /// var(x̄) = σ²γ_n/n with γ_n = 1 + 2 Σ (1 − k/n) ρ(k); n_eff = n/γ_n; the unbiased estimate
 /// u(x̄) = s·√[(n − 1)/(n(n_eff − 1))] corrects for E[s²] = σ²(n − γ_n)/(n − 1) (Zhang 2006, Metrologia 43 S276).
-/// ρ̂(k) comes from MathNet's FFT autocorrelation, so the cost is O(n log n) (10⁶ samples in well under a second).
+/// ρ̂(k) is summed directly over the first lags and by one FFT when the cut-off needs many, so the cost is at most O(n log n).
 /// </summary>
 /// <remarks>
 /// Degrees of freedom: ν = min(n_eff − 1, n/(2M + 1)). The first term is the common practice; alone it ignores that

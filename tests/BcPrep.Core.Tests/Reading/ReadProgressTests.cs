@@ -14,7 +14,7 @@ public class ReadProgressTests
         var total = logs.Sum(l => new FileInfo(l.Path).Length);
         var progress = new ReadProgress(total);
 
-        DayScan.Run(rig, DayPlan.Create(rig, logs), rig.Channels.ToDictionary(c => c.Id, ChannelConversion.For), [], progress: progress);
+        DayScan.Run(rig, DayPlan.Create(rig, logs), rig.Channels.ToDictionary(c => c.Id, BlockConverter.For), [], progress: progress);
 
         Assert.Equal(1, progress.Pass);
         // Offsets count to the start of each file's last record, so at most one short row per file is missing.

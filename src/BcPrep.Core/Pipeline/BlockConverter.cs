@@ -1,0 +1,86 @@
+using System.Numerics;
+using BcPrep.Calibration;
+using BcPrep.Rig;
+
+namespace BcPrep.Pipeline;
+
+/// <summary>
+/// Converts a block of one channel's logged numbers to SI. Sensors whose conversion is a chain of straight lines
+/// (linear sensors, quantities logged directly in a unit) are converted with vector arithmetic in the same order of
+/// operations as the per-sample function, so the results are identical to it; the others call it sample by sample.
+/// </summary>
+public sealed class BlockConverter
+{
+    private readonly LinearChain? _linear;
+
+    private BlockConverter(SampleConverter perSample, LinearChain? linear)
+    {
+        PerSample = perSample;
+        _linear = linear;
+    }
+
+    /// <summary>The per-sample conversion, also used to find the sample behind a failed block.</summary>
+    public SampleConverter PerSample { get; }
+
+    public static BlockConverter For(ChannelSpec channel)
+    {
+        ArgumentNullException.ThrowIfNull(channel);
+        LinearChain? linear = channel.Sensor switch
+        {
+            LinearSensor l => new LinearChain(l.Gain, l.Offset, l.UnitToSi),
+            DirectSensor d => new LinearChain(1.0, 0.0, d.UnitToSi, Direct: true),
+            _ => null,
+        };
+        return new BlockConverter(ChannelConversion.For(channel), linear);
+    }
+
+    /// <summary>
+    /// si[i] = f(raw[i], reference[i]) for every sample; NaN stays NaN. <paramref name="referenceEmfV"/> is empty
+    /// when the channel has no reference-junction channel, and <paramref name="fixedReferenceEmfV"/> is used instead.
+    /// Throws <see cref="BcPrepDataException"/> for a sample outside the calibration's range.
+    /// </summary>
+    public void Convert(ReadOnlySpan<double> raw, ReadOnlySpan<double> referenceEmfV, double fixedReferenceEmfV, Span<double> si)
+    {
+        if (_linear is { } chain)
+        {
+            chain.Apply(raw, si);
+            return;
+        }
+        var convert = PerSample;
+        for (var i = 0; i < raw.Length; i++)
+        {
+            var x = raw[i];
+            si[i] = double.IsNaN(x) ? double.NaN : convert(x, referenceEmfV.IsEmpty ? fixedReferenceEmfV : referenceEmfV[i]);
+        }
+    }
+
+    /// <summary>
+    /// y = s·(g·x + o) + h (a linear sensor's calibration, then its unit to SI), or y = s·x + h for a direct one:
+    /// the operations <see cref="ChannelConversion.For"/> performs, in its order, so rounding is the same.
+    /// </summary>
+    private sealed record LinearChain(double Gain, double Offset, Affine ToSi, bool Direct = false)
+    {
+        public void Apply(ReadOnlySpan<double> raw, Span<double> si)
+        {
+            var i = 0;
+            if (Vector.IsHardwareAccelerated)
+            {
+                var width = Vector<double>.Count;
+                var gain = new Vector<double>(Gain);
+                var offset = new Vector<double>(Offset);
+                var scale = new Vector<double>(ToSi.Scale);
+                var shift = new Vector<double>(ToSi.Shift);
+                for (; i <= raw.Length - width; i += width)
+                {
+                    var x = new Vector<double>(raw.Slice(i, width));
+                    var y = Direct ? (scale * x) + shift : (scale * ((gain * x) + offset)) + shift;
+                    y.CopyTo(si.Slice(i, width));
+                }
+            }
+            for (; i < raw.Length; i++)
+            {
+                si[i] = Direct ? ToSi.Apply(raw[i]) : ToSi.Apply((Gain * raw[i]) + Offset);
+            }
+        }
+    }
+}

@@ -1,0 +1,10 @@
+namespace BcPrep;
+
+/// <summary>Which <see cref="ThreadScratch"/> slot each user takes, so that two users never share one in a call.</summary>
+internal static class ScratchSlots
+{
+    public const int TimeSteps = 0;
+    public const int FftReal = 1;
+    public const int FftImaginary = 2;
+    public const int FftPower = 3;
+}

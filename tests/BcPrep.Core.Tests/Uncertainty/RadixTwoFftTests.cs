@@ -1,0 +1,76 @@
+using BcPrep.Uncertainty;
+
+namespace BcPrep.Tests.Uncertainty;
+
+public class RadixTwoFftTests
+{
+    // Reference: the definition of the discrete Fourier transform, X[k] = Σ x[j]·exp(−2πi·jk/n), summed directly.
+    [Theory]
+    [InlineData(1)]
+    [InlineData(2)]
+    [InlineData(8)]
+    [InlineData(64)]
+    [InlineData(1024)]
+    public void Forward_transform_equals_the_dft_definition(int n)
+    {
+        var random = new Random(n);
+        var re = Enumerable.Range(0, n).Select(_ => random.NextDouble() - 0.5).ToArray();
+        var im = Enumerable.Range(0, n).Select(_ => random.NextDouble() - 0.5).ToArray();
+        var (expectedRe, expectedIm) = Dft(re, im);
+
+        RadixTwoFft.Transform(re, im, n, inverse: false);
+
+        for (var k = 0; k < n; k++)
+        {
+            Assert.Equal(expectedRe[k], re[k], 1e-11);
+            Assert.Equal(expectedIm[k], im[k], 1e-11);
+        }
+    }
+
+    // Reference: the inverse of an unnormalised DFT returns n times the input.
+    [Fact]
+    public void Inverse_after_forward_returns_n_times_the_input()
+    {
+        const int n = 4096;
+        var random = new Random(5);
+        var original = Enumerable.Range(0, n).Select(_ => random.NextDouble()).ToArray();
+        var re = (double[])original.Clone();
+        var im = new double[n];
+
+        RadixTwoFft.Transform(re, im, n, inverse: false);
+        RadixTwoFft.Transform(re, im, n, inverse: true);
+
+        for (var j = 0; j < n; j++)
+        {
+            Assert.Equal(original[j] * n, re[j], 1e-9);
+            Assert.Equal(0.0, im[j], 1e-9);
+        }
+    }
+
+    [Theory]
+    [InlineData(0)]
+    [InlineData(3)]
+    [InlineData(12)]
+    public void Refuses_a_length_that_is_not_a_power_of_two(int n)
+    {
+        var buffer = new double[16];
+        Assert.Throws<ArgumentException>(() => RadixTwoFft.Transform(buffer, buffer.ToArray(), n, inverse: false));
+    }
+
+    private static (double[] Re, double[] Im) Dft(double[] re, double[] im)
+    {
+        var n = re.Length;
+        var outRe = new double[n];
+        var outIm = new double[n];
+        for (var k = 0; k < n; k++)
+        {
+            for (var j = 0; j < n; j++)
+            {
+                var angle = -2.0 * Math.PI * j * k / n;
+                outRe[k] += (re[j] * Math.Cos(angle)) - (im[j] * Math.Sin(angle));
+                outIm[k] += (re[j] * Math.Sin(angle)) + (im[j] * Math.Cos(angle));
+            }
+        }
+        return (outRe, outIm);
+    }
+}
