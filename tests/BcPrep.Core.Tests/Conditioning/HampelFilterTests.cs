@@ -58,13 +58,36 @@ public class HampelFilterTests
             x[i] = Math.Round(rng.NextDouble() * 10.0, 1) + (rng.NextDouble() < 0.02 ? 40.0 : 0.0);
         }
 
-        foreach (int k in new[] { 1, 3, 5, 12 })
+        foreach (int k in new[] { 1, 3, 5, 10, 12 })
         {
             var fast = HampelFilter.Apply(x, k, 2.5);
             var (slowValues, slowIdx) = Naive(x, k, 2.5);
             Assert.Equal(slowIdx, fast.ReplacedIndices);
             Assert.Equal(slowValues, fast.Values);
         }
+    }
+
+    // The shortcut that skips the exact MAD for samples well inside the spread must agree with the definition even
+    // where rounding is coarse against the noise: microkelvin noise on 300 K, and samples sitting exactly at the
+    // threshold (a quantised signal, where |x − m| = n_σ·1.4826·MAD happens).
+    [Theory]
+    [InlineData(300.0, 1e-7, 10, 4.0)]
+    [InlineData(0.0, 1.0, 10, 4.0)]
+    [InlineData(1e5, 0.5, 4, 3.0)]
+    public void Matches_the_naive_implementation_on_small_noise_over_a_large_offset(double offset, double noise, int k, double nSigma)
+    {
+        var rng = new Random(77);
+        var x = new double[4000];
+        for (int i = 0; i < x.Length; i++)
+        {
+            x[i] = offset + (noise * Math.Round(rng.NextDouble() * 8.0)) + (rng.NextDouble() < 0.01 ? 30.0 * noise : 0.0);
+        }
+
+        var fast = HampelFilter.Apply(x, k, nSigma);
+        var (slowValues, slowIdx) = Naive(x, k, nSigma);
+
+        Assert.Equal(slowIdx, fast.ReplacedIndices);
+        Assert.Equal(slowValues, fast.Values);
     }
 
     [Theory]
