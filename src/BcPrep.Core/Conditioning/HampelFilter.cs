@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Runtime.CompilerServices;
 
 namespace BcPrep.Conditioning;
 
@@ -25,6 +26,7 @@ public static class HampelFilter
     /// <param name="sigmaThreshold">n_σ &gt; 0 (default 3).</param>
     /// <param name="scaleFloor">Lower bound of the robust σ, same unit as x, ≥ 0 (default 0).</param>
     /// <exception cref="BcPrepDataException">k &lt; 1, n_σ ≤ 0 or floor &lt; 0.</exception>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static HampelResult Apply(ReadOnlySpan<double> x, int halfWindow = 3, double sigmaThreshold = 3.0, double scaleFloor = 0.0)
     {
         Validate(halfWindow, sigmaThreshold, scaleFloor);
@@ -87,6 +89,7 @@ public static class HampelFilter
     /// without branches that depend on the data, which is what made the sliding sorted window slow on noisy signals.
     /// The truncated windows at the two ends go through the general sorted window. Same values as the general path.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static HampelResult ApplySevenPoint(ReadOnlySpan<double> x, double sigmaThreshold, double scaleFloor)
     {
         const int k = SevenPointWindow.HalfWindow;
@@ -170,6 +173,7 @@ public static class HampelFilter
 
         public int Count { get; private set; }
 
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
         public void Add(double value)
         {
             if (!double.IsFinite(value))
@@ -189,6 +193,7 @@ public static class HampelFilter
         }
 
         /// <summary>Removes <paramref name="leaving"/> and adds <paramref name="entering"/> by sliding the entries between their places.</summary>
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
         public void Replace(double leaving, double entering)
         {
             if (!double.IsFinite(leaving) || !double.IsFinite(entering))
@@ -214,6 +219,7 @@ public static class HampelFilter
             _sorted[pos] = entering;
         }
 
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
         public void Remove(double value)
         {
             if (!double.IsFinite(value))
@@ -229,6 +235,7 @@ public static class HampelFilter
             Count--;
         }
 
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
         public double Median()
         {
             int h = Count / 2;
@@ -274,6 +281,7 @@ public static class HampelFilter
         /// 1e-13 of the values' magnitude), so a "true" never disagrees with the exact MAD; near the boundary, and
         /// for an even count, the answer is false and the caller computes the MAD exactly.
         /// </summary>
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
         public bool MadSurelyAbove(double median, double radius)
         {
             if (Count % 2 == 0 || !double.IsFinite(radius))
@@ -287,6 +295,7 @@ public static class HampelFilter
         }
 
         /// <summary>First index whose value is greater than <paramref name="value"/>.</summary>
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
         private int UpperBound(double value)
         {
             // Halving without a data-dependent branch: the comparison only picks the next base (a conditional move),
@@ -303,6 +312,7 @@ public static class HampelFilter
             return n == 1 && _sorted[basePos] <= value ? basePos + 1 : basePos;
         }
 
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
         private int LowerBound(double value)
         {
             int basePos = 0;

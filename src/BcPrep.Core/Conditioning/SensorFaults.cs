@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Runtime.CompilerServices;
 
 namespace BcPrep.Conditioning;
 
@@ -62,6 +63,7 @@ public static class SensorFaults
     /// test is skipped for a stuck window, which would otherwise be "at its own rail" everywhere.
     /// An empty window or one without finite samples raises only NonFinite (if any samples).
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static SensorFaultReport Check(ReadOnlySpan<double> window, SensorFaultLimits limits)
     {
         ArgumentNullException.ThrowIfNull(limits);

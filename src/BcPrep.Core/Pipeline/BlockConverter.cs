@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.CompilerServices;
 using BcPrep.Calibration;
 using BcPrep.Rig;
 
@@ -39,6 +40,7 @@ public sealed class BlockConverter
     /// when the channel has no reference-junction channel, and <paramref name="fixedReferenceEmfV"/> is used instead.
     /// Throws <see cref="BcPrepDataException"/> for a sample outside the calibration's range.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Convert(ReadOnlySpan<double> raw, ReadOnlySpan<double> referenceEmfV, double fixedReferenceEmfV, Span<double> si)
     {
         if (_linear is { } chain)

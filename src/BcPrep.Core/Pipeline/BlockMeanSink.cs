@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace BcPrep.Pipeline;
 
 /// <summary>
@@ -20,6 +22,7 @@ public sealed class BlockMeanSink : IChannelSink
 
     public double OriginS => _originS;
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Accept(string channel, ReadOnlySpan<double> timeS, ReadOnlySpan<double> valueSi)
     {
         if (!_channels.TryGetValue(channel, out var acc))

@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.CompilerServices;
 
 namespace BcPrep.Uncertainty;
 
@@ -72,6 +73,7 @@ internal sealed class LazyAutocorrelation
         _known = target;
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static double LaggedProduct(double[] d, int lag)
     {
         var a = d.AsSpan(0, d.Length - lag);

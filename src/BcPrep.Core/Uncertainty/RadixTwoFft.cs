@@ -1,4 +1,5 @@
 using System.Collections.Concurrent;
+using System.Runtime.CompilerServices;
 
 namespace BcPrep.Uncertainty;
 
@@ -15,6 +16,7 @@ internal static class RadixTwoFft
     /// X[k] = Σ x[j]·exp(∓2πi·jk/n) over the first <paramref name="n"/> elements (a power of two); the minus sign
     /// when <paramref name="inverse"/> is false. Unnormalised both ways.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void Transform(Span<double> re, Span<double> im, int n, bool inverse)
     {
         if (n < 1 || (n & (n - 1)) != 0 || re.Length < n || im.Length < n)
