@@ -7,4 +7,5 @@ internal static class ScratchSlots
     public const int FftReal = 1;
     public const int FftImaginary = 2;
     public const int FftPower = 3;
+    public const int ThermocoupleEmf = 4;
 }

@@ -1,3 +1,5 @@
+using System.Numerics;
+using System.Runtime.CompilerServices;
 using static System.FormattableString;
 
 namespace BcPrep.Calibration;
@@ -94,6 +96,74 @@ public static class Its90Thermocouple
         }
 
         return t + KelvinOffset;
+    }
+
+    /// <summary>
+    /// <see cref="TemperatureK"/> (NIST inverse polynomial) for a block of emfs, with the same operations in the same
+    /// order, so each result equals the single-value one bit for bit. Runs of samples on one polynomial piece are
+    /// evaluated a vector at a time, which is what makes a long day's thermocouples cheap to convert.
+    /// </summary>
+    /// <exception cref="BcPrepDataException">An emf outside <see cref="InverseRangeV"/>, as for the single value.</exception>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public static void TemperaturesK(ThermocoupleType type, ReadOnlySpan<double> emfV, Span<double> temperaturesK)
+    {
+        var table = Its90Coefficients.For(type);
+        var limits = Limits[(int)type];
+        var width = Vector<double>.Count;
+        var i = 0;
+        if (Vector.IsHardwareAccelerated)
+        {
+            for (; i <= emfV.Length - width; i += width)
+            {
+                var emf = new Vector<double>(emfV.Slice(i, width));
+                var piece = SharedInversePiece(table, emf, limits);
+                if (piece is null)
+                {
+                    for (var j = i; j < i + width; j++)
+                    {
+                        temperaturesK[j] = TemperatureK(type, emfV[j]);
+                    }
+                    continue;
+                }
+                var e = emf * new Vector<double>(MillivoltsPerVolt);
+                var c = piece.Coefficients;
+                var sum = Vector<double>.Zero;
+                for (var k = c.Length - 1; k >= 0; k--)
+                {
+                    sum = (sum * e) + new Vector<double>(c[k]);
+                }
+                (sum + new Vector<double>(KelvinOffset)).CopyTo(temperaturesK.Slice(i, width));
+            }
+        }
+        for (; i < emfV.Length; i++)
+        {
+            temperaturesK[i] = TemperatureK(type, emfV[i]);
+        }
+    }
+
+    /// <summary>The inverse piece every lane falls on, or null when lanes differ, are NaN or are out of range.</summary>
+    private static InversePiece? SharedInversePiece(Its90Table table, Vector<double> emfV, InverseLimits limits)
+    {
+        if (!Vector.GreaterThanOrEqualAll(emfV, new Vector<double>(limits.MinV)) || !Vector.LessThanOrEqualAll(emfV, new Vector<double>(limits.MaxV)))
+        {
+            return null; // NaN fails both comparisons, so NaN and out-of-range lanes take the single-value path
+        }
+        var e = emfV * new Vector<double>(MillivoltsPerVolt);
+        var pieces = table.Inverse;
+        for (int p = 0; p < pieces.Length - 1; p++)
+        {
+            var bound = new Vector<double>(pieces[p].MaxMv);
+            if (Vector.LessThanOrEqualAll(e, bound))
+            {
+                return pieces[p];
+            }
+            if (Vector.LessThanOrEqualAny(e, bound))
+            {
+                return null;
+            }
+        }
+
+        return pieces[^1];
     }
 
     internal static double DirectMv(Its90Table table, double t)

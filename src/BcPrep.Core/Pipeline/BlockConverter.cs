@@ -13,11 +13,13 @@ namespace BcPrep.Pipeline;
 public sealed class BlockConverter
 {
     private readonly LinearChain? _linear;
+    private readonly ThermocoupleChain? _thermocouple;
 
-    private BlockConverter(SampleConverter perSample, LinearChain? linear)
+    private BlockConverter(SampleConverter perSample, LinearChain? linear, ThermocoupleChain? thermocouple)
     {
         PerSample = perSample;
         _linear = linear;
+        _thermocouple = thermocouple;
     }
 
     /// <summary>The per-sample conversion, also used to find the sample behind a failed block.</summary>
@@ -32,7 +34,8 @@ public sealed class BlockConverter
             DirectSensor d => new LinearChain(1.0, 0.0, d.UnitToSi, Direct: true),
             _ => null,
         };
-        return new BlockConverter(ChannelConversion.For(channel), linear);
+        var thermocouple = channel.Sensor is ThermocoupleSensor tc ? new ThermocoupleChain(ChannelConversion.ThermocoupleTypeOf(tc), tc.RawToSi) : null;
+        return new BlockConverter(ChannelConversion.For(channel), linear, thermocouple);
     }
 
     /// <summary>
@@ -46,6 +49,11 @@ public sealed class BlockConverter
         if (_linear is { } chain)
         {
             chain.Apply(raw, si);
+            return;
+        }
+        if (_thermocouple is { } tc)
+        {
+            tc.Apply(raw, referenceEmfV, fixedReferenceEmfV, si);
             return;
         }
         var convert = PerSample;
@@ -83,6 +91,23 @@ public sealed class BlockConverter
             {
                 si[i] = Direct ? ToSi.Apply(raw[i]) : ToSi.Apply((Gain * raw[i]) + Offset);
             }
+        }
+    }
+
+    /// <summary>
+    /// T = T₉₀(s·x + h + E(T_ref)): the logged signal to emf, plus the reference junction's emf, through the ITS-90
+    /// inverse, as <see cref="ChannelConversion.For"/> does it, a block at a time.
+    /// </summary>
+    private sealed record ThermocoupleChain(ThermocoupleType Type, Affine RawToSi)
+    {
+        public void Apply(ReadOnlySpan<double> raw, ReadOnlySpan<double> referenceEmfV, double fixedReferenceEmfV, Span<double> si)
+        {
+            var emf = ThreadScratch.Rent(ScratchSlots.ThermocoupleEmf, raw.Length).AsSpan(0, raw.Length);
+            for (var i = 0; i < raw.Length; i++)
+            {
+                emf[i] = RawToSi.Apply(raw[i]) + (referenceEmfV.IsEmpty ? fixedReferenceEmfV : referenceEmfV[i]);
+            }
+            Its90Thermocouple.TemperaturesK(Type, emf, si[..raw.Length]);
         }
     }
 }

@@ -6,11 +6,12 @@ namespace BcPrep.Pipeline;
 /// Averages every channel over fixed blocks of time (e.g. 1 s) during the scan. The block means are what steady
 /// detection and the day plots look at: small (one value per block) whatever the sample rate.
 /// </summary>
-public sealed class BlockMeanSink : IChannelSink
+public sealed class BlockMeanSink : IChannelSink, IBlockSink
 {
     private readonly double _originS;
     private readonly double _blockS;
     private readonly Dictionary<string, (List<double> Sum, List<int> Count)> _channels = new(StringComparer.Ordinal);
+    private readonly List<(int Index, int Start, int End)> _runs = [];
 
     public BlockMeanSink(double originS, double blockS)
     {
@@ -25,11 +26,7 @@ public sealed class BlockMeanSink : IChannelSink
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Accept(string channel, ReadOnlySpan<double> timeS, ReadOnlySpan<double> valueSi)
     {
-        if (!_channels.TryGetValue(channel, out var acc))
-        {
-            acc = ([], []);
-            _channels[channel] = acc;
-        }
+        var acc = Accumulator(channel);
         // Times increase, so samples come in runs that share a block: sum each run locally and touch the lists
         // once per run rather than once per sample.
         var i = 0;
@@ -49,22 +46,83 @@ public sealed class BlockMeanSink : IChannelSink
                     count++;
                 }
             }
-            if (count == 0)
-            {
-                continue;
-            }
-            while (acc.Sum.Count <= index)
-            {
-                acc.Sum.Add(0.0);
-                acc.Count.Add(0);
-            }
-            acc.Sum[index] += sum;
-            acc.Count[index] += count;
+            Add(acc, index, sum, count);
         }
     }
 
     public void Complete(string channel)
     {
+    }
+
+    /// <summary>
+    /// A logger's whole block: its channels share the time stamps, so the runs of samples that fall in one averaging
+    /// block are found once and every channel is summed over them. Same sums as <see cref="Accept"/> channel by channel.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void AcceptBlock(IReadOnlyList<string> channels, double[] timeS, IReadOnlyList<double[]> valuesSi, int count)
+    {
+        FindRuns(timeS.AsSpan(0, count));
+        for (var c = 0; c < channels.Count; c++)
+        {
+            var acc = Accumulator(channels[c]);
+            var values = valuesSi[c];
+            foreach (var (index, start, end) in _runs)
+            {
+                var sum = 0.0;
+                var n = 0;
+                for (var i = start; i < end; i++)
+                {
+                    var v = values[i];
+                    if (!double.IsNaN(v))
+                    {
+                        sum += v;
+                        n++;
+                    }
+                }
+                Add(acc, index, sum, n);
+            }
+        }
+    }
+
+    private void FindRuns(ReadOnlySpan<double> timeS)
+    {
+        _runs.Clear();
+        var i = 0;
+        while (i < timeS.Length)
+        {
+            var index = (int)Math.Floor((timeS[i] - _originS) / _blockS);
+            var blockEndS = _originS + ((index + 1) * _blockS);
+            var start = i;
+            for (var first = true; i < timeS.Length && (first || timeS[i] < blockEndS); i++, first = false)
+            {
+            }
+            _runs.Add((index, start, i));
+        }
+    }
+
+    private (List<double> Sum, List<int> Count) Accumulator(string channel)
+    {
+        if (!_channels.TryGetValue(channel, out var acc))
+        {
+            acc = ([], []);
+            _channels[channel] = acc;
+        }
+        return acc;
+    }
+
+    private static void Add((List<double> Sum, List<int> Count) acc, int index, double sum, int count)
+    {
+        if (count == 0)
+        {
+            return;
+        }
+        while (acc.Sum.Count <= index)
+        {
+            acc.Sum.Add(0.0);
+            acc.Count.Add(0);
+        }
+        acc.Sum[index] += sum;
+        acc.Count[index] += count;
     }
 
     /// <summary>Block means of a channel on the common block grid; NaN where a block had no sample.</summary>

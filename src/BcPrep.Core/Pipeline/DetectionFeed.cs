@@ -18,11 +18,11 @@ internal sealed class DetectionFeed
 
     public BlockMeanSink Blocks { get; }
 
-    /// <summary>The channel sinks to scan with (the block means themselves when no filter is configured).</summary>
-    public IReadOnlyList<IChannelSink> ChannelSinks => _conditioned is null ? [Blocks] : [];
+    /// <summary>The channel sinks to scan with: none, the block means take whole blocks.</summary>
+    public IReadOnlyList<IChannelSink> ChannelSinks => [];
 
-    /// <summary>The block sink to scan with, or null.</summary>
-    public IBlockSink? BlockSink => _conditioned;
+    /// <summary>The block sink to scan with: the block means themselves, or the conditioning chain that feeds them.</summary>
+    public IBlockSink BlockSink => _conditioned is null ? Blocks : _conditioned;
 
     public static DetectionFeed For(Rig.RigDescription rig, BlockMeanSink blocks)
     {
