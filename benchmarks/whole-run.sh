@@ -10,9 +10,15 @@ hours=("${@:-1 2 4}"); read -r -a hours <<< "${hours[*]}"
 rate=${RATE:-200}
 data=${BENCH_DATA:-/tmp/bcprep-bench}
 mkdir -p "$data"
-for p in src/BcPrep.Cli benchmarks/ParseBaseline tools/SampleDay; do dotnet build -c Release "$p" -nologo -v q >/dev/null; done
-cli=src/BcPrep.Cli/bin/Release/net10.0/bcprep
-base=benchmarks/ParseBaseline/bin/Release/net10.0/ParseBaseline
+# Both sides are published the way the tool is installed for large days: Release, ahead-of-time compiled
+# (ReadyToRun), so neither pays to JIT its start-up code in the timed run.
+bin="$data/bin"
+for p in src/BcPrep.Cli benchmarks/ParseBaseline; do
+  dotnet publish "$p" -c Release -r linux-x64 --self-contained false -p:PublishReadyToRun=true -o "$bin/$(basename "$p")" -nologo -v q >/dev/null
+done
+dotnet build -c Release tools/SampleDay -nologo -v q >/dev/null
+cli=$bin/BcPrep.Cli/bcprep
+base=$bin/ParseBaseline/ParseBaseline
 gen=tools/SampleDay/bin/Release/net10.0/SampleDay
 
 # Benchmark days repeat the sample day's cycle of set points, so the rig's pinned windows do not fit them:

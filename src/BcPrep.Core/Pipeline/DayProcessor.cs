@@ -35,6 +35,7 @@ public static class DayProcessor
         var feed = DetectionFeed.For(rig, blocks);
         var index = new ScanIndex();
         DayScan.Run(rig, plan, converters, [.. feed.ChannelSinks, firstPass, extent], feed.BlockSink, options.Progress, index);
+        options.FirstReadDone?.Invoke();
         feed.Complete();
         book.DrainInto(stats);
         var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, extent.FirstS, extent.LastS), options.AllowExpired);

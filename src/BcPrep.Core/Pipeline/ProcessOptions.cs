@@ -14,4 +14,10 @@ public sealed record ProcessOptions(
 
     /// <summary>Where the reading reports how far it has got (for a progress display); null for none.</summary>
     public Reading.ReadProgress? Progress { get; init; }
+
+    /// <summary>
+    /// Called once the first full read of the logs is over. A caller with other whole-file work (hashing the inputs)
+    /// starts it here rather than beside the first read, which is parse-bound and would lose a core to it.
+    /// </summary>
+    public Action? FirstReadDone { get; init; }
 }
