@@ -7,8 +7,9 @@ namespace BcPrep.Pipeline;
 
 /// <summary>
 /// Converts a block of one channel's logged numbers to SI. Sensors whose conversion is a chain of straight lines
-/// (linear sensors, quantities logged directly in a unit) are converted with vector arithmetic in the same order of
-/// operations as the per-sample function, so the results are identical to it; the others call it sample by sample.
+/// (linear sensors, quantities logged directly in a unit) are converted with vector arithmetic, thermocouples through
+/// the block form of the ITS-90 inverse; both keep the per-sample function's order of operations, so the results are
+/// identical to it. The other sensors call it sample by sample.
 /// </summary>
 public sealed class BlockConverter
 {
