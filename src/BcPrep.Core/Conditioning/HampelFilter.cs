@@ -294,37 +294,10 @@ public static class HampelFilter
             return inside <= Count / 2;
         }
 
-        /// <summary>First index whose value is greater than <paramref name="value"/>.</summary>
         [MethodImpl(MethodImplOptions.AggressiveInlining)]
-        private int UpperBound(double value)
-        {
-            // Halving without a data-dependent branch: the comparison only picks the next base (a conditional move),
-            // which matters on noise, where a branch would be mispredicted half the time.
-            int basePos = 0;
-            int n = Count;
-            while (n > 1)
-            {
-                int half = n >>> 1;
-                basePos = _sorted[basePos + half - 1] <= value ? basePos + half : basePos;
-                n -= half;
-            }
-
-            return n == 1 && _sorted[basePos] <= value ? basePos + 1 : basePos;
-        }
+        private int UpperBound(double value) => SortedSearch.FirstAfter(_sorted.AsSpan(0, Count), value);
 
         [MethodImpl(MethodImplOptions.AggressiveInlining)]
-        private int LowerBound(double value)
-        {
-            int basePos = 0;
-            int n = Count;
-            while (n > 1)
-            {
-                int half = n >>> 1;
-                basePos = _sorted[basePos + half - 1] < value ? basePos + half : basePos;
-                n -= half;
-            }
-
-            return n == 1 && _sorted[basePos] < value ? basePos + 1 : basePos;
-        }
+        private int LowerBound(double value) => SortedSearch.FirstAtOrAfter(_sorted.AsSpan(0, Count), value);
     }
 }

@@ -23,31 +23,10 @@ public sealed class BlockMeanSink : IChannelSink, IBlockSink
 
     public double OriginS => _originS;
 
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Accept(string channel, ReadOnlySpan<double> timeS, ReadOnlySpan<double> valueSi)
     {
-        var acc = Accumulator(channel);
-        // Times increase, so samples come in runs that share a block: sum each run locally and touch the lists
-        // once per run rather than once per sample.
-        var i = 0;
-        while (i < timeS.Length)
-        {
-            var index = (int)Math.Floor((timeS[i] - _originS) / _blockS);
-            var blockEndS = _originS + ((index + 1) * _blockS);
-            var sum = 0.0;
-            var count = 0;
-            // The run's first sample always belongs to it, even where rounding puts it on the block's end.
-            for (var first = true; i < timeS.Length && (first || timeS[i] < blockEndS); i++, first = false)
-            {
-                var v = valueSi[i];
-                if (!double.IsNaN(v))
-                {
-                    sum += v;
-                    count++;
-                }
-            }
-            Add(acc, index, sum, count);
-        }
+        FindRuns(timeS);
+        AddRuns(Accumulator(channel), valueSi);
     }
 
     public void Complete(string channel)
@@ -58,32 +37,40 @@ public sealed class BlockMeanSink : IChannelSink, IBlockSink
     /// A logger's whole block: its channels share the time stamps, so the runs of samples that fall in one averaging
     /// block are found once and every channel is summed over them. Same sums as <see cref="Accept"/> channel by channel.
     /// </summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void AcceptBlock(IReadOnlyList<string> channels, double[] timeS, IReadOnlyList<double[]> valuesSi, int count)
     {
         FindRuns(timeS.AsSpan(0, count));
         for (var c = 0; c < channels.Count; c++)
         {
-            var acc = Accumulator(channels[c]);
-            var values = valuesSi[c];
-            foreach (var (index, start, end) in _runs)
-            {
-                var sum = 0.0;
-                var n = 0;
-                for (var i = start; i < end; i++)
-                {
-                    var v = values[i];
-                    if (!double.IsNaN(v))
-                    {
-                        sum += v;
-                        n++;
-                    }
-                }
-                Add(acc, index, sum, n);
-            }
+            AddRuns(Accumulator(channels[c]), valuesSi[c]);
         }
     }
 
+    /// <summary>Adds each run's finite samples to its block: the lists are touched once per run, not once per sample.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void AddRuns((List<double> Sum, List<int> Count) acc, ReadOnlySpan<double> values)
+    {
+        foreach (var (index, start, end) in _runs)
+        {
+            var sum = 0.0;
+            var n = 0;
+            for (var i = start; i < end; i++)
+            {
+                var v = values[i];
+                if (!double.IsNaN(v))
+                {
+                    sum += v;
+                    n++;
+                }
+            }
+            Add(acc, index, sum, n);
+        }
+    }
+
+    /// <summary>
+    /// Times increase, so samples come in runs that share an averaging block. The run's first sample always belongs
+    /// to it, even where rounding puts it on the block's end.
+    /// </summary>
     private void FindRuns(ReadOnlySpan<double> timeS)
     {
         _runs.Clear();

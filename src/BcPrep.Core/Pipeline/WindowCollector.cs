@@ -49,8 +49,8 @@ public sealed class WindowCollector : IChannelSink
             {
                 continue;
             }
-            var first = FirstAtOrAfter(timeS, window.StartS);
-            var end = FirstAfter(timeS, window.EndS);
+            var first = SortedSearch.FirstAtOrAfter(timeS, window.StartS);
+            var end = SortedSearch.FirstAfter(timeS, window.EndS);
             if (end > first)
             {
                 if (state.Times[w].Count == 0)
@@ -69,44 +69,6 @@ public sealed class WindowCollector : IChannelSink
         {
             state.FirstOpen++;
         }
-    }
-
-    private static int FirstAtOrAfter(ReadOnlySpan<double> timeS, double limitS)
-    {
-        var lo = 0;
-        var hi = timeS.Length;
-        while (lo < hi)
-        {
-            var mid = (lo + hi) >>> 1;
-            if (timeS[mid] < limitS)
-            {
-                lo = mid + 1;
-            }
-            else
-            {
-                hi = mid;
-            }
-        }
-        return lo;
-    }
-
-    private static int FirstAfter(ReadOnlySpan<double> timeS, double limitS)
-    {
-        var lo = 0;
-        var hi = timeS.Length;
-        while (lo < hi)
-        {
-            var mid = (lo + hi) >>> 1;
-            if (timeS[mid] <= limitS)
-            {
-                lo = mid + 1;
-            }
-            else
-            {
-                hi = mid;
-            }
-        }
-        return lo;
     }
 
     public void Complete(string channel)
