@@ -27,82 +27,25 @@ public static class SteadyStateDetector
         ArgumentNullException.ThrowIfNull(channels);
         ArgumentNullException.ThrowIfNull(settings);
         Validate(timesS, channels, settings);
-        double[] t = [.. timesS];
-        double[][] y = [.. channels.Select(c => c.Values.ToArray())];
-
-        var windows = ScanWindows(t, y, channels, settings);
-        var accepted = new List<SteadyWindow>();
-        var rejected = new List<RejectedStretch>();
-        int i = 0;
-        while (i < windows.Count)
+        var scan = new SteadyScan(channels, settings);
+        var row = new double[channels.Count];
+        for (int i = 0; i < timesS.Count; i++)
         {
-            int j = i;
-            while (j + 1 < windows.Count && windows[j + 1].Steady == windows[i].Steady)
-            {
-                j++;
-            }
-
-            if (windows[i].Steady)
-            {
-                foreach (var (s, e) in SplitAtSetPointSteps(t, y, channels, windows[i].Start, windows[j].End, settings))
-                {
-                    EvaluateStretch(t, y, channels, settings, s, TrimTrailingDeparture(t, y, s, e, settings), accepted, rejected);
-                }
-            }
-            else
-            {
-                rejected.Add(ExplainFailingRun(t, windows, i, j));
-            }
-
-            i = j + 1;
-        }
-
-        if (windows.Count == 0)
-        {
-            rejected.Add(new RejectedStretch(t[0], t[^1], t[0], t[^1],
-                Format($"record of {t[^1] - t[0]} s is shorter than the test window {settings.WindowS} s"), []));
-        }
-
-        return new SteadyDetectionResult(accepted, [.. rejected.OrderBy(r => r.StartS)]);
-    }
-
-    private sealed record WindowEvaluation(int Start, int End, bool Steady, double WorstRatio, IReadOnlyList<ChannelCriteria> Channels);
-
-    private static List<WindowEvaluation> ScanWindows(double[] t, double[][] y, IReadOnlyList<KeyChannel> channels, SteadySettings settings)
-    {
-        var list = new List<WindowEvaluation>();
-        int start = 0, end = 0;
-        while (start < t.Length && t[^1] - t[start] >= settings.WindowS)
-        {
-            end = Math.Max(end, start);
-            while (end + 1 < t.Length && t[end + 1] - t[start] <= settings.WindowS)
-            {
-                end++;
-            }
-
-            var criteria = new ChannelCriteria[channels.Count];
-            double worst = 0.0;
             for (int c = 0; c < channels.Count; c++)
             {
-                (criteria[c], double ratio) = DriftScatter(t, y[c], channels[c], settings, start, end);
-                worst = Math.Max(worst, ratio);
+                row[c] = channels[c].Values[i];
             }
 
-            list.Add(new WindowEvaluation(start, end, criteria.All(c => c.Failures.Count == 0), worst, criteria));
-            double next = t[start] + settings.StepS;
-            while (start < t.Length && t[start] < next)
-            {
-                start++;
-            }
+            scan.Add(timesS[i], row);
         }
 
-        return list;
+        return scan.Finish();
     }
 
-    private static (ChannelCriteria Criteria, double WorstRatio) DriftScatter(double[] t, double[] y, KeyChannel channel, SteadySettings settings, int start, int end)
+    internal static (ChannelCriteria Criteria, double WorstRatio) DriftScatter(ReadOnlySpan<double> t, double[] y, KeyChannel channel, SteadySettings settings, int start, int end)
     {
         int length = end - start + 1;
-        var fit = TrendFit.Fit(t.AsSpan(start, length), y.AsSpan(start, length));
+        var fit = TrendFit.Fit(t.Slice(start, length), y.AsSpan(start, length));
         var failures = new List<CriterionFailure>();
         double coverage = (double)fit.Count / length;
         double worst = 0.0;
@@ -142,7 +85,7 @@ public static class SteadyStateDetector
         return (criteria, worst);
     }
 
-    private static List<(int Start, int End)> SplitAtSetPointSteps(double[] t, double[][] y, IReadOnlyList<KeyChannel> channels, int start, int end, SteadySettings settings)
+    internal static List<(int Start, int End)> SplitAtSetPointSteps(ReadOnlySpan<double> t, double[][] y, IReadOnlyList<KeyChannel> channels, int start, int end, SteadySettings settings)
     {
         double half = settings.WindowS / 2.0;
         var cuts = new List<int>();
@@ -200,7 +143,7 @@ public static class SteadyStateDetector
     /// channel's block lies more than <see cref="DepartureSigmas"/> robust standard deviations (1.4826·MAD) from the
     /// median of the WindowS/2 before it. Median and MAD, because the blocks already departed sit in that reference.
     /// </summary>
-    private static int TrimTrailingDeparture(double[] t, double[][] y, int start, int end, SteadySettings settings)
+    internal static int TrimTrailingDeparture(ReadOnlySpan<double> t, double[][] y, int start, int end, SteadySettings settings)
     {
         double half = settings.WindowS / 2.0;
         int e = end;
@@ -215,7 +158,7 @@ public static class SteadyStateDetector
     // Common practice: 4 standard deviations, so that a steady block is trimmed by chance about once in 16 000.
     private const double DepartureSigmas = 4.0;
 
-    private static bool Departs(double[] t, double[][] y, int k, double half)
+    private static bool Departs(ReadOnlySpan<double> t, double[][] y, int k, double half)
     {
         foreach (double[] values in y)
         {
@@ -257,7 +200,7 @@ public static class SteadyStateDetector
     }
 
     /// <summary>Mean of finite samples from index k stepping by dir while time stays in [fromS, toS) (before) or [fromS, toS) (after).</summary>
-    private static double MeanBetween(double[] t, double[] y, double fromS, double toS, int k, int dir)
+    private static double MeanBetween(ReadOnlySpan<double> t, double[] y, double fromS, double toS, int k, int dir)
     {
         double sum = 0.0;
         int count = 0;
@@ -273,7 +216,7 @@ public static class SteadyStateDetector
         return count > 0 ? sum / count : double.NaN;
     }
 
-    private static void EvaluateStretch(double[] t, double[][] y, IReadOnlyList<KeyChannel> channels, SteadySettings settings,
+    internal static void EvaluateStretch(ReadOnlySpan<double> t, double[][] y, IReadOnlyList<KeyChannel> channels, SteadySettings settings,
         int start, int end, List<SteadyWindow> accepted, List<RejectedStretch> rejected)
     {
         double duration = t[end] - t[start];
@@ -356,7 +299,7 @@ public static class SteadyStateDetector
         return true;
     }
 
-    private static RejectedStretch ExplainFailingRun(double[] t, List<WindowEvaluation> windows, int first, int last)
+    internal static RejectedStretch ExplainFailingRun(ReadOnlySpan<double> t, IReadOnlyList<WindowEvaluation> windows, int first, int last)
     {
         var best = windows[first];
         for (int k = first + 1; k <= last; k++)
@@ -374,11 +317,7 @@ public static class SteadyStateDetector
 
     private static void Validate(IReadOnlyList<double> timesS, IReadOnlyList<KeyChannel> channels, SteadySettings s)
     {
-        if (channels.Count == 0)
-        {
-            throw new BcPrepDataException("Steady-state detection needs at least one key channel.");
-        }
-
+        ValidateLimits(channels, s);
         if (timesS.Count < 3)
         {
             throw new BcPrepDataException("Steady-state detection needs at least 3 time stamps.");
@@ -398,7 +337,19 @@ public static class SteadyStateDetector
             {
                 throw new BcPrepDataException(Format($"Channel '{c.Name}' has {c.Values.Count} values for {timesS.Count} time stamps."));
             }
+        }
+    }
 
+    /// <summary>Checks the key channels' limits and the settings, which a scan needs before its first block mean.</summary>
+    internal static void ValidateLimits(IReadOnlyList<KeyChannel> channels, SteadySettings s)
+    {
+        if (channels.Count == 0)
+        {
+            throw new BcPrepDataException("Steady-state detection needs at least one key channel.");
+        }
+
+        foreach (var c in channels)
+        {
             if (!(c.DriftLimitPerS > 0.0) || !(c.ScatterLimit > 0.0) || !(c.StepThreshold > 0.0) || double.IsNaN(c.MinimumValue))
             {
                 throw new BcPrepDataException(Format(
@@ -416,5 +367,5 @@ public static class SteadyStateDetector
         s.RTestOrDefault.Validate();
     }
 
-    private static string Format(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
+    internal static string Format(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

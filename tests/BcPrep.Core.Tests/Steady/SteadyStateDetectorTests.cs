@@ -10,7 +10,7 @@ public class SteadyStateDetectorTests
     /// Known answer: warm-up 20 → 60 °C with τ = 300 s, then set-point steps to 70 °C at 3600 s and 80 °C at 6000 s
     /// (τ = 60 s), end at 8400 s; flow steps 1.0 → 1.2 → 1.4 kg/s at the same times (τ = 10 s). AR(1) noise φ = 0.7.
     /// </summary>
-    private static (double[] T, KeyChannel[] Channels) ThreePlateaux()
+    internal static (double[] T, KeyChannel[] Channels) ThreePlateaux()
     {
         int n = 8400;
         var t = Enumerable.Range(0, n).Select(i => (double)i).ToArray();
