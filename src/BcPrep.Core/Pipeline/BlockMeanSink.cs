@@ -12,6 +12,7 @@ public sealed class BlockMeanSink : IChannelSink, IBlockSink
     private readonly double _blockS;
     private readonly Dictionary<string, (List<double> Sum, List<int> Count)> _channels = new(StringComparer.Ordinal);
     private readonly List<(int Index, int Start, int End)> _runs = [];
+    private readonly Dictionary<string, int> _latestBlock = new(StringComparer.Ordinal);
 
     public BlockMeanSink(double originS, double blockS)
     {
@@ -27,6 +28,7 @@ public sealed class BlockMeanSink : IChannelSink, IBlockSink
     {
         FindRuns(timeS);
         AddRuns(Accumulator(channel), valueSi);
+        NoteLatest(channel);
     }
 
     public void Complete(string channel)
@@ -43,6 +45,28 @@ public sealed class BlockMeanSink : IChannelSink, IBlockSink
         for (var c = 0; c < channels.Count; c++)
         {
             AddRuns(Accumulator(channels[c]), valuesSi[c]);
+            NoteLatest(channels[c]);
+        }
+    }
+
+    /// <summary>
+    /// Blocks 0 … FinalBlocks − 1 can no longer change: every channel has had a sample in a later block, and times
+    /// increase. (A block with no sample of a channel is final all the same; its mean is NaN.)
+    /// </summary>
+    public int FinalBlocks => _latestBlock.Count == 0 ? 0 : _latestBlock.Values.Min();
+
+    /// <summary>Mean of one block of a channel, as <see cref="Means"/> gives it; NaN where the block had no sample.</summary>
+    public double MeanAt(string channel, int index) =>
+        _channels.TryGetValue(channel, out var acc) && index < acc.Sum.Count && acc.Count[index] > 0 ? acc.Sum[index] / acc.Count[index] : double.NaN;
+
+    /// <summary>Centre of block <paramref name="index"/> on the log clock (s), as <see cref="Times"/> gives it.</summary>
+    public double TimeAt(int index) => _originS + (index + 0.5) * _blockS;
+
+    private void NoteLatest(string channel)
+    {
+        if (_runs.Count > 0)
+        {
+            _latestBlock[channel] = _runs[^1].Index;
         }
     }
 
@@ -116,16 +140,9 @@ public sealed class BlockMeanSink : IChannelSink, IBlockSink
     public double[] Means(string channel, int length)
     {
         var result = new double[length];
-        Array.Fill(result, double.NaN);
-        if (_channels.TryGetValue(channel, out var acc))
+        for (var i = 0; i < length; i++)
         {
-            for (var i = 0; i < Math.Min(length, acc.Sum.Count); i++)
-            {
-                if (acc.Count[i] > 0)
-                {
-                    result[i] = acc.Sum[i] / acc.Count[i];
-                }
-            }
+            result[i] = MeanAt(channel, i);
         }
         return result;
     }
@@ -134,5 +151,5 @@ public sealed class BlockMeanSink : IChannelSink, IBlockSink
     public int Length => _channels.Count == 0 ? 0 : _channels.Values.Max(a => a.Sum.Count);
 
     /// <summary>Block centre times on the log clock (s).</summary>
-    public double[] Times(int length) => Enumerable.Range(0, length).Select(i => _originS + (i + 0.5) * _blockS).ToArray();
+    public double[] Times(int length) => Enumerable.Range(0, length).Select(TimeAt).ToArray();
 }

@@ -34,7 +34,12 @@ public static class DayProcessor
         var extent = new DayExtentSink();
         var feed = DetectionFeed.For(rig, blocks);
         var index = new ScanIndex();
-        DayScan.Run(rig, plan, converters, [.. feed.ChannelSinks, firstPass, extent], feed.BlockSink, options.Progress, index);
+        var liveBook = new WindowStatsBook();
+        var live = ReadsLive(rig, plan, pinned, options)
+            ? new LiveDetection(rig, plan.DayStartS, feed.BlockSink, blocks, pinned, (w, c, t, v) => Collect(rig, plan.DayStartS, liveBook, w, c, t, v))
+            : null;
+        DayScan.Run(rig, plan, converters, [.. feed.ChannelSinks, firstPass, extent], (IBlockSink?)live ?? feed.BlockSink, options.Progress, index);
+        live?.ReadDone();
         options.FirstReadDone?.Invoke();
         feed.Complete();
         book.DrainInto(stats);
@@ -53,11 +58,14 @@ public static class DayProcessor
             throw new BcPrepFailure(FailureKind.NoSteadyPoint, WindowFinder.NoSteadyProblems(rig, detection!));
         }
         var detected = windowPlan.Points.Where(p => p.Origin == WindowOrigin.Detected).Select(p => p.Window).ToList();
-        if (detected.Count > 0)
+        var gathered = live is null ? [] : detected.Where(live.TryGatherNow).ToHashSet();
+        liveBook.DrainInto(stats, gathered.Contains);
+        var readAgain = detected.Where(w => !gathered.Contains(w)).ToList();
+        if (readAgain.Count > 0)
         {
-            var secondPass = new WindowCollector(detected, (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v));
-            // Only the blocks covering the detected windows are read again (seeking by the first pass's index).
-            DayScan.Run(rig, plan, converters, [secondPass], progress: options.Progress, index: index, onlyWindows: detected);
+            var secondPass = new WindowCollector(readAgain, (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v));
+            // Only the blocks covering these windows are read again (seeking by the first pass's index).
+            DayScan.Run(rig, plan, converters, [secondPass], progress: options.Progress, index: index, onlyWindows: readAgain);
             book.DrainInto(stats);
         }
         var dayWarnings = new List<string>();
@@ -77,8 +85,15 @@ public static class DayProcessor
         {
             (points, matrix) = MatrixNaming.Apply(options.Matrix, points);
         }
-        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks };
+        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = readAgain.Count };
     }
+
+    /// <summary>
+    /// Whether the detected windows are gathered during the read (<see cref="LiveDetection"/>): when detection runs
+    /// and one logger records every channel, so the rows kept back hold all of a window's channels.
+    /// </summary>
+    private static bool ReadsLive(RigDescription rig, DayPlan plan, IReadOnlyList<TimeWindow> pinned, ProcessOptions options) =>
+        options.SinglePass && plan.Loggers.Count == 1 && rig.Steady.Keys.Count > 0 && (rig.Steady.Detect || pinned.Count == 0);
 
     public static double Resolve(TimeBound bound, double dayStartS) => bound.IsAbsolute ? bound.Seconds : dayStartS + bound.Seconds;
 
@@ -94,19 +109,20 @@ public static class DayProcessor
         {
             return;
         }
-        if (times.Length == 0)
-        {
-            var where = pinnedAt is null ? new SourceLocation("(logs)", Key: channel) : pinnedAt with { Key = $"{pinnedAt.Key}, channel '{channel}'" };
-            throw new BcPrepFailure(FailureKind.InputData, where, string.Create(CultureInfo.InvariantCulture,
-                $"window '{window.Id}' ({window.StartS - dayStartS:F1}–{window.EndS - dayStartS:F1} s since the first sample of the day) holds no samples of '{channel}': is the window inside the day?"));
-        }
         if (pinnedAt is null)
         {
-            book.Add(window.Id, channel, () => FaultPolicy.Evaluate(rig, channel, window, times, values, dayStartS));
+            // A detected window may be gathered before the day's detection confirms it, so even its emptiness is
+            // reported only when its statistics are collected.
+            book.Add(window, channel, () =>
+            {
+                RequireSamples(window, channel, times, dayStartS, null);
+                return FaultPolicy.Evaluate(rig, channel, window, times, values, dayStartS);
+            });
             return;
         }
+        RequireSamples(window, channel, times, dayStartS, pinnedAt);
         WindowCoverage.Require(window, channel, times, rig.Conditioning.MaxBridgeS, pinnedAt);
-        book.Add(window.Id, channel, () =>
+        book.Add(window, channel, () =>
         {
             try
             {
@@ -118,6 +134,16 @@ public static class DayProcessor
                 throw new BcPrepFailure(failure.Kind, failure.Problems.Select(p => p with { Location = pinnedAt with { Key = $"{pinnedAt.Key}, channel '{channel}'" } }).ToList());
             }
         });
+    }
+
+    private static void RequireSamples(TimeWindow window, string channel, double[] times, double dayStartS, SourceLocation? pinnedAt)
+    {
+        if (times.Length == 0)
+        {
+            var where = pinnedAt is null ? new SourceLocation("(logs)", Key: channel) : pinnedAt with { Key = $"{pinnedAt.Key}, channel '{channel}'" };
+            throw new BcPrepFailure(FailureKind.InputData, where, string.Create(CultureInfo.InvariantCulture,
+                $"window '{window.Id}' ({window.StartS - dayStartS:F1}–{window.EndS - dayStartS:F1} s since the first sample of the day) holds no samples of '{channel}': is the window inside the day?"));
+        }
     }
 
     /// <summary>Where a window pinned in the rig file (operating point or tare) is written; null for a detected one.</summary>

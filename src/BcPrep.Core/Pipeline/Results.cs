@@ -62,6 +62,9 @@ public sealed record DayResult(
 
     /// <summary>Jumps the second pass made over blocks it did not need (0 when it read on or was not needed).</summary>
     public int SecondPassSeeks { get; init; }
+
+    /// <summary>Detected windows read in a second pass because they were not gathered during the first read.</summary>
+    public int WindowsReadAgain { get; init; }
 }
 
 /// <summary>Block means of every channel over the day (for detection evidence and plots).</summary>

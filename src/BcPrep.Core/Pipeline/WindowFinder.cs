@@ -65,9 +65,16 @@ public static class WindowFinder
                 string.Create(CultureInfo.InvariantCulture, $"the day holds {series.TimesS.Length} block(s) of {rig.Steady.BlockS} s: too short to look for a steady window"));
         }
         var times = series.TimesS.Select(t => t - dayStartS).ToArray();
-        var keys = rig.Steady.Keys.Select(k => new KeyChannel(k.Channel, series.Means[k.Channel], k.MaxChangeSi / rig.Steady.WindowS, k.MaxScatterSi, k.StepSi,
+        return SteadyStateDetector.Detect(times, KeyChannels(rig, channel => series.Means[channel]), Settings(rig.Steady));
+    }
+
+    /// <summary>The detector's key channels from the rig file, with their block means.</summary>
+    public static IReadOnlyList<KeyChannel> KeyChannels(RigDescription rig, Func<string, IReadOnlyList<double>> blockMeans)
+    {
+        ArgumentNullException.ThrowIfNull(rig);
+        ArgumentNullException.ThrowIfNull(blockMeans);
+        return rig.Steady.Keys.Select(k => new KeyChannel(k.Channel, blockMeans(k.Channel), k.MaxChangeSi / rig.Steady.WindowS, k.MaxScatterSi, k.StepSi,
             k.MinimumSi ?? double.NegativeInfinity)).ToList();
-        return SteadyStateDetector.Detect(times, keys, Settings(rig.Steady));
     }
 
     /// <summary>

@@ -9,14 +9,21 @@ namespace BcPrep.Pipeline;
 /// </summary>
 internal sealed class WindowStatsBook
 {
-    private readonly List<(string Window, string Channel, Task<ChannelWindowStats> Work)> _pending = [];
+    private readonly List<(TimeWindow Window, string Channel, Task<ChannelWindowStats> Work)> _pending = [];
 
-    public void Add(string window, string channel, Func<ChannelWindowStats> evaluate) =>
+    public void Add(TimeWindow window, string channel, Func<ChannelWindowStats> evaluate) =>
         _pending.Add((window, channel, Task.Run(evaluate)));
 
-    /// <summary>Waits for every window handed in so far and files the results into <paramref name="into"/>.</summary>
-    public void DrainInto(Dictionary<string, Dictionary<string, ChannelWindowStats>> into)
+    /// <summary>
+    /// Waits for every window handed in so far (or only those <paramref name="keep"/> accepts; the others are
+    /// dropped, failed or not) and files the results into <paramref name="into"/>.
+    /// </summary>
+    public void DrainInto(Dictionary<string, Dictionary<string, ChannelWindowStats>> into, Func<TimeWindow, bool>? keep = null)
     {
+        if (keep is not null)
+        {
+            _pending.RemoveAll(p => !keep(p.Window));
+        }
         try
         {
             Task.WaitAll([.. _pending.Select(p => p.Work)]);
@@ -31,10 +38,10 @@ internal sealed class WindowStatsBook
             {
                 ExceptionDispatchInfo.Capture(work.Exception!.InnerException!).Throw();
             }
-            if (!into.TryGetValue(window, out var byChannel))
+            if (!into.TryGetValue(window.Id, out var byChannel))
             {
                 byChannel = new Dictionary<string, ChannelWindowStats>(StringComparer.Ordinal);
-                into[window] = byChannel;
+                into[window.Id] = byChannel;
             }
             byChannel[channel] = work.Result;
         }

@@ -1,0 +1,122 @@
+using BcPrep.Rig;
+using BcPrep.Steady;
+
+namespace BcPrep.Pipeline;
+
+/// <summary>
+/// Finds the operating points of a single-logger day while it is read, and gathers each point's window from the
+/// rows kept back, so its statistics run during the read instead of in a second pass over the log.
+/// <para>
+/// The detector is fed block means as they become final (<see cref="SteadyScan"/>); a steady stretch is judged as
+/// soon as the day leaves it, and its averaging window then lies within the last
+/// <see cref="KeptSpanS"/> of the detector's clock, which is what the rows kept back cover. The windows gathered
+/// here are provisional: the day's detection is still run once over all block means when the read is over, and
+/// only the windows it plans with the same id and the same times keep their statistics (<see cref="IsGathered"/>);
+/// anything else is gathered from the kept rows then, or read again.
+/// </para>
+/// </summary>
+internal sealed class LiveDetection : IBlockSink
+{
+    private readonly IBlockSink _detectionFeed;
+    private readonly BlockMeanSink _blocks;
+    private readonly double _dayStartS;
+    private readonly IReadOnlyList<TimeWindow> _pinned;
+    private readonly IReadOnlyList<string> _keys;
+    private readonly SteadyScan _scan;
+    private readonly double[] _keyMeans;
+    private readonly Action<TimeWindow, string, double[], double[]> _onWindow;
+    private readonly RecentRows _rows = new();
+    private readonly HashSet<TimeWindow> _gathered = [];
+    private int _fedBlocks;
+    private int _judged;
+
+    /// <param name="rig">The rig: key channels and detection settings.</param>
+    /// <param name="dayStartS">Log-clock time of the day's first sample (s).</param>
+    /// <param name="detectionFeed">The block sink the block means come from (directly or through conditioning).</param>
+    /// <param name="blocks">The block means that sink fills.</param>
+    /// <param name="pinned">Windows pinned in the rig file, which replace the detected windows they overlap.</param>
+    /// <param name="onWindow">Receives (window, channel, times, values) of each gathered window and channel.</param>
+    public LiveDetection(RigDescription rig, double dayStartS, IBlockSink detectionFeed, BlockMeanSink blocks, IReadOnlyList<TimeWindow> pinned,
+        Action<TimeWindow, string, double[], double[]> onWindow)
+    {
+        _detectionFeed = detectionFeed;
+        _blocks = blocks;
+        _dayStartS = dayStartS;
+        _pinned = pinned;
+        _onWindow = onWindow;
+        var keyChannels = WindowFinder.KeyChannels(rig, _ => []);
+        _keys = [.. keyChannels.Select(k => k.Name)];
+        _keyMeans = new double[_keys.Count];
+        var settings = WindowFinder.Settings(rig.Steady);
+        _scan = new SteadyScan(keyChannels, settings);
+        KeptSpanS = settings.TailS + (settings.WindowS / 2) + (2 * settings.StepS) + (2 * rig.Steady.BlockS);
+    }
+
+    /// <summary>
+    /// How far back from the detector's latest block a window may start when its stretch is judged: its averaging
+    /// tail, the trailing blocks a departure may trim (at most half a test window), the step that shows the stretch
+    /// has ended, and two blocks for the block means still filling.
+    /// </summary>
+    public double KeptSpanS { get; }
+
+    public void AcceptBlock(IReadOnlyList<string> channels, double[] timeS, IReadOnlyList<double[]> valuesSi, int count)
+    {
+        _detectionFeed.AcceptBlock(channels, timeS, valuesSi, count);
+        _rows.Add(channels, timeS, valuesSi, count);
+        FeedFinalBlocks();
+        while (_judged < _scan.Accepted.Count)
+        {
+            Gather(_scan.Accepted[_judged++]);
+        }
+        if (_fedBlocks > 0)
+        {
+            _rows.DropBefore(_blocks.TimeAt(_fedBlocks - 1) - KeptSpanS);
+        }
+    }
+
+    /// <summary>Call when the read is over: the rows kept are then all there will be.</summary>
+    public void ReadDone() => _rows.Complete();
+
+    /// <summary>True when <paramref name="window"/> (id and times) was gathered during the read.</summary>
+    public bool IsGathered(TimeWindow window) => _gathered.Contains(window);
+
+    /// <summary>Gathers a planned window from the kept rows if they still cover it; false when it must be read again.</summary>
+    public bool TryGatherNow(TimeWindow window)
+    {
+        if (_gathered.Contains(window) || !_rows.Covers(window))
+        {
+            return _gathered.Contains(window);
+        }
+        _rows.Replay(new WindowCollector([window], _onWindow));
+        _gathered.Add(window);
+        return true;
+    }
+
+    private void FeedFinalBlocks()
+    {
+        var final = _blocks.FinalBlocks;
+        for (; _fedBlocks < final; _fedBlocks++)
+        {
+            for (var k = 0; k < _keys.Count; k++)
+            {
+                _keyMeans[k] = _blocks.MeanAt(_keys[k], _fedBlocks);
+            }
+            // The same expression as the day's detection, so the provisional times are the final ones bit for bit.
+            _scan.Add(_blocks.TimeAt(_fedBlocks) - _dayStartS, _keyMeans);
+        }
+    }
+
+    /// <summary>
+    /// Plans the windows accepted so far as the day's plan will (ids in time order, pinned windows winning) and
+    /// gathers this one if it becomes a point and its rows are still kept.
+    /// </summary>
+    private void Gather(SteadyWindow accepted)
+    {
+        var plan = PointWindows.Plan(_pinned, new SteadyDetectionResult(_scan.Accepted, []), _dayStartS);
+        var point = plan.Points.FirstOrDefault(p => p.Origin == WindowOrigin.Detected && ReferenceEquals(p.Detected[0], accepted));
+        if (point is not null)
+        {
+            TryGatherNow(point.Window);
+        }
+    }
+}

@@ -1,0 +1,86 @@
+namespace BcPrep.Pipeline;
+
+/// <summary>
+/// Keeps copies of the latest calibrated row blocks of one logger, so that a window found after its rows have
+/// streamed past can still be gathered without reading the log again. Memory is what the kept span of time holds;
+/// blocks dropped by <see cref="DropBefore"/> are reused for the next rows.
+/// </summary>
+internal sealed class RecentRows
+{
+    private readonly Queue<Kept> _kept = new();
+    private readonly Stack<Kept> _free = new();
+    private IReadOnlyList<string> _channels = [];
+    private double _droppedThroughS = double.NegativeInfinity;
+    private double _newestS = double.NegativeInfinity;
+
+    public void Add(IReadOnlyList<string> channels, double[] timeS, IReadOnlyList<double[]> valuesSi, int count)
+    {
+        if (count == 0)
+        {
+            return;
+        }
+        if (!ReferenceEquals(channels, _channels) && !channels.SequenceEqual(_channels, StringComparer.Ordinal))
+        {
+            // Another channel list is another logger: what was kept cannot be replayed beside it.
+            DropBefore(double.PositiveInfinity);
+            _free.Clear();
+            _channels = [.. channels];
+        }
+        var kept = _free.Count > 0 && _free.Peek().Capacity >= count ? _free.Pop() : new Kept(channels.Count, Math.Max(count, timeS.Length));
+        kept.Count = count;
+        Array.Copy(timeS, kept.TimeS, count);
+        for (var c = 0; c < channels.Count; c++)
+        {
+            Array.Copy(valuesSi[c], kept.ValuesSi[c], count);
+        }
+        _kept.Enqueue(kept);
+        _newestS = timeS[count - 1];
+    }
+
+    /// <summary>True when every row from <paramref name="window"/>'s start to past its end is kept.</summary>
+    public bool Covers(TimeWindow window) => _droppedThroughS < window.StartS && _newestS > window.EndS;
+
+    /// <summary>No row will follow: a window reaching past the last row is covered all the same.</summary>
+    public void Complete() => _newestS = double.PositiveInfinity;
+
+    /// <summary>Drops the blocks whose last row lies before <paramref name="timeS"/>.</summary>
+    public void DropBefore(double timeS)
+    {
+        while (_kept.Count > 0 && _kept.Peek().LastS < timeS)
+        {
+            var dropped = _kept.Dequeue();
+            _droppedThroughS = dropped.LastS;
+            _free.Push(dropped);
+        }
+    }
+
+    /// <summary>Hands the kept rows to a channel sink, channel by channel and block by block, then completes each channel.</summary>
+    public void Replay(IChannelSink sink)
+    {
+        foreach (var kept in _kept)
+        {
+            var times = kept.TimeS.AsSpan(0, kept.Count);
+            for (var c = 0; c < _channels.Count; c++)
+            {
+                sink.Accept(_channels[c], times, kept.ValuesSi[c].AsSpan(0, kept.Count));
+            }
+        }
+        foreach (var channel in _channels)
+        {
+            sink.Complete(channel);
+        }
+    }
+
+    private sealed class Kept(int channels, int capacity)
+    {
+        public int Capacity { get; } = capacity;
+
+        public double[] TimeS { get; } = new double[capacity];
+
+        public double[][] ValuesSi { get; } = [.. Enumerable.Range(0, channels).Select(_ => new double[capacity])];
+
+        public int Count { get; set; }
+
+        public double LastS => TimeS[Count - 1];
+    }
+}
