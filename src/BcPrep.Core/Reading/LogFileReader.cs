@@ -26,6 +26,7 @@ public sealed class LogFileReader : IDisposable
     private readonly string[] _columnNames;
     private readonly int _headerCount;
     private double _lastTime = double.NegativeInfinity;
+    private readonly IsoTimestamp.InOrder _stamps = new();
     private long _lastLine;
 
     public LogFileReader(LogInput input, LogFormat format, IReadOnlyList<string> columns)
@@ -220,7 +221,7 @@ public sealed class LogFileReader : IDisposable
             throw Fail(line, _timeIndex, $"'{Truncate(Encoding.UTF8.GetString(span))}' is not a time in seconds");
         }
         var stamp = _csv.GetSpan(_timeIndex);
-        if (IsoTimestamp.TryParseSeconds(stamp, out var time))
+        if (_stamps.TryParseSeconds(stamp, out var time))
         {
             return time;
         }

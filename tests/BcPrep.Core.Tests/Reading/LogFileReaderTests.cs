@@ -157,4 +157,34 @@ public class LogFileReaderTests
     [InlineData("yesterday")]
     public void Impossible_ISO_timestamps_are_refused(string text) =>
         Assert.False(IsoTimestamp.TryParseSeconds(System.Text.Encoding.UTF8.GetBytes(text), out _));
+
+    // Reference: the framework's own ISO-8601 parser (DateTimeOffset.Parse, round-trip), stamp by stamp. The in-order
+    // parser reuses the previous row's date, hour and minute; the sequence crosses a minute, an hour, a day, a year
+    // and a leap day, changes zone inside a minute, and puts impossible stamps between good ones.
+    [Fact]
+    public void In_order_parsing_equals_parsing_each_stamp_alone()
+    {
+        string[] stamps =
+        [
+            "2027-12-31T23:58:59.998", "2027-12-31T23:58:59.999", "2027-12-31T23:59:00", "2027-12-31T23:59:59.5Z",
+            "2028-01-01T00:00:00.25", "2028-01-01 00:00:00.5", "2028-02-29T12:30:15+02:00", "2028-02-29T12:30:16-01:30",
+            "2028-02-29T12:30:17", "2028-02-29T12:30:61", "2028-02-29T12:30:18.", "2028-02-30T12:30:19", "2028-02-29T12:30:20.0000001",
+            " 2028-02-29T12:31:00 ", "2028-02-29T12:31:01Zx",
+        ];
+        var inOrder = new IsoTimestamp.InOrder();
+        foreach (var stamp in stamps)
+        {
+            var bytes = System.Text.Encoding.UTF8.GetBytes(stamp);
+            var alone = IsoTimestamp.TryParseSeconds(bytes, out var expected);
+            var ordered = inOrder.TryParseSeconds(bytes, out var actual);
+
+            Assert.Equal(alone, ordered);
+            if (alone)
+            {
+                Assert.Equal(expected, actual);
+                var framework = DateTimeOffset.Parse(stamp.Trim(), System.Globalization.CultureInfo.InvariantCulture, System.Globalization.DateTimeStyles.AssumeUniversal);
+                Assert.Equal((framework.UtcTicks - DateTimeOffset.UnixEpoch.UtcTicks) / 1e7, actual, 9);
+            }
+        }
+    }
 }
