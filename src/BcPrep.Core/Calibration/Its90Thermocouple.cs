@@ -142,6 +142,7 @@ public static class Its90Thermocouple
     }
 
     /// <summary>The inverse piece every lane falls on, or null when lanes differ, are NaN or are out of range.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static InversePiece? SharedInversePiece(Its90Table table, Vector<double> emfV, InverseLimits limits)
     {
         if (!Vector.GreaterThanOrEqualAll(emfV, new Vector<double>(limits.MinV)) || !Vector.LessThanOrEqualAll(emfV, new Vector<double>(limits.MaxV)))

@@ -71,6 +71,7 @@ public sealed class BlockConverter
     /// </summary>
     private sealed record LinearChain(double Gain, double Offset, Affine ToSi, bool Direct = false)
     {
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         public void Apply(ReadOnlySpan<double> raw, Span<double> si)
         {
             var i = 0;
@@ -101,6 +102,7 @@ public sealed class BlockConverter
     /// </summary>
     private sealed record ThermocoupleChain(ThermocoupleType Type, Affine RawToSi)
     {
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         public void Apply(ReadOnlySpan<double> raw, ReadOnlySpan<double> referenceEmfV, double fixedReferenceEmfV, Span<double> si)
         {
             var emf = ThreadScratch.Rent(ScratchSlots.ThermocoupleEmf, raw.Length).AsSpan(0, raw.Length);
