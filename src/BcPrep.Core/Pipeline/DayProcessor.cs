@@ -40,7 +40,6 @@ public static class DayProcessor
             : null;
         DayScan.Run(rig, plan, converters, [.. feed.ChannelSinks, firstPass, extent], (IBlockSink?)live ?? feed.BlockSink, options.Progress, index);
         live?.ReadDone();
-        options.FirstReadDone?.Invoke();
         feed.Complete();
         book.DrainInto(stats);
         var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, extent.FirstS, extent.LastS), options.AllowExpired);

@@ -16,12 +16,6 @@ public sealed record ProcessOptions(
     public Reading.ReadProgress? Progress { get; init; }
 
     /// <summary>
-    /// Called once the first full read of the logs is over. A caller with other whole-file work (hashing the inputs)
-    /// starts it here rather than beside the first read, which is parse-bound and would lose a core to it.
-    /// </summary>
-    public Action? FirstReadDone { get; init; }
-
-    /// <summary>
     /// Gather detected windows while the day is read, from the rows kept back (default). False reads them in a
     /// second pass instead, as a day recorded by several loggers always is; the results are the same.
     /// </summary>
