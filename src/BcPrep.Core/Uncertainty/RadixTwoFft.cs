@@ -1,4 +1,5 @@
 using System.Collections.Concurrent;
+using System.Numerics;
 using System.Runtime.CompilerServices;
 
 namespace BcPrep.Uncertainty;
@@ -11,6 +12,7 @@ namespace BcPrep.Uncertainty;
 internal static class RadixTwoFft
 {
     private static readonly ConcurrentDictionary<int, (double[] Cos, double[] Sin)> Twiddles = new();
+    private static readonly ConcurrentDictionary<int, (double[] Cos, double[] Sin)> StageTwiddles = new();
 
     /// <summary>
     /// X[k] = Σ x[j]·exp(∓2πi·jk/n) over the first <paramref name="n"/> elements (a power of two); the minus sign
@@ -24,30 +26,77 @@ internal static class RadixTwoFft
             throw new ArgumentException($"FFT length {n} must be a power of two within the buffers.", nameof(n));
         }
         BitReverse(re, im, n);
-        var (cos, sin) = TwiddlesFor(n);
+        var (cos, sin) = StageTwiddlesFor(n);
         var sign = inverse ? 1.0 : -1.0;
         for (var length = 2; length <= n; length <<= 1)
         {
             var half = length >> 1;
-            var stride = n / length;
+            // This stage's twiddles cos, sin(2πk/length), k < half, sit contiguously at [half, length).
+            var wCos = cos.AsSpan(half, half);
+            var wSin = sin.AsSpan(half, half);
             for (var start = 0; start < n; start += length)
             {
-                for (var k = 0; k < half; k++)
+                var aRe = re.Slice(start, half);
+                var aIm = im.Slice(start, half);
+                var bRe = re.Slice(start + half, half);
+                var bIm = im.Slice(start + half, half);
+                var k = 0;
+                if (Vector.IsHardwareAccelerated && half >= Vector<double>.Count)
                 {
-                    var wr = cos[k * stride];
-                    var wi = sign * sin[k * stride];
-                    var a = start + k;
-                    var b = a + half;
-                    var tr = (re[b] * wr) - (im[b] * wi);
-                    var ti = (re[b] * wi) + (im[b] * wr);
-                    re[b] = re[a] - tr;
-                    im[b] = im[a] - ti;
-                    re[a] += tr;
-                    im[a] += ti;
+                    var signs = new Vector<double>(sign);
+                    for (; k <= half - Vector<double>.Count; k += Vector<double>.Count)
+                    {
+                        var wr = new Vector<double>(wCos[k..]);
+                        var wi = signs * new Vector<double>(wSin[k..]);
+                        var xr = new Vector<double>(bRe[k..]);
+                        var xi = new Vector<double>(bIm[k..]);
+                        var tr = (xr * wr) - (xi * wi);
+                        var ti = (xr * wi) + (xi * wr);
+                        var ar = new Vector<double>(aRe[k..]);
+                        var ai = new Vector<double>(aIm[k..]);
+                        (ar - tr).CopyTo(bRe[k..]);
+                        (ai - ti).CopyTo(bIm[k..]);
+                        (ar + tr).CopyTo(aRe[k..]);
+                        (ai + ti).CopyTo(aIm[k..]);
+                    }
+                }
+                for (; k < half; k++)
+                {
+                    var wr = wCos[k];
+                    var wi = sign * wSin[k];
+                    var tr = (bRe[k] * wr) - (bIm[k] * wi);
+                    var ti = (bRe[k] * wi) + (bIm[k] * wr);
+                    bRe[k] = aRe[k] - tr;
+                    bIm[k] = aIm[k] - ti;
+                    aRe[k] += tr;
+                    aIm[k] += ti;
                 }
             }
         }
     }
+
+    /// <summary>
+    /// The twiddles of every stage, the stage of length L at [L/2, L): entry L/2 + k is cos, sin(2πk/L), taken from
+    /// <see cref="TwiddlesFor"/> at k·n/L so the values are those of the full table. Contiguous per stage, so a
+    /// stage reads them in order (and in vectors) instead of with a stride of n/L.
+    /// </summary>
+    private static (double[] Cos, double[] Sin) StageTwiddlesFor(int n) => StageTwiddles.GetOrAdd(n, static size =>
+    {
+        var (cos, sin) = TwiddlesFor(size);
+        var stageCos = new double[Math.Max(1, size)];
+        var stageSin = new double[Math.Max(1, size)];
+        for (var length = 2; length <= size; length <<= 1)
+        {
+            var half = length >> 1;
+            var stride = size / length;
+            for (var k = 0; k < half; k++)
+            {
+                stageCos[half + k] = cos[k * stride];
+                stageSin[half + k] = sin[k * stride];
+            }
+        }
+        return (stageCos, stageSin);
+    });
 
     /// <summary>cos and sin of 2πk/n for k &lt; n/2, kept per size: the autocorrelation of a day's windows reuses a few sizes.</summary>
     public static (double[] Cos, double[] Sin) TwiddlesFor(int n) => Twiddles.GetOrAdd(n, static size =>
