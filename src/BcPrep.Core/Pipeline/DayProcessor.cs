@@ -36,7 +36,7 @@ public static class DayProcessor
         var index = new ScanIndex();
         var liveBook = new WindowStatsBook();
         var live = ReadsLive(rig, plan, pinned, options)
-            ? new LiveDetection(rig, plan.DayStartS, feed.BlockSink, blocks, pinned, (w, c, t, v) => Collect(rig, plan.DayStartS, liveBook, w, c, t, v))
+            ? new LiveDetection(rig, plan.DayStartS, feed.BlockSink, blocks, pinned, (w, c, t, v) => Collect(rig, plan.DayStartS, liveBook, w, c, t, v), options.KeptRowsS)
             : null;
         DayScan.Run(rig, plan, converters, [.. feed.ChannelSinks, firstPass, extent], (IBlockSink?)live ?? feed.BlockSink, options.Progress, index);
         live?.ReadDone();

@@ -36,8 +36,9 @@ internal sealed class LiveDetection : IBlockSink
     /// <param name="blocks">The block means that sink fills.</param>
     /// <param name="pinned">Windows pinned in the rig file, which replace the detected windows they overlap.</param>
     /// <param name="onWindow">Receives (window, channel, times, values) of each gathered window and channel.</param>
+    /// <param name="keptSpanS">How far back rows are kept (s); null for <see cref="KeptSpanS"/>'s default.</param>
     public LiveDetection(RigDescription rig, double dayStartS, IBlockSink detectionFeed, BlockMeanSink blocks, IReadOnlyList<TimeWindow> pinned,
-        Action<TimeWindow, string, double[], double[]> onWindow)
+        Action<TimeWindow, string, double[], double[]> onWindow, double? keptSpanS = null)
     {
         _detectionFeed = detectionFeed;
         _blocks = blocks;
@@ -49,7 +50,7 @@ internal sealed class LiveDetection : IBlockSink
         _keyMeans = new double[_keys.Count];
         var settings = WindowFinder.Settings(rig.Steady);
         _scan = new SteadyScan(keyChannels, settings);
-        KeptSpanS = settings.TailS + (settings.WindowS / 2) + (2 * settings.StepS) + (2 * rig.Steady.BlockS);
+        KeptSpanS = keptSpanS ?? (settings.TailS + (settings.WindowS / 2) + (2 * settings.StepS) + (2 * rig.Steady.BlockS));
     }
 
     /// <summary>

@@ -20,4 +20,7 @@ public sealed record ProcessOptions(
     /// second pass instead, as a day recorded by several loggers always is; the results are the same.
     /// </summary>
     public bool SinglePass { get; init; } = true;
+
+    /// <summary>How long (s) rows are kept back for the single pass; null for the span the steady settings need.</summary>
+    internal double? KeptRowsS { get; init; }
 }

@@ -56,10 +56,10 @@ public class SeekingSecondPassTests
     }
 
     /// <summary>The sample rig without its pinned points, so that every operating point is detected.</summary>
-    internal static RigDescription DetectingRig()
+    internal static RigDescription DetectingRig(string appended = "")
     {
         var text = Regex.Replace(File.ReadAllText(Tests.Rig.RigLoaderTests.SampleRigPath), @"\[\[point\]\]\s*\nid = ""[^""]*""\s*\nstart = ""[^""]*""\s*\nend = ""[^""]*""\s*\n", "");
-        return RigLoader.Load(text, "detect.toml");
+        return RigLoader.Load(text + appended, "detect.toml");
     }
 
     /// <summary>The sample day in one file at 10 Hz: every 2 Hz row repeated at 0.1 s steps.</summary>

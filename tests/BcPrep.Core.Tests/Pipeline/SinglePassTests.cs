@@ -25,6 +25,47 @@ public class SinglePassTests
         AssertSamePoints(twoPasses, single);
     }
 
+    // Reference: the two-pass reduction again. Rows are kept in whole read blocks (8192 rows, 819 s at 10 Hz); with
+    // no span asked beyond that, a window whose first block was dropped before its stretch was judged is read again.
+    [Fact]
+    public void Windows_the_kept_rows_no_longer_cover_are_read_again()
+    {
+        var rig = SeekingSecondPassTests.DetectingRig();
+        var folder = Path.Combine(Path.GetTempPath(), "bcprep-kept-" + Guid.NewGuid().ToString("N"));
+        Directory.CreateDirectory(folder);
+        try
+        {
+            var day = new[] { LogInput.FromPath(SeekingSecondPassTests.TenHertz(SampleDay().Select(l => l.Path).ToList(), Path.Combine(folder, "day-10hz.csv"))) };
+
+            var shortKept = DayProcessor.Process(rig, day, new ProcessOptions { KeptRowsS = 0.0 });
+            var twoPasses = DayProcessor.Process(rig, day, new ProcessOptions { SinglePass = false });
+
+            Assert.Equal(3, shortKept.Points.Count);
+            Assert.InRange(shortKept.WindowsReadAgain, 1, 3);
+            Assert.True(shortKept.SecondPassSeeks >= 1);
+            AssertSamePoints(twoPasses, shortKept);
+        }
+        finally
+        {
+            Directory.Delete(folder, recursive: true);
+        }
+    }
+
+    // With a low-pass configured the block means come through the conditioning, a chunk behind the rows: the
+    // detector runs late, the rows are kept that much longer, and the points are still those of two passes.
+    [Fact]
+    public void Detection_behind_a_conditioning_chunk_still_gathers_every_point()
+    {
+        var rig = SeekingSecondPassTests.DetectingRig("\n[conditioning]\nlowpass_cutoff = \"0.2 Hz\"\n");
+
+        var single = DayProcessor.Process(rig, SampleDay(), new ProcessOptions());
+        var twoPasses = DayProcessor.Process(rig, SampleDay(), new ProcessOptions { SinglePass = false });
+
+        Assert.Equal(3, single.Points.Count);
+        Assert.Equal(0, single.WindowsReadAgain);
+        AssertSamePoints(twoPasses, single);
+    }
+
     // The sample rig pins its three points, which replace the detected windows they overlap: nothing is gathered
     // ahead, nothing is read again, and the results are those of the two-pass path.
     [Fact]
