@@ -30,7 +30,8 @@ public static class DayProcessor
         var tareWindows = TareWindows(rig, plan.DayStartS);
         var pinned = rig.Points.Select(p => new TimeWindow(p.Id, Resolve(p.Start, plan.DayStartS), Resolve(p.End, plan.DayStartS))).ToList();
         var book = new WindowStatsBook();
-        var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v, PinnedLocation(rig, w)));
+        var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v, PinnedLocation(rig, w)),
+            collects: (w, c) => !w.Id.StartsWith("tare:", StringComparison.Ordinal) || w.Id == "tare:" + c);
         var extent = new DayExtentSink();
         var feed = DetectionFeed.For(rig, blocks);
         var index = new ScanIndex();
@@ -104,10 +105,6 @@ public static class DayProcessor
     private static void Collect(RigDescription rig, double dayStartS, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,
         SourceLocation? pinnedAt = null)
     {
-        if (window.Id.StartsWith("tare:", StringComparison.Ordinal) && window.Id != "tare:" + channel)
-        {
-            return;
-        }
         if (pinnedAt is null)
         {
             // A detected window may be gathered before the day's detection confirms it, so even its emptiness is

@@ -16,23 +16,23 @@ public sealed class WindowCollector : IChannelSink
 {
     private readonly IReadOnlyList<TimeWindow> _windows;
     private readonly Action<TimeWindow, string, double[], double[]> _onWindowComplete;
+    private readonly Func<TimeWindow, string, bool>? _collects;
     private readonly Dictionary<string, ChannelState> _state = new(StringComparer.Ordinal);
 
     /// <param name="windows">Windows to collect, any order, may overlap.</param>
     /// <param name="onWindowComplete">Receives (window, channel, times, values) once per window and channel.</param>
-    public WindowCollector(IReadOnlyList<TimeWindow> windows, Action<TimeWindow, string, double[], double[]> onWindowComplete)
+    /// <param name="collects">Whether a window is collected for a channel (a tare window serves one channel); null for all.</param>
+    public WindowCollector(IReadOnlyList<TimeWindow> windows, Action<TimeWindow, string, double[], double[]> onWindowComplete,
+        Func<TimeWindow, string, bool>? collects = null)
     {
         _windows = windows.OrderBy(w => w.StartS).ToList();
         _onWindowComplete = onWindowComplete;
+        _collects = collects;
     }
 
     public void Accept(string channel, ReadOnlySpan<double> timeS, ReadOnlySpan<double> valueSi)
     {
-        if (!_state.TryGetValue(channel, out var state))
-        {
-            state = new ChannelState(_windows.Count);
-            _state[channel] = state;
-        }
+        var state = StateOf(channel);
         if (timeS.IsEmpty)
         {
             return;
@@ -73,15 +73,26 @@ public sealed class WindowCollector : IChannelSink
 
     public void Complete(string channel)
     {
-        if (!_state.TryGetValue(channel, out var state))
-        {
-            state = new ChannelState(_windows.Count);
-            _state[channel] = state;
-        }
+        var state = StateOf(channel);
         for (var w = 0; w < _windows.Count; w++)
         {
             Flush(channel, state, w);
         }
+    }
+
+    /// <summary>A channel's state; windows it does not collect start out done, so they are neither filled nor handed over.</summary>
+    private ChannelState StateOf(string channel)
+    {
+        if (!_state.TryGetValue(channel, out var state))
+        {
+            state = new ChannelState(_windows.Count);
+            for (var w = 0; w < _windows.Count; w++)
+            {
+                state.Done[w] = _collects is not null && !_collects(_windows[w], channel);
+            }
+            _state[channel] = state;
+        }
+        return state;
     }
 
     /// <summary>

@@ -52,4 +52,21 @@ public class WindowCollectorTests
         collector.Accept("x", [1.5, 2.0], [4.0, 5.0]);
         Assert.Equal(["early"], handed);
     }
+
+    [Fact]
+    public void A_window_for_one_channel_is_neither_filled_nor_handed_over_for_the_others()
+    {
+        double[] times = [1.0, 2.0, 3.0, 4.0];
+        var handed = new List<(string Window, string Channel, int Count)>();
+        var collector = new WindowCollector([new TimeWindow("tare:p", 1.5, 3.5), new TimeWindow("op", 1.0, 2.0)],
+            (w, c, t, _) => handed.Add((w.Id, c, t.Length)), collects: (w, c) => w.Id != "tare:p" || c == "p");
+
+        foreach (var channel in new[] { "p", "t" })
+        {
+            collector.Accept(channel, times, times);
+            collector.Complete(channel);
+        }
+
+        Assert.Equal([("op", "p", 2), ("tare:p", "p", 2), ("op", "t", 2)], handed);
+    }
 }
