@@ -88,7 +88,7 @@ internal sealed class LiveDetection : IBlockSink
         {
             return _gathered.Contains(window);
         }
-        _rows.Replay(new WindowCollector([window], _onWindow));
+        _rows.Gather(window, (channel, times, values) => _onWindow(window, channel, times, values));
         _gathered.Add(window);
         return true;
     }

@@ -54,20 +54,42 @@ internal sealed class RecentRows
         }
     }
 
-    /// <summary>Hands the kept rows to a channel sink, channel by channel and block by block, then completes each channel.</summary>
-    public void Replay(IChannelSink sink)
+    /// <summary>
+    /// Hands over each channel's kept samples inside <paramref name="window"/> (start ≤ t ≤ end), as a window
+    /// collector would, in exactly sized arrays; the channels share one array of times, which nobody writes to.
+    /// </summary>
+    public void Gather(TimeWindow window, Action<string, double[], double[]> onChannel)
     {
+        var runs = new List<(Kept Block, int First, int End)>();
+        var count = 0;
         foreach (var kept in _kept)
         {
             var times = kept.TimeS.AsSpan(0, kept.Count);
-            for (var c = 0; c < _channels.Count; c++)
+            var first = SortedSearch.FirstAtOrAfter(times, window.StartS);
+            var end = SortedSearch.FirstAfter(times, window.EndS);
+            if (end > first)
             {
-                sink.Accept(_channels[c], times, kept.ValuesSi[c].AsSpan(0, kept.Count));
+                runs.Add((kept, first, end));
+                count += end - first;
             }
         }
-        foreach (var channel in _channels)
+        var timesS = new double[count];
+        var at = 0;
+        foreach (var (block, first, end) in runs)
         {
-            sink.Complete(channel);
+            block.TimeS.AsSpan(first, end - first).CopyTo(timesS.AsSpan(at));
+            at += end - first;
+        }
+        for (var c = 0; c < _channels.Count; c++)
+        {
+            var values = new double[count];
+            at = 0;
+            foreach (var (block, first, end) in runs)
+            {
+                block.ValuesSi[c].AsSpan(first, end - first).CopyTo(values.AsSpan(at));
+                at += end - first;
+            }
+            onChannel(_channels[c], timesS, values);
         }
     }
 

@@ -13,10 +13,9 @@ public class RecentRowsTests
         rows.Add(Channels, times, [times, times.Select(t => -t).ToArray()], count);
     }
 
-    // Reference: the definition of a window's samples, every row with start ≤ t ≤ end, as the window collector
-    // gathers them from the log.
+    // Reference: the window collector, which gathers every row with start ≤ t ≤ end from the log block by block.
     [Fact]
-    public void Replays_a_covered_window_and_refuses_one_whose_start_was_dropped()
+    public void Gathers_a_covered_window_as_the_collector_would_and_refuses_one_whose_start_was_dropped()
     {
         var rows = new RecentRows();
         AddBlock(rows, 0, 10);
@@ -28,11 +27,25 @@ public class RecentRowsTests
         Assert.True(rows.Covers(new TimeWindow("w", 9.5, 15)));
         Assert.True(rows.Covers(new TimeWindow("w", 10, 25)));
         Assert.False(rows.Covers(new TimeWindow("w", 20, 29)));  // the row after the end has not come yet
-        var gathered = new Dictionary<string, double[]>();
-        rows.Replay(new WindowCollector([new TimeWindow("w", 12, 21)], (_, channel, _, values) => gathered[channel] = values));
+        foreach (var window in new[] { new TimeWindow("w", 12, 21), new TimeWindow("w", 12.5, 12.7), new TimeWindow("w", 19.5, 29) })
+        {
+            var gathered = new Dictionary<string, (double[] T, double[] V)>();
+            rows.Gather(window, (channel, times, values) => gathered[channel] = (times, values));
+            var expected = new Dictionary<string, (double[] T, double[] V)>();
+            var collector = new WindowCollector([window], (_, channel, times, values) => expected[channel] = (times, values));
+            for (var start = 10.0; start < 30.0; start += 10.0)
+            {
+                var times = Enumerable.Range(0, 10).Select(i => start + i).ToArray();
+                collector.Accept("a", times, times);
+                collector.Accept("b", times, times.Select(t => -t).ToArray());
+            }
+            collector.Complete("a");
+            collector.Complete("b");
 
-        Assert.Equal(Enumerable.Range(12, 10).Select(i => (double)i), gathered["a"]);
-        Assert.Equal(Enumerable.Range(12, 10).Select(i => -(double)i), gathered["b"]);
+            Assert.Equal(expected["a"].T, gathered["a"].T);
+            Assert.Equal(expected["a"].V, gathered["a"].V);
+            Assert.Equal(expected["b"].V, gathered["b"].V);
+        }
         rows.Complete();
         Assert.True(rows.Covers(new TimeWindow("w", 20, 29)));
     }
