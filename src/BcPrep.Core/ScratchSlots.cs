@@ -8,4 +8,8 @@ internal static class ScratchSlots
     public const int FftImaginary = 2;
     public const int FftPower = 3;
     public const int ThermocoupleEmf = 4;
+    public const int Deviations = 5;
+
+    /// <summary>Number of slots.</summary>
+    public const int Count = 6;
 }

@@ -11,10 +11,10 @@ internal static class ThreadScratch
     [ThreadStatic]
     private static double[][]? _slots;
 
-    /// <summary>A thread-local array of at least <paramref name="length"/> elements for slot 0–4; contents are undefined.</summary>
+    /// <summary>A thread-local array of at least <paramref name="length"/> elements for a <see cref="ScratchSlots"/> slot; contents are undefined.</summary>
     public static double[] Rent(int slot, int length)
     {
-        _slots ??= new double[5][];
+        _slots ??= new double[ScratchSlots.Count][];
         var array = _slots[slot];
         if (array is null || array.Length < length)
         {

@@ -25,7 +25,8 @@ internal sealed class LazyAutocorrelation
     {
         _samples = samples;
         _mean = mean;
-        _deviations = new double[samples.Length];
+        // Scratch: the estimator is used and dropped within one window mean on one thread.
+        _deviations = ThreadScratch.Rent(ScratchSlots.Deviations, samples.Length);
         var ss = 0.0;
         for (var i = 0; i < samples.Length; i++)
         {
@@ -68,16 +69,16 @@ internal sealed class LazyAutocorrelation
         }
         for (var k = _known; k < target; k++)
         {
-            _rho[k] = LaggedProduct(_deviations, k) / _sumOfSquares;
+            _rho[k] = LaggedProduct(_deviations.AsSpan(0, Length), k) / _sumOfSquares;
         }
         _known = target;
     }
 
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static double LaggedProduct(double[] d, int lag)
+    private static double LaggedProduct(ReadOnlySpan<double> d, int lag)
     {
-        var a = d.AsSpan(0, d.Length - lag);
-        var b = d.AsSpan(lag);
+        var a = d[..^lag];
+        var b = d[lag..];
         var width = Vector<double>.Count;
         var acc = Vector<double>.Zero;
         var i = 0;
