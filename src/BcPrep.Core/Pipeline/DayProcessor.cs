@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Runtime.ExceptionServices;
 using BcPrep.Lab;
 using BcPrep.Physics;
 using BcPrep.Reading;
@@ -79,7 +80,7 @@ public static class DayProcessor
         }
 
         var tareStats = TareStats(rig, stats);
-        IReadOnlyList<PointResult> points = windowPlan.Points.Select(p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, options)).ToList();
+        IReadOnlyList<PointResult> points = InOrder(windowPlan.Points, p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, options));
         MatrixReport? matrix = null;
         if (options.Matrix is not null)
         {
@@ -94,6 +95,32 @@ public static class DayProcessor
     /// </summary>
     private static bool ReadsLive(RigDescription rig, DayPlan plan, IReadOnlyList<TimeWindow> pinned, ProcessOptions options) =>
         options.SinglePass && plan.Loggers.Count == 1 && rig.Steady.Keys.Count > 0 && (rig.Steady.Detect || pinned.Count == 0);
+
+    /// <summary>
+    /// Maps the items on the thread pool (each point's propagation is independent and pure) and returns the results
+    /// in item order; the failure of the first failing item, in that order, is the one thrown, whatever the scheduling.
+    /// </summary>
+    private static List<TResult> InOrder<TItem, TResult>(IReadOnlyList<TItem> items, Func<TItem, TResult> map)
+    {
+        var results = new TResult[items.Count];
+        var failures = new ExceptionDispatchInfo?[items.Count];
+        Parallel.For(0, items.Count, i =>
+        {
+            try
+            {
+                results[i] = map(items[i]);
+            }
+            catch (Exception e)
+            {
+                failures[i] = ExceptionDispatchInfo.Capture(e);
+            }
+        });
+        foreach (var failure in failures)
+        {
+            failure?.Throw();
+        }
+        return [.. results];
+    }
 
     public static double Resolve(TimeBound bound, double dayStartS) => bound.IsAbsolute ? bound.Seconds : dayStartS + bound.Seconds;
 
