@@ -79,8 +79,7 @@ public static class HampelFilter
                 continue; // the usual sample: well inside its window's spread, no need for the exact MAD
             }
 
-            double scale = Math.Max(MadToSigma * window.MedianAbsoluteDeviation(median), scaleFloor);
-            if (scale > 0.0 && Math.Abs(x[i] - median) > sigmaThreshold * scale)
+            if (IsSpike(x[i], median, window.MedianAbsoluteDeviation(median), sigmaThreshold, scaleFloor))
             {
                 output[i] = median;
                 replaced.Add(i);
@@ -115,8 +114,7 @@ public static class HampelFilter
                 (median, mad) = TruncatedWindow(x, i, k);
             }
 
-            double scale = Math.Max(MadToSigma * mad, scaleFloor);
-            if (scale > 0.0 && Math.Abs(x[i] - median) > sigmaThreshold * scale)
+            if (IsSpike(x[i], median, mad, sigmaThreshold, scaleFloor))
             {
                 output[i] = median;
                 replaced.Add(i);
@@ -170,8 +168,7 @@ public static class HampelFilter
                 mad = SortedMad(window.Sorted, median);
             }
 
-            double scale = Math.Max(MadToSigma * mad, scaleFloor);
-            if (scale > 0.0 && Math.Abs(x[i] - median) > sigmaThreshold * scale)
+            if (IsSpike(x[i], median, mad, sigmaThreshold, scaleFloor))
             {
                 output[i] = median;
                 replaced.Add(i);
@@ -179,6 +176,14 @@ public static class HampelFilter
         }
 
         return new HampelResult(output, replaced);
+    }
+
+    /// <summary>The Hampel rule: |x − m| &gt; n_σ·max(1.4826·MAD, floor), with a positive scale.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static bool IsSpike(double value, double median, double mad, double sigmaThreshold, double scaleFloor)
+    {
+        double scale = Math.Max(MadToSigma * mad, scaleFloor);
+        return scale > 0.0 && Math.Abs(value - median) > sigmaThreshold * scale;
     }
 
     /// <summary>
