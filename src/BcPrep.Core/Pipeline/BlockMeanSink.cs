@@ -56,8 +56,10 @@ public sealed class BlockMeanSink : IChannelSink, IBlockSink
     public int FinalBlocks => _latestBlock.Count == 0 ? 0 : _latestBlock.Values.Min();
 
     /// <summary>Mean of one block of a channel, as <see cref="Means"/> gives it; NaN where the block had no sample.</summary>
-    public double MeanAt(string channel, int index) =>
-        _channels.TryGetValue(channel, out var acc) && index < acc.Sum.Count && acc.Count[index] > 0 ? acc.Sum[index] / acc.Count[index] : double.NaN;
+    public double MeanAt(string channel, int index) => _channels.TryGetValue(channel, out var acc) ? MeanAt(acc, index) : double.NaN;
+
+    private static double MeanAt((List<double> Sum, List<int> Count) acc, int index) =>
+        index < acc.Sum.Count && acc.Count[index] > 0 ? acc.Sum[index] / acc.Count[index] : double.NaN;
 
     /// <summary>Centre of block <paramref name="index"/> on the log clock (s), as <see cref="Times"/> gives it.</summary>
     public double TimeAt(int index) => _originS + (index + 0.5) * _blockS;
@@ -140,9 +142,14 @@ public sealed class BlockMeanSink : IChannelSink, IBlockSink
     public double[] Means(string channel, int length)
     {
         var result = new double[length];
+        if (!_channels.TryGetValue(channel, out var acc))
+        {
+            Array.Fill(result, double.NaN);
+            return result;
+        }
         for (var i = 0; i < length; i++)
         {
-            result[i] = MeanAt(channel, i);
+            result[i] = MeanAt(acc, i);
         }
         return result;
     }

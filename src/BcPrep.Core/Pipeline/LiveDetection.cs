@@ -11,7 +11,7 @@ namespace BcPrep.Pipeline;
 /// soon as the day leaves it, and its averaging window then lies within the last
 /// <see cref="KeptSpanS"/> of the detector's clock, which is what the rows kept back cover. The windows gathered
 /// here are provisional: the day's detection is still run once over all block means when the read is over, and
-/// only the windows it plans with the same id and the same times keep their statistics (<see cref="IsGathered"/>);
+/// only the windows it plans with the same id and the same times keep their statistics (<see cref="TryGatherNow"/>);
 /// anything else is gathered from the kept rows then, or read again.
 /// </para>
 /// </summary>
@@ -78,15 +78,19 @@ internal sealed class LiveDetection : IBlockSink
     /// <summary>Call when the read is over: the rows kept are then all there will be.</summary>
     public void ReadDone() => _rows.Complete();
 
-    /// <summary>True when <paramref name="window"/> (id and times) was gathered during the read.</summary>
-    public bool IsGathered(TimeWindow window) => _gathered.Contains(window);
-
-    /// <summary>Gathers a planned window from the kept rows if they still cover it; false when it must be read again.</summary>
+    /// <summary>
+    /// True when <paramref name="window"/> (id and times) was gathered during the read or can be gathered now from
+    /// the kept rows; false when it must be read again.
+    /// </summary>
     public bool TryGatherNow(TimeWindow window)
     {
-        if (_gathered.Contains(window) || !_rows.Covers(window))
+        if (_gathered.Contains(window))
         {
-            return _gathered.Contains(window);
+            return true;
+        }
+        if (!_rows.Covers(window))
+        {
+            return false;
         }
         _rows.Gather(window, (channel, times, values) => _onWindow(window, channel, times, values));
         _gathered.Add(window);
