@@ -11,7 +11,7 @@ public sealed record RigDescription(
     LogFormat Log,
     IReadOnlyList<ChannelSpec> Channels,
     IReadOnlyList<PointSpec> Points,
-    SteadySettings Steady,
+    SteadySpec Steady,
     ProfileSettings Profiles,
     double CoverageProbability)
 {
@@ -127,7 +127,7 @@ public sealed record PointSpec(string Id, TimeBound Start, TimeBound End, Source
 /// Steady-window detection settings. Detection runs when <paramref name="Detect"/> is true and there are keys;
 /// windows pinned in the rig file replace the detected windows they overlap.
 /// </summary>
-public sealed record SteadySettings(
+public sealed record SteadySpec(
     double BlockS,
     double WindowS,
     double MinDurationS,

@@ -395,11 +395,11 @@ public static class RigLoader
         return t.Quantity(key, Dimension.Duration, required: true, minSi: 0) is { } seconds ? new TimeBound(seconds, false) : null;
     }
 
-    private static SteadySettings ReadSteady(TableReader? t, IReadOnlyList<ChannelSpec> channels, HashSet<string> declaredIds)
+    private static SteadySpec ReadSteady(TableReader? t, IReadOnlyList<ChannelSpec> channels, HashSet<string> declaredIds)
     {
         if (t is null)
         {
-            return new SteadySettings(1.0, 300.0, 300.0, 180.0, []);
+            return new SteadySpec(1.0, 300.0, 300.0, 180.0, []);
         }
         var block = t.Quantity("block", Dimension.Duration, minSi: 0.01, maxSi: 600) ?? 1.0;
         var window = t.Quantity("window", Dimension.Duration, minSi: 1, maxSi: 86400) ?? 300.0;
@@ -432,7 +432,7 @@ public static class RigLoader
         }
         var detect = t.Bool("detect", fallback: true);
         t.RejectUnknownKeys();
-        return new SteadySettings(block, window, minDuration, tail, keys, detect);
+        return new SteadySpec(block, window, minDuration, tail, keys, detect);
     }
 
     private static ProfileSettings ReadProfiles(TableReader? t)
