@@ -23,7 +23,7 @@ public static class CalibratedSeries
     {
         var result = new Dictionary<string, double>(StringComparer.Ordinal);
         var windows = rig.Channels.Where(c => c.Tare is not null)
-            .Select(c => new TimeWindow("tare:" + c.Id, DayProcessor.Resolve(c.Tare!.Start, plan.DayStartS), DayProcessor.Resolve(c.Tare.End, plan.DayStartS)))
+            .Select(c => TimeWindow.Tare(c.Id, DayProcessor.Resolve(c.Tare!.Start, plan.DayStartS), DayProcessor.Resolve(c.Tare.End, plan.DayStartS)))
             .ToList();
         if (windows.Count == 0)
         {
@@ -31,7 +31,7 @@ public static class CalibratedSeries
         }
         var collector = new WindowCollector(windows, (w, channel, times, values) =>
         {
-            if (w.Id == "tare:" + channel)
+            if (w.Serves(channel))
             {
                 if (!values.Any(double.IsFinite))
                 {

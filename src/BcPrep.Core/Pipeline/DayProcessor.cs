@@ -32,7 +32,7 @@ public static class DayProcessor
         var pinned = rig.Points.Select(p => new TimeWindow(p.Id, Resolve(p.Start, plan.DayStartS), Resolve(p.End, plan.DayStartS))).ToList();
         var book = new WindowStatsBook();
         var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v, PinnedLocation(rig, w)),
-            collects: (w, c) => !w.Id.StartsWith("tare:", StringComparison.Ordinal) || w.Id == "tare:" + c);
+            collects: (w, c) => w.Serves(c));
         var extent = new DayExtentSink();
         var feed = DetectionFeed.For(rig, blocks);
         var index = new ScanIndex();
@@ -79,7 +79,7 @@ public static class DayProcessor
             dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, plan.DayStartS));
         }
 
-        var tareStats = TareStats(rig, stats);
+        var tareStats = TareStats(tareWindows, stats);
         IReadOnlyList<PointResult> points = InOrder(windowPlan.Points, p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, options));
         MatrixReport? matrix = null;
         if (options.Matrix is not null)
@@ -126,7 +126,7 @@ public static class DayProcessor
 
     private static List<TimeWindow> TareWindows(RigDescription rig, double dayStartS) =>
         rig.Channels.Where(c => c.Tare is not null)
-            .Select(c => new TimeWindow("tare:" + c.Id, Resolve(c.Tare!.Start, dayStartS), Resolve(c.Tare.End, dayStartS)))
+            .Select(c => TimeWindow.Tare(c.Id, Resolve(c.Tare!.Start, dayStartS), Resolve(c.Tare.End, dayStartS)))
             .ToList();
 
     private static void Collect(RigDescription rig, double dayStartS, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,
@@ -172,22 +172,22 @@ public static class DayProcessor
     /// <summary>Where a window pinned in the rig file (operating point or tare) is written; null for a detected one.</summary>
     private static SourceLocation? PinnedLocation(RigDescription rig, TimeWindow window)
     {
-        if (rig.Points.FirstOrDefault(p => p.Id == window.Id) is { } point)
+        if (window.TareOf is { } channel)
         {
-            return point.Location;
+            var tared = rig.Channel(channel)!;
+            return tared.Location with { Key = $"channel '{tared.Id}'.tare" };
         }
-        var tared = rig.Channels.FirstOrDefault(c => "tare:" + c.Id == window.Id);
-        return tared is null ? null : tared.Location with { Key = $"channel '{tared.Id}'.tare" };
+        return rig.Points.FirstOrDefault(p => p.Id == window.Id)?.Location;
     }
 
-    private static Dictionary<string, ChannelWindowStats> TareStats(RigDescription rig, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
+    private static Dictionary<string, ChannelWindowStats> TareStats(IReadOnlyList<TimeWindow> tareWindows, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
     {
         var result = new Dictionary<string, ChannelWindowStats>(StringComparer.Ordinal);
-        foreach (var channel in rig.Channels.Where(c => c.Tare is not null))
+        foreach (var window in tareWindows)
         {
-            if (stats.TryGetValue("tare:" + channel.Id, out var byChannel) && byChannel.TryGetValue(channel.Id, out var s))
+            if (stats.TryGetValue(window.Id, out var byChannel) && byChannel.TryGetValue(window.TareOf!, out var s))
             {
-                result[channel.Id] = s;
+                result[window.TareOf!] = s;
             }
         }
         return result;
