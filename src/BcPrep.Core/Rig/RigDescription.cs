@@ -1,3 +1,5 @@
+using BcPrep.Profiles;
+
 namespace BcPrep.Rig;
 
 /// <summary>
@@ -144,6 +146,6 @@ public sealed record SteadyKey(string Channel, double MaxChangeSi, double MaxSca
 /// <summary>Inlet profile settings.</summary>
 public sealed record ProfileSettings(
     int RadialPoints,
-    string VelocityModel,
+    VelocityProfileModel VelocityModel,
     double? TurbulenceIntensity,
     double? LengthScaleM);
