@@ -64,6 +64,12 @@ public sealed class LogFileReader : IDisposable
         }
         Header = header;
         _headerCount = header.Length;
+        if (DuplicateColumn(header) is { } duplicate)
+        {
+            _csv.Dispose();
+            throw new BcPrepFailure(FailureKind.InputData, new SourceLocation(input.DisplayName, 1, duplicate.Second + 1, header[duplicate.First]),
+                $"'{header[duplicate.First]}' appears twice in the header (columns {duplicate.First + 1} and {duplicate.Second + 1}): which one is the channel is a guess, so rename or remove one");
+        }
         _timeIndex = Array.IndexOf(header, format.TimeColumn);
         if (_timeIndex < 0)
         {
@@ -276,6 +282,25 @@ public sealed class LogFileReader : IDisposable
             .OrderByDescending(x => x.Count)
             .ToList();
         return counts[0].Count > 0 ? counts[0].Separator : ',';
+    }
+
+    /// <summary>The first pair of equal non-blank header names (0-based column indices), or null.</summary>
+    private static (int First, int Second)? DuplicateColumn(string[] header)
+    {
+        var seen = new Dictionary<string, int>(StringComparer.Ordinal);
+        for (var i = 0; i < header.Length; i++)
+        {
+            if (header[i].Length == 0)
+            {
+                continue;
+            }
+            if (seen.TryGetValue(header[i], out var first))
+            {
+                return (first, i);
+            }
+            seen[header[i]] = i;
+        }
+        return null;
     }
 
     public static string Hours(double seconds) => (seconds / 3600).ToString(seconds < 36000 ? "0.##" : "0", CultureInfo.InvariantCulture);

@@ -199,4 +199,15 @@ public class LogFileReaderTests
         var failure = Assert.Throws<BcPrepFailure>(() => ReadAll(beyond, Seconds, "a"));
         Assert.Contains("beyond.csv:4:1: t: the time '172800.5' lies 48 h after the file's first row (line 2)", failure.Message, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void A_header_naming_a_column_twice_is_refused_with_both_columns()
+    {
+        using var files = new TempFiles();
+        var path = files.Write("dup.csv", "t,a,b,a\n0,1,2,3\n");
+
+        var failure = Assert.Throws<BcPrepFailure>(() => ReadAll(path, Seconds, "a"));
+
+        Assert.Contains("dup.csv:1:4: a: 'a' appears twice in the header (columns 2 and 4)", failure.Message, StringComparison.Ordinal);
+    }
 }
