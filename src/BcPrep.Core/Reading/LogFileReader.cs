@@ -44,7 +44,7 @@ public sealed class LogFileReader : IDisposable
         _format = format;
         _numbers = new NumberFormatInfo { NumberDecimalSeparator = format.DecimalSeparator.ToString(), NumberGroupSeparator = "" };
         var stream = input.Open();
-        CanSeek = stream is not System.IO.Compression.GZipStream && !StartsWithUtf16Mark(input.Path);
+        CanSeek = stream is not CheckedGzipStream && !StartsWithUtf16Mark(input.Path);
         _separator = format.Separator ?? SniffSeparator(stream, format.DecimalSeparator);
         _csv = CsvReader.Create(stream, Options(hasHeader: true), leaveOpen: false);
         string[] header;
