@@ -148,7 +148,7 @@ public class GumPropagationTests
     [Fact]
     public void Output_names_must_match_output_count()
     {
-        Assert.Throws<BcPrepDataException>(() => GumPropagation.Propagate(x => [x[0], x[0]], TwoUnitInputs, ["only one"]));
+        Assert.Throws<ArgumentException>(() => GumPropagation.Propagate(x => [x[0], x[0]], TwoUnitInputs, ["only one"]));
     }
 
     [Fact]
