@@ -43,7 +43,8 @@ public static class DayProcessor
         DayScan.Run(rig, plan, converters, [.. feed.ChannelSinks, firstPass, extent], (IBlockSink?)live ?? feed.BlockSink, options.Progress, index);
         live?.ReadDone();
         feed.Complete();
-        book.DrainInto(stats);
+        var lost = new Dictionary<string, Problem>(StringComparer.Ordinal);
+        book.DrainInto(stats, lost: lost);
         var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, extent.FirstS, extent.LastS), options.AllowExpired);
 
         var series = WindowFinder.Series(rig, blocks);
@@ -60,14 +61,14 @@ public static class DayProcessor
         }
         var detected = windowPlan.Points.Where(p => p.Origin == WindowOrigin.Detected).Select(p => p.Window).ToList();
         var gathered = live is null ? [] : detected.Where(live.TryGatherNow).ToHashSet();
-        liveBook.DrainInto(stats, gathered.Contains);
+        liveBook.DrainInto(stats, gathered.Contains, lost);
         var readAgain = detected.Where(w => !gathered.Contains(w)).ToList();
         if (readAgain.Count > 0)
         {
             var secondPass = new WindowCollector(readAgain, (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v));
             // Only the blocks covering these windows are read again (seeking by the first pass's index).
             DayScan.Run(rig, plan, converters, [secondPass], progress: options.Progress, index: index, onlyWindows: readAgain);
-            book.DrainInto(stats);
+            book.DrainInto(stats, lost: lost);
         }
         var dayWarnings = new List<string>();
         if (detection is { Accepted.Count: 0 })
@@ -80,13 +81,21 @@ public static class DayProcessor
         }
 
         var tareStats = TareStats(tareWindows, stats);
-        IReadOnlyList<PointResult> points = InOrder(windowPlan.Points, p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, options));
+        // A point whose window lost too much to gaps fails alone; the others are reduced and written.
+        var failed = windowPlan.Points.Where(p => lost.ContainsKey(p.Window.Id))
+            .Select(p => new FailedPoint(p.Window.Id, p.Window.StartS, p.Window.EndS, lost[p.Window.Id].Message)).ToList();
+        var reduced = windowPlan.Points.Where(p => !lost.ContainsKey(p.Window.Id)).ToList();
+        if (reduced.Count == 0)
+        {
+            throw new BcPrepFailure(FailureKind.InputData, failed.Select(f => lost[f.Id]).ToList());
+        }
+        IReadOnlyList<PointResult> points = InOrder(reduced, p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, options));
         MatrixReport? matrix = null;
         if (options.Matrix is not null)
         {
             (points, matrix) = MatrixNaming.Apply(options.Matrix, points);
         }
-        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = readAgain.Count };
+        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = readAgain.Count };
     }
 
     /// <summary>
@@ -150,6 +159,11 @@ public static class DayProcessor
             try
             {
                 return FaultPolicy.Evaluate(rig, channel, window, times, values, dayStartS);
+            }
+            catch (WindowLostFailure failure)
+            {
+                // Still a failure of this point alone, now pointing at the window in the rig file.
+                throw new WindowLostFailure(pinnedAt with { Key = $"{pinnedAt.Key}, channel '{channel}'" }, failure.Problems[0].Message);
             }
             catch (BcPrepFailure failure)
             {
