@@ -33,6 +33,10 @@ public static class ProcessCommand
             var outDir = parse.GetValue(output)!;
             var plan = parse.GetValue(matrix) is { } path ? LabOptions.LoadMatrix(path, description) : null;
             var allowed = parse.GetValue(allowExpired) ?? [];
+            // The folder is claimed (checked, locked) before any work, and held until the result is swapped in.
+            using var folder = ResultFolder.Claim(outDir,
+                [parse.GetValue(rig)!, .. parse.GetValue(logs)!.Where(l => l != "-"), .. parse.GetValue(matrix) is { } m ? new[] { m } : []],
+                CommitHook.FromEnvironment(context));
             var rigFingerprint = LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!);
             RunProvenance Provenance(IReadOnlyList<InputFingerprint> logFingerprints) => new(BcPrepApp.Version, rigFingerprint, logFingerprints)
             {
@@ -66,9 +70,7 @@ public static class ProcessCommand
                 });
                 var provenance = Provenance(hashing.GetAwaiter().GetResult());
                 files = DayOutputs.Build(day, provenance, facePoints, ReportOption.Files(parse.GetValue(report), day, diagnostics));
-                var superseded = ReportOption.Superseded(outDir, files.Files.Select(f => f.RelativePath));
-                files.Commit(outDir);
-                ReportOption.RemoveSuperseded(outDir, superseded);
+                folder.Commit(files);
             }
             foreach (var warning in day.Warnings.Concat(day.Calibration?.Warnings ?? []).Concat(day.Matrix?.Warnings ?? []))
             {
