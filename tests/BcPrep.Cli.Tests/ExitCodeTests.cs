@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using BcPrep.Cli;
+using BcPrep.Conditioning;
 using BcPrep.Tests.Cli.Support;
 
 namespace BcPrep.Tests.Cli;
@@ -164,6 +165,27 @@ public sealed class ExitCodeTests
     }
 
     [Fact]
+    public void Precondition_violation_in_core_is_an_internal_error_not_bad_data()
+    {
+        // Mismatched time and value arrays can only come from a bug: exit 70, not 3 ("bad data").
+        var run = CliRunner.Run(["bridge"], (_, _) => [Running("bridge", () => GapBridging.Bridge([0, 1], [1, 2, 3], 1))]);
+
+        Assert.Equal(ExitCodes.InternalError, run.ExitCode);
+        Assert.Contains("error: internal error (ArgumentException)", run.Error, StringComparison.Ordinal);
+        Assert.DoesNotContain("   at ", run.Error, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Data_problem_in_core_keeps_the_bad_data_code()
+    {
+        // The same function refusing time stamps that do not increase: a data problem, exit 3.
+        var run = CliRunner.Run(["bridge"], (_, _) => [Running("bridge", () => GapBridging.Bridge([0, 1, 1], [1, 2, 3], 1))]);
+
+        Assert.Equal(ExitCodes.BadInputData, run.ExitCode);
+        Assert.Contains("not after the previous one", run.Error, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Closed_downstream_pipe_is_not_an_error()
     {
         var run = CliRunner.Run(["write"], (_, _) => [Throwing("write", new IOException("Broken pipe", 32))]);
@@ -192,6 +214,17 @@ public sealed class ExitCodeTests
         var run = CliRunner.Run(["fail"], (_, _) => [Throwing("fail", new BcPrepFailure(kind, new SourceLocation("f.csv", 7, 2, "col"), "bad thing"))]);
         Assert.Equal(expected, run.ExitCode);
         Assert.Equal("error: f.csv:7:2: col: bad thing\n", run.Error);
+    }
+
+    private static Command Running(string name, Action work)
+    {
+        var command = new Command(name, "A command that calls into Core, for tests.");
+        command.SetAction(_ =>
+        {
+            work();
+            return 0;
+        });
+        return command;
     }
 
     private static Command Throwing(string name, Exception exception)

@@ -12,6 +12,7 @@ public static class EnsembleCommand
     {
         var rig = RigArguments.Rig();
         var logs = RigArguments.Logs();
+        var reduction = ReductionOptions.WithoutMonteCarlo();
         var point = PointSelection.Option(required: true);
         var samples = new Option<int>("--samples", "-n") { Description = $"Number of members (1 … {PointEnsemble.MaxMembers.ToString(CultureInfo.InvariantCulture)}).", Required = true };
         var seed = new Option<int>("--seed") { Description = "Seed of the draws; the same seed gives the same files.", DefaultValueFactory = _ => 1 };
@@ -22,6 +23,7 @@ public static class EnsembleCommand
         {
             rig, logs, point, samples, seed, latin, output,
         };
+        reduction.AddTo(command);
         command.SetAction(parse =>
         {
             var diagnostics = common.DiagnosticsFor(parse, context);
@@ -34,9 +36,9 @@ public static class EnsembleCommand
 
             var description = RigArguments.LoadRig(parse.GetValue(rig)!);
             using var inputs = new LogArguments(parse.GetValue(logs)!, context);
-            var provenance = new RunProvenance(BcPrepApp.Version, LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!), inputs.Fingerprints());
+            var provenance = reduction.Record(new RunProvenance(BcPrepApp.Version, LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!), inputs.Fingerprints()), parse, []);
             diagnostics.Detail($"reading {inputs.Inputs.Count} log file(s)");
-            var day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions());
+            var day = DayProcessor.Process(description, inputs.Inputs, reduction.Read(parse, description));
             var chosen = PointSelection.Select(day, parse.GetValue(point))[0];
             var request = new EnsembleOutputs.Request(chosen.Id, count, parse.GetValue(seed),
                 parse.GetValue(latin) ? EnsembleSampling.LatinHypercube : EnsembleSampling.Random);

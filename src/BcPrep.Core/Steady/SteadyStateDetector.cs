@@ -20,7 +20,8 @@ public static class SteadyStateDetector
     ///    value to limit) with each failed criterion, its value and limit.
     /// Time stamps must increase strictly; cost O(n·WindowS/StepS·channels).
     /// </summary>
-    /// <exception cref="BcPrepDataException">No channel, length mismatch, non-increasing time, or invalid settings/limits.</exception>
+    /// <exception cref="ArgumentException">No channel, or a channel whose values do not match the times (a caller's mistake).</exception>
+    /// <exception cref="BcPrepDataException">Non-increasing time, or invalid settings/limits.</exception>
     public static SteadyDetectionResult Detect(IReadOnlyList<double> timesS, IReadOnlyList<KeyChannel> channels, SteadySettings settings)
     {
         ArgumentNullException.ThrowIfNull(timesS);
@@ -335,7 +336,7 @@ public static class SteadyStateDetector
         {
             if (c.Values.Count != timesS.Count)
             {
-                throw new BcPrepDataException(Format($"Channel '{c.Name}' has {c.Values.Count} values for {timesS.Count} time stamps."));
+                throw new ArgumentException(Format($"Channel '{c.Name}' has {c.Values.Count} values for {timesS.Count} time stamps."), nameof(channels));
             }
         }
     }
@@ -345,7 +346,7 @@ public static class SteadyStateDetector
     {
         if (channels.Count == 0)
         {
-            throw new BcPrepDataException("Steady-state detection needs at least one key channel.");
+            throw new ArgumentException("Steady-state detection needs at least one key channel.", nameof(channels));
         }
 
         foreach (var c in channels)
