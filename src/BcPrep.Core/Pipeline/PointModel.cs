@@ -60,15 +60,7 @@ public sealed partial class PointModel
     public static PointSettings SettingsOf(RigDescription rig)
     {
         var spacing = rig.Duct.PlanePositionsM["outlet"] - rig.Duct.PlanePositionsM["inlet"];
-        var model = rig.Profiles.VelocityModel switch
-        {
-            "uniform" => VelocityProfileModel.Uniform,
-            "laminar" => VelocityProfileModel.Laminar,
-            "power_law" => VelocityProfileModel.PowerLaw,
-            "spalding" => VelocityProfileModel.Spalding,
-            "reichardt" => VelocityProfileModel.Reichardt,
-            _ => VelocityProfileModel.Auto,
-        };
+        var model = ChoiceSpelling.VelocityModel(rig.Profiles.VelocityModel);
         return new PointSettings(rig.Duct.WallRoughnessM, rig.Duct.HeatedLengthM, spacing, model, rig.Profiles.RadialPoints,
             rig.Profiles.TurbulenceIntensity, rig.Profiles.LengthScaleM);
     }

@@ -20,7 +20,7 @@ public static class RigLoader
 
     private static readonly string[] SensorKinds = ["linear", "polynomial", "table", "thermocouple", "rtd", "direct"];
     private static readonly string[] ThermocoupleTypes = ["K", "T", "J", "E", "N"];
-    private static readonly string[] VelocityModels = ["auto", "uniform", "laminar", "power_law", "spalding", "reichardt"];
+    private static readonly string[] VelocityModels = [.. ChoiceSpelling.VelocityModels];
 
     public static RigDescription Load(string text, string fileName)
     {
