@@ -92,7 +92,7 @@ public static class ReportPage
             var ids = day.Points.Where(p => p.Window.StartS - day.DayStartS < window.StretchEndS && p.Window.EndS - day.DayStartS > window.StretchStartS).Select(p => p.Id);
             rows.Add((window.StretchStartS, [
                 "accepted", string.Join(", ", ids), Minutes(window.StretchStartS) + "–" + Minutes(window.StretchEndS),
-                Minutes(window.StartS) + "–" + Minutes(window.EndS), window.AcceptedBy.ToString(), "",
+                Minutes(window.StartS) + "–" + Minutes(window.EndS), ChoiceSpelling.Names(window.AcceptedBy), "",
             ]));
         }
         foreach (var rejected in detection.Rejected)

@@ -13,7 +13,7 @@ public static class ProcessCommand
     {
         var rig = RigArguments.Rig();
         var logs = RigArguments.Logs();
-        var output = new Option<string>("--out", "-o") { Description = "Output folder (created if needed).", Required = true };
+        var output = new Option<string>("--out", "-o") { Description = "Output folder (created if needed).", Required = true, HelpName = "DIR" };
         var force = new Option<bool>("--force") { Description = "Recompute even when inputs, rig file and tool version match the existing manifest." };
         var reduction = ReductionOptions.WithMonteCarlo();
         var report = ReportOption.Create();
