@@ -46,7 +46,8 @@ public static class DayChannelFigure
         plot.XLabel("time since the first sample [min]");
         plot.YLabel(unit.Length == 0 ? channel : $"{channel} [{unit}]");
         var caption = $"{channel}: {day.Rig.Steady.BlockS.ToString("0.###", CultureInfo.InvariantCulture)} s block means over the day; dark shading = averaging window of an operating point, light shading = its steady stretch, hatched = rejected candidate stretch.";
-        return new ReportFigure(relativePath, caption, ReportStyle.DayWidthPx, ReportStyle.DayHeightPx, FigureRendering.Png(plot, ReportStyle.DayWidthPx, ReportStyle.DayHeightPx));
+        var (png, area) = FigureRendering.PngWithArea(plot, ReportStyle.DayWidthPx, ReportStyle.DayHeightPx);
+        return new ReportFigure(relativePath, caption, ReportStyle.DayWidthPx, ReportStyle.DayHeightPx, png) { Area = area };
     }
 
     private static void AddTrace(Plot plot, DayResult day, double[] means)
@@ -56,12 +57,25 @@ public static class DayChannelFigure
         {
             return;
         }
-        // Block means lie on a uniform grid, the case Signal draws fastest; NaN (a block without samples) leaves a gap.
+        // Block means lie on a uniform grid, the case Signal draws fastest. A block without samples has a NaN mean, and
+        // one NaN in a Signal makes the library drop the whole line, so each finite run is a Signal of its own: the
+        // trace breaks at a missing block and goes on after it. A run of one block is drawn as a dot.
         var periodMin = times.Length > 1 ? (times[1] - times[0]) / 60.0 : day.Rig.Steady.BlockS / 60.0;
-        var signal = plot.Add.Signal(means, periodMin);
-        signal.Data.XOffset = (times[0] - day.DayStartS) / 60.0;
-        signal.Color = ReportStyle.Ink;
-        signal.LineWidth = 1.5f;
+        var originMin = (times[0] - day.DayStartS) / 60.0;
+        foreach (var (start, length) in TraceRuns.Finite(means))
+        {
+            if (length == 1)
+            {
+                var dot = plot.Add.Marker(originMin + (start * periodMin), means[start]);
+                dot.Color = ReportStyle.Ink;
+                dot.Size = 3;
+                continue;
+            }
+            var signal = plot.Add.Signal(means[start..(start + length)], periodMin);
+            signal.Data.XOffset = originMin + (start * periodMin);
+            signal.Color = ReportStyle.Ink;
+            signal.LineWidth = 1.5f;
+        }
     }
 
     private static void ShadeStretches(Plot plot, DayResult day)

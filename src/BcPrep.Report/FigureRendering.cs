@@ -4,7 +4,11 @@ using ScottPlot;
 namespace BcPrep.Report;
 
 /// <summary>A rendered figure: where it goes in the output folder, what it shows, its size in pixels and its PNG bytes.</summary>
-public sealed record ReportFigure(string RelativePath, string Caption, int WidthPx, int HeightPx, byte[] Png);
+public sealed record ReportFigure(string RelativePath, string Caption, int WidthPx, int HeightPx, byte[] Png)
+{
+    /// <summary>The data area as rendered, for figures whose data a test checks in the pixels; null for the others.</summary>
+    public PlotArea? Area { get; init; }
+}
 
 /// <summary>Turns a ScottPlot plot into PNG bytes with the report's fonts and invariant number formatting.</summary>
 internal static class FigureRendering
@@ -14,14 +18,18 @@ internal static class FigureRendering
     /// the culture is invariant while it renders (and restored after): a decimal comma must never reach a figure
     /// whose tables use points.
     /// </summary>
-    public static byte[] Png(Plot plot, int widthPx, int heightPx)
+    public static byte[] Png(Plot plot, int widthPx, int heightPx) => PngWithArea(plot, widthPx, heightPx).Png;
+
+    /// <summary>Renders like <see cref="Png"/> and also returns where the data area came to lie.</summary>
+    public static (byte[] Png, PlotArea Area) PngWithArea(Plot plot, int widthPx, int heightPx)
     {
         ReportFonts.Register();
         var previous = CultureInfo.CurrentCulture;
         try
         {
             CultureInfo.CurrentCulture = CultureInfo.InvariantCulture;
-            return plot.GetImageBytes(widthPx, heightPx, ImageFormat.Png);
+            var png = plot.GetImageBytes(widthPx, heightPx, ImageFormat.Png);
+            return (png, PlotArea.Of(plot));
         }
         finally
         {

@@ -49,6 +49,13 @@ internal sealed class PngImage
         return count;
     }
 
+    /// <summary>Luma (ITU-R BT.601 weights) of the pixel at column <paramref name="x"/>, row <paramref name="y"/>: 0 black, 255 white.</summary>
+    public double Luma(int x, int y)
+    {
+        var c = _pixels[(y * Width) + x];
+        return (0.299 * c.Red) + (0.587 * c.Green) + (0.114 * c.Blue);
+    }
+
     /// <summary>Pixels that differ between two images of the same size.</summary>
     public int DifferingPixels(PngImage other)
     {

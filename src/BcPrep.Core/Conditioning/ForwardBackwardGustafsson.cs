@@ -26,7 +26,7 @@ public static class ForwardBackwardGustafsson
         ArgumentNullException.ThrowIfNull(a);
         if (b.Count == 0 || a.Count == 0 || a[0] == 0.0)
         {
-            throw new BcPrepDataException("Filter coefficients must be non-empty with a[0] ≠ 0.");
+            throw new ArgumentException("Filter coefficients must be non-empty with a[0] ≠ 0.");
         }
         int m = Math.Max(a.Count, b.Count) - 1;
         var bn = new double[m + 1];

@@ -211,8 +211,8 @@ public static class GapBridging
     {
         if (timesS.Length != values.Length)
         {
-            throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture,
-                $"Time stamps ({timesS.Length}) and values ({values.Length}) must have the same length."));
+            throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
+                $"Time stamps ({timesS.Length}) and values ({values.Length}) must have the same length."), nameof(values));
         }
 
         if (timesS.Length < 2)

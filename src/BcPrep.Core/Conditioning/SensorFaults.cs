@@ -60,7 +60,8 @@ public static class SensorFaults
     /// Stuck (standard deviation of the finite samples ≤ StuckFractionOfResolution·Resolution, or exactly 0 when
     /// no resolution is given); Saturation (per rail: fraction of finite samples within RailTolerance of the rail ≥
     /// RailFractionThreshold and longest run ≥ RailMinimumRun). Rails default to the window max/min; this self-rail
-    /// test is skipped for a stuck window, which would otherwise be "at its own rail" everywhere.
+    /// test is skipped for a stuck window, which would otherwise be "at its own rail" everywhere, and it asks for a
+    /// pile-up (see <see cref="IsPileUp"/>), because the top level of any quantised signal holds many samples.
     /// An empty window or one without finite samples raises only NonFinite (if any samples).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
@@ -120,14 +121,23 @@ public static class SensorFaults
                 Format($"standard deviation {sd} over {finite} samples ≤ {limits.StuckFractionOfResolution} × resolution {limits.Resolution}; range {max - min}")));
         }
 
-        AddRailFlag(window, limits.RailHigh ?? (stuck ? double.NaN : max), "upper", limits, finite, flags);
-        AddRailFlag(window, limits.RailLow ?? (stuck ? double.NaN : min), "lower", limits, finite, flags);
+        AddRailFlag(window, limits.RailHigh ?? (stuck ? double.NaN : max), limits.RailHigh is not null, "upper", limits, finite, sd, flags);
+        AddRailFlag(window, limits.RailLow ?? (stuck ? double.NaN : min), limits.RailLow is not null, "lower", limits, finite, sd, flags);
         return new SensorFaultReport(n, flags);
     }
 
-    private static void AddRailFlag(ReadOnlySpan<double> window, double rail, string name, SensorFaultLimits limits, int finite, List<SensorFaultFlag> flags)
+    private static void AddRailFlag(ReadOnlySpan<double> window, double rail, bool declared, string name, SensorFaultLimits limits, int finite, double sd, List<SensorFaultFlag> flags)
     {
         if (double.IsNaN(rail))
+        {
+            return;
+        }
+
+        // At a declared rail the tolerance is the user's. At the window's own extreme only the extreme level itself
+        // counts (half the tolerance, which defaults to the resolution): with the whole resolution, the level just
+        // inside would join it, and on a quantised signal that is a large share of all samples.
+        double tolerance = declared ? limits.RailTolerance : 0.5 * limits.RailTolerance;
+        if (!declared && !IsPileUp(window, rail, tolerance, Math.Max(limits.Resolution, 0.25 * sd)))
         {
             return;
         }
@@ -135,7 +145,7 @@ public static class SensorFaults
         int count = 0, run = 0, longest = 0, first = -1;
         for (int i = 0; i < window.Length; i++)
         {
-            if (double.IsFinite(window[i]) && Math.Abs(window[i] - rail) <= limits.RailTolerance)
+            if (double.IsFinite(window[i]) && Math.Abs(window[i] - rail) <= tolerance)
             {
                 count++;
                 run++;
@@ -152,8 +162,33 @@ public static class SensorFaults
         if (fraction >= limits.RailFractionThreshold && longest >= limits.RailMinimumRun)
         {
             flags.Add(new SensorFaultFlag(SensorFaultKind.Saturation, count, fraction, first, rail,
-                Format($"{count} samples ({fraction:P1}) at the {name} rail {rail} ± {limits.RailTolerance}, longest run {longest}, first at index {first}")));
+                Format($"{count} samples ({fraction:P1}) at the {name} rail {rail} ± {tolerance}, longest run {longest}, first at index {first}")));
         }
+    }
+
+    /// <summary>
+    /// A clipped signal piles its samples up at the clip: more of them sit within <paramref name="tolerance"/> of the
+    /// extreme than in the band of width <paramref name="band"/> (the resolution, or a quarter standard deviation if
+    /// larger) just inside it. A clean signal, Gaussian or quantised, thins out towards its extreme instead, so its
+    /// top level holds fewer samples than the levels next to it. Our rule (common practice has none written down).
+    /// </summary>
+    private static bool IsPileUp(ReadOnlySpan<double> window, double rail, double tolerance, double band)
+    {
+        int atRail = 0, inside = 0;
+        for (int i = 0; i < window.Length; i++)
+        {
+            double distance = Math.Abs(window[i] - rail);
+            if (distance <= tolerance)
+            {
+                atRail++;
+            }
+            else if (distance <= tolerance + band)
+            {
+                inside++;
+            }
+        }
+
+        return atRail > inside;
     }
 
     private static double Distance(double v, SensorFaultLimits limits) =>

@@ -28,7 +28,7 @@ public sealed class StreamingConditioner
         ArgumentNullException.ThrowIfNull(settings);
         if (coreLength < 16)
         {
-            throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture, $"Chunk length {coreLength} must be at least 16 samples."));
+            throw new ArgumentOutOfRangeException(nameof(coreLength), coreLength, "A chunk holds at least 16 samples.");
         }
         _settings = settings;
         _coreLength = coreLength;
@@ -57,7 +57,7 @@ public sealed class StreamingConditioner
     {
         if (timesS.Length != values.Length)
         {
-            throw new BcPrepDataException("Times and values must have the same length.");
+            throw new ArgumentException("Times and values must have the same length.", nameof(values));
         }
         for (var i = 0; i < timesS.Length; i++)
         {

@@ -126,7 +126,7 @@ public static class ZeroPhaseFilter
         ArgumentNullException.ThrowIfNull(sections);
         if (sections.Count == 0)
         {
-            throw new BcPrepDataException("A filter needs at least one section.");
+            throw new ArgumentException("A filter needs at least one section.");
         }
 
         int pad = padLength ?? DefaultPadLength(sections);
@@ -218,7 +218,7 @@ public static class ZeroPhaseFilter
     {
         if (pad < 0)
         {
-            throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture, $"Pad length {pad} must not be negative."));
+            throw new ArgumentOutOfRangeException(nameof(pad), pad, "The pad length must not be negative.");
         }
 
         if (x.Length <= pad)
@@ -254,7 +254,7 @@ public static class ZeroPhaseFilter
         ArgumentNullException.ThrowIfNull(a);
         if (b.Count == 0 || a.Count == 0 || a[0] == 0.0)
         {
-            throw new BcPrepDataException("Filter coefficients must be non-empty with a[0] ≠ 0.");
+            throw new ArgumentException("Filter coefficients must be non-empty with a[0] ≠ 0.");
         }
 
         int len = Math.Max(a.Count, b.Count);

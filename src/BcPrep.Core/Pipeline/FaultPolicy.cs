@@ -44,7 +44,7 @@ public static class FaultPolicy
         var channel = rig.Channel(channelId);
         if (channel is null)
         {
-            return WindowStatistics.Evaluate(channelId, window, timesS, values, new ConditioningSettings(MaxBridgeS: rig.Conditioning.MaxBridgeS), new SensorFaultLimits(), dayStartS);
+            return WindowStatistics.Evaluate(channelId, window, timesS, values, new ConditioningSettings(MaxBridgeS: rig.Conditioning.MaxBridgeS, HampelHalfWindow: rig.Conditioning.HampelHalfWindow, HampelSigmas: rig.Conditioning.HampelSigmas), new SensorFaultLimits(), dayStartS);
         }
         var limits = ChannelConditioningPlan.Limits(channel);
         var stats = WindowStatistics.Evaluate(channelId, window, timesS, values, ChannelConditioningPlan.Settings(rig, channel), limits, dayStartS);

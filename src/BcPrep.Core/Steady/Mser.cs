@@ -10,12 +10,12 @@ public readonly record struct MserResult(int TruncationSamples, int TruncationBa
 public static class Mser
 {
     /// <summary>MSER(d) = Σ_{i&gt;d}(Y_i − Ȳ_d)² / (n − d)², Ȳ_d the mean of Y_{d+1..n} (0-based: samples d…n−1).</summary>
-    /// <exception cref="BcPrepDataException">d outside 0…n−1.</exception>
+    /// <exception cref="ArgumentOutOfRangeException">d outside 0…n−1 (a caller's mistake).</exception>
     public static double Statistic(ReadOnlySpan<double> y, int d)
     {
         if (d < 0 || d >= y.Length)
         {
-            throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture, $"MSER truncation {d} must lie in 0…{y.Length - 1}."));
+            throw new ArgumentOutOfRangeException(nameof(d), d, string.Create(CultureInfo.InvariantCulture, $"MSER truncation must lie in 0…{y.Length - 1}."));
         }
 
         var tail = y[d..];
@@ -40,12 +40,13 @@ public static class Mser
     /// (a trailing partial batch is dropped; batchSize 1 = MSER, 5 = MSER-5). O(n) by suffix sums about the overall
     /// mean. Ties go to the smallest d. Non-finite samples are not allowed.
     /// </summary>
-    /// <exception cref="BcPrepDataException">batchSize &lt; 1, fewer than 4 batches, or a non-finite sample.</exception>
+    /// <exception cref="ArgumentOutOfRangeException">batchSize &lt; 1.</exception>
+    /// <exception cref="BcPrepDataException">Fewer than 4 batches, or a non-finite sample.</exception>
     public static MserResult Truncate(ReadOnlySpan<double> y, int batchSize = 1)
     {
         if (batchSize < 1)
         {
-            throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture, $"MSER batch size {batchSize} must be at least 1."));
+            throw new ArgumentOutOfRangeException(nameof(batchSize), batchSize, "The MSER batch size must be at least 1.");
         }
 
         int m = y.Length / batchSize;

@@ -43,13 +43,23 @@ public sealed class SteadyScan
     public IReadOnlyList<SteadyWindow> Accepted => _accepted;
 
     /// <summary>Adds the next block mean of every key channel (same order as the constructor's channels).</summary>
-    /// <exception cref="BcPrepDataException">The time does not increase, or the scan is finished.</exception>
+    /// <exception cref="BcPrepDataException">The time does not increase.</exception>
+    /// <exception cref="InvalidOperationException">The scan is finished (a caller's mistake).</exception>
+    /// <exception cref="ArgumentException">The values do not match the key channels (a caller's mistake).</exception>
     public void Add(double timeS, ReadOnlySpan<double> values)
     {
-        if (_finished || values.Length != _channels.Count || !double.IsFinite(timeS) || (_count > 0 && timeS <= _t[_count - 1]))
+        if (_finished)
+        {
+            throw new InvalidOperationException("The scan is finished: no block mean can be added.");
+        }
+        if (values.Length != _channels.Count)
+        {
+            throw new ArgumentException(SteadyStateDetector.Format($"{values.Length} values do not match {_channels.Count} key channels."), nameof(values));
+        }
+        if (!double.IsFinite(timeS) || (_count > 0 && timeS <= _t[_count - 1]))
         {
             throw new BcPrepDataException(SteadyStateDetector.Format(
-                $"Time stamp {_count} ({timeS} s) is not finite or not after the previous one, or its {values.Length} values do not match {_channels.Count} key channels."));
+                $"Time stamp {_count} ({timeS} s) is not finite or not after the previous one."));
         }
 
         if (_count == _t.Length)

@@ -20,7 +20,8 @@ public static class SteadyStateDetector
     ///    value to limit) with each failed criterion, its value and limit.
     /// Time stamps must increase strictly; cost O(n·WindowS/StepS·channels).
     /// </summary>
-    /// <exception cref="BcPrepDataException">No channel, length mismatch, non-increasing time, or invalid settings/limits.</exception>
+    /// <exception cref="ArgumentException">No channel, or a channel whose values do not match the times (a caller's mistake).</exception>
+    /// <exception cref="BcPrepDataException">Non-increasing time, or invalid settings/limits.</exception>
     public static SteadyDetectionResult Detect(IReadOnlyList<double> timesS, IReadOnlyList<KeyChannel> channels, SteadySettings settings)
     {
         ArgumentNullException.ThrowIfNull(timesS);
@@ -223,7 +224,7 @@ public static class SteadyStateDetector
         if (duration < settings.MinStretchS)
         {
             rejected.Add(new RejectedStretch(t[start], t[end], t[start], t[end],
-                Format($"{SteadyCriterion.Duration}: steady for {duration} s, shorter than the minimum {settings.MinStretchS} s"), []));
+                Format($"{ChoiceSpelling.Name(SteadyCriterion.Duration)}: steady for {duration} s, shorter than the minimum {settings.MinStretchS} s"), []));
             return;
         }
 
@@ -282,7 +283,7 @@ public static class SteadyStateDetector
         {
             var missing = settings.RequiredMethods & ~passed;
             rejected.Add(new RejectedStretch(t[start], t[end], t[tailStart], t[end],
-                Format($"required method(s) {missing} failed on the averaging window"), criteria));
+                Format($"required method(s) {ChoiceSpelling.Names(missing)} failed on the averaging window"), criteria));
         }
     }
 
@@ -335,7 +336,7 @@ public static class SteadyStateDetector
         {
             if (c.Values.Count != timesS.Count)
             {
-                throw new BcPrepDataException(Format($"Channel '{c.Name}' has {c.Values.Count} values for {timesS.Count} time stamps."));
+                throw new ArgumentException(Format($"Channel '{c.Name}' has {c.Values.Count} values for {timesS.Count} time stamps."), nameof(channels));
             }
         }
     }
@@ -345,7 +346,7 @@ public static class SteadyStateDetector
     {
         if (channels.Count == 0)
         {
-            throw new BcPrepDataException("Steady-state detection needs at least one key channel.");
+            throw new ArgumentException("Steady-state detection needs at least one key channel.", nameof(channels));
         }
 
         foreach (var c in channels)

@@ -51,7 +51,7 @@ public sealed class CorrelationMatrix
     {
         if (size < 1)
         {
-            throw new BcPrepDataException($"Correlation matrix size {size} must be ≥ 1.");
+            throw new ArgumentOutOfRangeException(nameof(size), size, "A correlation matrix has at least one row.");
         }
 
         var r = new double[size, size];
@@ -156,8 +156,8 @@ public sealed class CorrelationMatrix
         ArgumentNullException.ThrowIfNull(standardUncertainties);
         if (standardUncertainties.Count != Size)
         {
-            throw new BcPrepDataException(
-                $"Correlation matrix has size {Size} but {standardUncertainties.Count} uncertainties were given.");
+            throw new ArgumentException(
+                $"Correlation matrix has size {Size} but {standardUncertainties.Count} uncertainties were given.", nameof(standardUncertainties));
         }
 
         var cov = new double[Size, Size];

@@ -31,22 +31,22 @@ public static class GumPropagation
         ArgumentNullException.ThrowIfNull(outputNames);
         if (inputs.Count == 0)
         {
-            throw new BcPrepDataException("Uncertainty propagation needs at least one input.");
+            throw new ArgumentException("Uncertainty propagation needs at least one input.", nameof(inputs));
         }
 
         correlation ??= CorrelationMatrix.Identity(inputs.Count);
         if (correlation.Size != inputs.Count)
         {
-            throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture,
-                $"Correlation matrix has size {correlation.Size} but there are {inputs.Count} inputs."));
+            throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
+                $"Correlation matrix has size {correlation.Size} but there are {inputs.Count} inputs."), nameof(correlation));
         }
 
         var u = inputs.Select(i => i.StandardUncertainty).ToArray();
         var jacobian = NumericalJacobian.Evaluate(model, inputs.Select(i => i.Estimate).ToArray(), u, out var y);
         if (y.Length != outputNames.Count)
         {
-            throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture,
-                $"Model returned {y.Length} outputs but {outputNames.Count} output names were given."));
+            throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
+                $"Model returned {y.Length} outputs but {outputNames.Count} output names were given."), nameof(outputNames));
         }
 
         var covariance = Sandwich(jacobian, correlation.ToCovariance(u));

@@ -121,8 +121,8 @@ public static class MonteCarloPropagation
 
         if (correlation is not null && correlation.Size != inputs.Count)
         {
-            throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture,
-                $"Correlation matrix has size {correlation.Size} but there are {inputs.Count} inputs."));
+            throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
+                $"Correlation matrix has size {correlation.Size} but there are {inputs.Count} inputs."), nameof(correlation));
         }
 
         if (!(options.CoverageProbability > 0.0 && options.CoverageProbability < 1.0))
@@ -152,7 +152,7 @@ public static class MonteCarloPropagation
             var y = model(x);
             if (y is null || y.Length != outputCount)
             {
-                throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture,
+                throw new InvalidOperationException(string.Create(CultureInfo.InvariantCulture,
                     $"Model returned {y?.Length ?? 0} outputs in trial {firstTrial + t}, expected {outputCount}."));
             }
 

@@ -67,7 +67,7 @@ public static class NumericalJacobian
             x[j] = xj;
             if (plus.Length != m || minus.Length != m)
             {
-                throw new BcPrepDataException("Measurement model changed its number of outputs between evaluations.");
+                throw new InvalidOperationException("Measurement model changed its number of outputs between evaluations.");
             }
 
             for (var i = 0; i < m; i++)
@@ -84,7 +84,7 @@ public static class NumericalJacobian
         var y = model((double[])x.Clone());
         if (y is null || y.Length == 0)
         {
-            throw new BcPrepDataException("Measurement model returned no outputs.");
+            throw new InvalidOperationException("Measurement model returned no outputs.");
         }
 
         for (var i = 0; i < y.Length; i++)

@@ -43,7 +43,7 @@ public sealed record OutputCovariance(IReadOnlyList<string> Names, double[,] Cov
 
     /// <summary>
     /// Takes the rows and columns of the outputs whose name passes <paramref name="include"/>, in output order.
-    /// An empty selection gives an empty matrix. Throws <see cref="BcPrepDataException"/> when the result's
+    /// An empty selection gives an empty matrix. Throws <see cref="ArgumentException"/> (a caller's mistake) when the result's
     /// covariance is not square in its output count.
     /// </summary>
     public static OutputCovariance Select(GumResult result, Func<string, bool> include)
@@ -53,7 +53,7 @@ public sealed record OutputCovariance(IReadOnlyList<string> Names, double[,] Cov
         var m = result.Outputs.Count;
         if (result.OutputCovariance.GetLength(0) != m || result.OutputCovariance.GetLength(1) != m)
         {
-            throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture,
+            throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
                 $"Output covariance is {result.OutputCovariance.GetLength(0)} × {result.OutputCovariance.GetLength(1)} but there are {m} outputs."));
         }
 

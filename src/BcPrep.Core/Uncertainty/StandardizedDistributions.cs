@@ -21,7 +21,7 @@ internal static class StandardizedDistributions
             ? TriangularHalfWidth * (Math.Sqrt(2.0 * p) - 1.0)
             : TriangularHalfWidth * (1.0 - Math.Sqrt(2.0 * (1.0 - p))),
         DistributionKind.ArcSine => ArcSineHalfWidth * Math.Sin(Math.PI * (p - 0.5)),
-        _ => throw new BcPrepDataException($"Unknown distribution kind {kind}."),
+        _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "Unknown distribution kind."),
     };
 
     /// <summary>One draw of a non-normal shape (normal draws come from <see cref="GaussianSource"/>).</summary>
@@ -31,6 +31,6 @@ internal static class StandardizedDistributions
         // The sum of two independent uniforms on [0, 1) is triangular on [0, 2).
         DistributionKind.Triangular => TriangularHalfWidth * (random.NextDouble() + random.NextDouble() - 1.0),
         DistributionKind.ArcSine => ArcSineHalfWidth * Math.Sin(Math.PI * (random.NextDouble() - 0.5)),
-        _ => throw new BcPrepDataException($"Distribution kind {kind} is not drawn here."),
+        _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "This distribution kind is not drawn here."),
     };
 }

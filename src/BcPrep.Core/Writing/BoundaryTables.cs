@@ -59,7 +59,7 @@ public static class BoundaryTables
             "r [m]", "axial_velocity [m/s]", "u(axial_velocity) [m/s]", "temperature [K]", "u(temperature) [K]",
             "k [m2/s2]", "u(k) [m2/s2]", "epsilon [m2/s3]", "u(epsilon) [m2/s3]", "omega [1/s]", "u(omega) [1/s]",
         ])
-            .Comment($"BcPrep inlet profile; point {point.Id}; velocity model {velocity.ModelUsed}; profile integrates to the measured mass flow (raw grid error {velocity.RawDiscretisationRelativeError.ToString("E2", CultureInfo.InvariantCulture)})")
+            .Comment($"BcPrep inlet profile; point {point.Id}; velocity model {ChoiceSpelling.Name(velocity.ModelUsed)}; profile integrates to the measured mass flow (raw grid error {velocity.RawDiscretisationRelativeError.ToString("E2", CultureInfo.InvariantCulture)})")
             .Comment(rake is null
                 ? "temperature uniform: the inlet bulk temperature"
                 : "temperature interpolated linearly from the radial rake, nearest rake value held beyond its ends" + (rake.ClampedPointCount > 0 ? $" ({rake.ClampedPointCount} points)" : ""))
@@ -122,10 +122,14 @@ public static class BoundaryTables
         return table;
     }
 
-    /// <summary>The uncertainty budget: every input's contribution to every scalar output (or to those <paramref name="quantity"/> accepts).</summary>
+    /// <summary>
+    /// The uncertainty budget: every input's contribution to every scalar output (or to those <paramref name="quantity"/> accepts).
+    /// Each input carries its degrees of freedom (JCGM 100 7.2.7; empty = infinite, an exactly known u), so that a reader
+    /// can recompute ν_eff = u_c⁴ / Σ (c·u)⁴/ν (Welch–Satterthwaite, G.2b) from this table and the scalars' u_c.
+    /// </summary>
     public static CsvTable Budget(PointResult point, bool includeProfile = false, Func<string, bool>? quantity = null)
     {
-        var table = new CsvTable(["point", "quantity", "unit", "input", "type", "input_estimate", "input_standard_uncertainty", "sensitivity", "contribution", "variance_share", "source"]);
+        var table = new CsvTable(["point", "quantity", "unit", "input", "type", "input_estimate", "input_standard_uncertainty", "input_degrees_of_freedom", "sensitivity", "contribution", "variance_share", "source"]);
         for (var i = 0; i < point.Model.Outputs.Count; i++)
         {
             var definition = point.Model.Outputs[i];
@@ -136,7 +140,7 @@ public static class BoundaryTables
             foreach (var line in point.Gum.Outputs[i].Budget.Where(b => b.SensitivityCoefficient != 0 && b.StandardUncertainty > 0))
             {
                 table.Add(point.Id, definition.Name, definition.Unit, line.InputName, line.Evaluation == EvaluationType.TypeA ? "A" : "B",
-                    line.Estimate, line.StandardUncertainty, line.SensitivityCoefficient, line.Contribution, line.VarianceShare, line.Source);
+                    line.Estimate, line.StandardUncertainty, Dof(line.DegreesOfFreedom), line.SensitivityCoefficient, line.Contribution, line.VarianceShare, line.Source);
             }
         }
         return table;

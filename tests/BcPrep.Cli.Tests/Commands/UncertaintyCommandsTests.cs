@@ -17,12 +17,52 @@ public class UncertaintyCommandsTests
 
         Assert.True(code == 0, error);
         var rows = DataRows(output);
-        Assert.Equal("point,quantity,unit,input,type,input_estimate,input_standard_uncertainty,sensitivity,contribution,variance_share,source", Lines(output)[0]);
+        Assert.Equal("point,quantity,unit,input,type,input_estimate,input_standard_uncertainty,input_degrees_of_freedom,sensitivity,contribution,variance_share,source", Lines(output)[0]);
         Assert.All(rows, r => Assert.Equal(["OP1", "inlet.temperature"], r.Take(2)));
         Assert.Contains(rows, r => r[3] == "t_in: IEC 60584-1 class 1");
         Assert.Contains(rows, r => r[3] == "t_cj: IEC 60751 class A");
-        Assert.Equal(1.0, rows.Sum(r => Number(r[9])), 1e-9); // independent inputs: shares sum to 1
+        Assert.Equal(1.0, rows.Sum(r => Number(r[10])), 1e-9); // independent inputs: shares sum to 1
         Assert.Equal("", error);
+    }
+
+    [Fact]
+    public void Welch_Satterthwaite_degrees_of_freedom_are_reproduced_from_budget_and_scalars_files()
+    {
+        // JCGM 100 7.2.7 asks for each input's degrees of freedom so that the effective ν can be recomputed:
+        // ν_eff = u_c⁴ / Σ (cᵢ·u(xᵢ))⁴ / νᵢ (JCGM 100 G.4.1, eq. G.2b), truncated down (G.6.4). Empty ν = infinite.
+        // The point model's inputs are independent (README), so the plain G.2b formula applies.
+        using var temp = new Support.TempFolder();
+        var outDir = temp.File("out");
+        Assert.Equal(0, Support.CliRunner.Run(Support.SampleDay.ProcessArgs(outDir)).ExitCode);
+        var checkedCount = 0;
+        foreach (var point in new[] { "OP1", "OP2", "OP3" })
+        {
+            var folder = Path.Combine(outDir, "points", point);
+            var budgetText = File.ReadAllText(Path.Combine(folder, "budget.csv"));
+            var header = Lines(budgetText).First(l => !l.StartsWith('#')).Split(',');
+            var quantityColumn = Array.IndexOf(header, "quantity");
+            var nuColumn = Array.IndexOf(header, "input_degrees_of_freedom");
+            var contributionColumn = Array.IndexOf(header, "contribution");
+            var budget = DataRows(budgetText);
+            foreach (var scalar in DataRows(File.ReadAllText(Path.Combine(folder, "scalars.csv"))))
+            {
+                var (name, uc, written) = (scalar[0], Number(scalar[3]), scalar[6]);
+                var denominator = budget.Where(r => r[quantityColumn] == name && r[nuColumn] != "")
+                    .Sum(r => Math.Pow(Number(r[contributionColumn]), 4) / Number(r[nuColumn]));
+                if (written == "")
+                {
+                    Assert.True(denominator == 0.0, $"{point} {name}: infinite ν written, but finite-ν inputs contribute");
+                    continue;
+                }
+
+                var nuEff = Math.Pow(uc, 4) / denominator;
+                var nu = Number(written);
+                Assert.True(nu <= nuEff * (1 + 1e-9) && nuEff < (nu + 1) * (1 + 1e-9), $"{point} {name}: written ν {nu}, recomputed ν_eff {nuEff}");
+                checkedCount++;
+            }
+        }
+
+        Assert.True(checkedCount >= 30, $"only {checkedCount} finite-ν scalars checked");
     }
 
     [Fact]
@@ -55,7 +95,7 @@ public class UncertaintyCommandsTests
         Assert.True(Number(pairs[("inlet.static_pressure", "outlet.static_pressure")].Correlation) > 0.7);
         Assert.Equal("Pa*K", DataRows(longText).First(r => r[1] == "inlet.static_pressure" && r[2] == "inlet.temperature")[3]);
 
-        (code, var matrixText, error) = Run(["covariance", Rig, .. Logs, "--point", "OP2", "--matrix", "--correlation"]);
+        (code, var matrixText, error) = Run(["covariance", Rig, .. Logs, "--point", "OP2", "--square", "--correlation"]);
         Assert.True(code == 0, error);
         var header = Lines(matrixText).First(l => !l.StartsWith('#')).Split(',');
         var matrix = DataRows(matrixText);

@@ -55,6 +55,12 @@ public class GapBridgingTests
     public void Non_increasing_time_is_refused()
     {
         Assert.Throws<BcPrepDataException>(() => GapBridging.Bridge([0, 1, 1], [1, 2, 3], 1));
-        Assert.Throws<BcPrepDataException>(() => GapBridging.Bridge([0, 1], [1, 2, 3], 1));
+    }
+
+    [Fact]
+    public void Mismatched_lengths_are_a_callers_mistake_not_bad_data()
+    {
+        // Times and values come from the same rows: a length mismatch is a bug, so it must not read as exit 3.
+        Assert.Throws<ArgumentException>(() => GapBridging.Bridge([0, 1], [1, 2, 3], 1));
     }
 }

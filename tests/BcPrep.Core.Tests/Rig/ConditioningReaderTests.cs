@@ -22,7 +22,7 @@ public class ConditioningReaderTests
         Assert.Equal(ConditioningSpec.Default, rig.Conditioning);
         Assert.Equal(2.0, rig.Conditioning.MaxBridgeS);
         Assert.Equal(10, rig.Conditioning.HampelHalfWindow);
-        Assert.Equal(4.0, rig.Conditioning.HampelSigmas);
+        Assert.Equal(6.0, rig.Conditioning.HampelSigmas);
         Assert.Null(rig.Conditioning.LowPassCutoffHz);
         Assert.Null(rig.Conditioning.MainsHz);
         Assert.Equal(ChannelLimits.None, rig.Channel("p_in")!.Limits);

@@ -116,6 +116,6 @@ public class SteadyStateDetectorTests
     public void Mismatched_lengths_are_refused()
     {
         var channel = new KeyChannel("T", [1.0, 2.0], 1, 1, 1);
-        Assert.Throws<BcPrepDataException>(() => SteadyStateDetector.Detect([0.0, 1.0, 2.0], [channel], new SteadySettings()));
+        Assert.Throws<ArgumentException>(() => SteadyStateDetector.Detect([0.0, 1.0, 2.0], [channel], new SteadySettings()));
     }
 }

@@ -39,6 +39,19 @@ public class GumPropagationTests
         Assert.Equal(2.0, y.Budget[1].SensitivityCoefficient, 1e-9);
     }
 
+    [Fact]
+    public void Type_B_dominated_budget_with_huge_welch_satterthwaite_dof_gets_the_normal_k()
+    {
+        // A Type B term (ν = ∞) of u = 1 and a Type A term of u = 1e-4 with ν = 9: ν_eff = u_c⁴ / (1e-16 / 9) ≈ 9e16
+        // (GUM G.2b), where the library's t inverse gave k ≈ 1.7 to 2.8. GUM Table G.2 / G.3: k → 1.960 as ν → ∞
+        // (1.9599639845400539, mpmath 1.3 [CC]).
+        UncertaintyInput[] inputs = [new("b", 1.0, 1.0), new("a", 0.0, 1e-4, 9.0, evaluation: EvaluationType.TypeA)];
+        var y = GumPropagation.Propagate(x => x[0] + x[1], inputs, "y", CorrelationMatrix.Identity(2));
+        Assert.True(y.DegreesOfFreedom > 1e16, $"ν_eff = {y.DegreesOfFreedom}");
+        Assert.Equal(1.9599639845400539, y.CoverageFactor, 1e-12);
+        Assert.Equal(1.9599639845400539 * y.StandardUncertainty, y.ExpandedUncertainty, 1e-12);
+    }
+
     /// <summary>GUM H.2 raw data (five simultaneous sets; reference sheet 3.2(a)), SI units (A, not mA).</summary>
     private static SimultaneousMeans H2Means() => SimultaneousMeans.FromSets(
     [
@@ -148,7 +161,7 @@ public class GumPropagationTests
     [Fact]
     public void Output_names_must_match_output_count()
     {
-        Assert.Throws<BcPrepDataException>(() => GumPropagation.Propagate(x => [x[0], x[0]], TwoUnitInputs, ["only one"]));
+        Assert.Throws<ArgumentException>(() => GumPropagation.Propagate(x => [x[0], x[0]], TwoUnitInputs, ["only one"]));
     }
 
     [Fact]
