@@ -111,6 +111,10 @@ public sealed partial class PointModel
                 inputs.AddTerm(Add(new UncertaintyInput($"{channel.Id}: {term.Source}", 0.0, u, term.DegreesOfFreedom,
                     TypeBTerms.Distribution(term), EvaluationType.TypeB, term.Source)), 1.0);
             }
+            if (channel.Sensor is ThermocoupleSensor thermocouple)
+            {
+                AddInverseCorrection(inputs, channel.Id, thermocouple, stats);
+            }
             if (channel.Sensor is TableSensor table)
             {
                 var fit = ChannelConversion.Fit(table);
@@ -121,6 +125,24 @@ public sealed partial class PointModel
             _channels[channel.Id] = inputs;
         }
         CoupleColdJunctions(rig, window);
+    }
+
+    /// <summary>
+    /// Thermocouples are inverted exactly by default: the samples go through the NIST inverse polynomial (fast,
+    /// vectorised), and the window mean is moved onto the exact inverse of the reference function
+    /// (<see cref="InversePolynomialCorrection"/>). The correction is an input of its own, so the budget shows it.
+    /// </summary>
+    private void AddInverseCorrection(ChannelInputs inputs, string channelId, ThermocoupleSensor thermocouple, ChannelWindowStats stats)
+    {
+        if (!double.IsFinite(stats.TypeA.Mean))
+        {
+            return;
+        }
+        var type = ChannelConversion.ThermocoupleTypeOf(thermocouple);
+        var fix = InversePolynomialCorrection.ForWindow(type, stats.TypeA.Mean, stats.StandardDeviation);
+        inputs.AddTerm(Add(new UncertaintyInput($"{channelId}: ITS-90 inverse polynomial correction", fix.CorrectionK,
+            TypeB.FromRectangularHalfWidth(fix.RemainderHalfWidthK), double.PositiveInfinity, DistributionKind.Rectangular, EvaluationType.TypeB,
+            "exact inverse of the NIST ITS-90 reference function at the window mean, less the inverse polynomial's value")), 1.0);
     }
 
     /// <summary>A cold-junction sensor's error enters each thermocouple scaled by S(T_cj)/S(T_hot) (emf addition).</summary>
