@@ -11,19 +11,21 @@ public static class BudgetCommand
     {
         var rig = RigArguments.Rig();
         var logs = RigArguments.Logs();
+        var reduction = ReductionOptions.WithoutMonteCarlo();
         var point = PointSelection.Option();
-        var quantity = new Option<string?>("--quantity") { Description = "Only this quantity (e.g. inlet.temperature, or a profile point inlet.velocity.3)." };
+        var quantity = new Option<string?>("--quantity") { Description = "Only this quantity (e.g. inlet.temperature, or a profile point inlet.velocity.3).", HelpName = "NAME" };
         var command = new Command("budget", "Write every input's sensitivity, contribution and share of variance in each quantity as CSV to standard output.\n" +
                                             "Example: bcprep budget sample-logs/marten-rig.toml sample-logs/*.csv --point OP1 --quantity inlet.temperature")
         {
             rig, logs, point, quantity,
         };
+        reduction.AddTo(command);
         command.SetAction(parse =>
         {
             var description = RigArguments.LoadRig(parse.GetValue(rig)!);
             using var inputs = new LogArguments(parse.GetValue(logs)!, context);
             common.DiagnosticsFor(parse, context).Detail($"reading {inputs.Inputs.Count} log file(s)");
-            var day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions());
+            var day = DayProcessor.Process(description, inputs.Inputs, reduction.Read(parse, description));
             var points = PointSelection.Select(day, parse.GetValue(point));
             var only = parse.GetValue(quantity);
             if (only is not null && !points.Any(p => p.OutputIndex(only) >= 0))

@@ -13,32 +13,31 @@ public static class ProcessCommand
     {
         var rig = RigArguments.Rig();
         var logs = RigArguments.Logs();
-        var output = new Option<string>("--out", "-o") { Description = "Output folder (created if needed).", Required = true };
+        var output = new Option<string>("--out", "-o") { Description = "Output folder (created if needed).", Required = true, HelpName = "DIR" };
         var force = new Option<bool>("--force") { Description = "Recompute even when inputs, rig file and tool version match the existing manifest." };
-        var monteCarlo = new Option<bool>("--monte-carlo") { Description = "Also propagate by Monte Carlo (JCGM 101) and flag where it disagrees with GUM." };
-        var seed = new Option<int>("--seed") { Description = "Seed of the Monte Carlo trials.", DefaultValueFactory = _ => 1 };
-        var allowExpired = LabOptions.AllowExpired();
-        var matrix = LabOptions.Matrix();
+        var reduction = ReductionOptions.WithMonteCarlo();
         var report = ReportOption.Create();
         var command = new Command("process", "Reduce a test day to boundary conditions with uncertainties, one folder per operating point.\n" +
                                              "Example: bcprep process sample-logs/marten-rig.toml sample-logs/marten-2026-11-24-*.csv --out out")
         {
-            rig, logs, output, force, monteCarlo, seed, allowExpired, matrix, report,
+            rig, logs, output, force,
         };
+        reduction.AddTo(command);
+        command.Options.Add(report);
         command.SetAction(parse =>
         {
             var diagnostics = common.DiagnosticsFor(parse, context);
             var description = RigArguments.LoadRig(parse.GetValue(rig)!);
             using var inputs = new LogArguments(parse.GetValue(logs)!, context);
             var outDir = parse.GetValue(output)!;
-            var plan = parse.GetValue(matrix) is { } path ? LabOptions.LoadMatrix(path, description) : null;
-            var allowed = parse.GetValue(allowExpired) ?? [];
+            var options = reduction.Read(parse, description);
+            // The folder is claimed (checked, locked) before any work, and held until the result is swapped in.
+            using var folder = ResultFolder.Claim(outDir,
+                [parse.GetValue(rig)!, .. parse.GetValue(logs)!.Where(l => l != "-"), .. reduction.MatrixPath(parse) is { } m ? new[] { m } : []],
+                CommitHook.FromEnvironment(context));
             var rigFingerprint = LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!);
-            RunProvenance Provenance(IReadOnlyList<InputFingerprint> logFingerprints) => new(BcPrepApp.Version, rigFingerprint, logFingerprints)
-            {
-                Choices = allowed.Select(a => "allow-expired=" + a).Concat(ReportOption.Choices(parse.GetValue(report))).ToList(),
-                Matrix = parse.GetValue(matrix) is { } matrixPath ? LogArguments.Fingerprint(matrixPath, matrixPath) : null,
-            };
+            RunProvenance Provenance(IReadOnlyList<InputFingerprint> logFingerprints) =>
+                reduction.Record(new(BcPrepApp.Version, rigFingerprint, logFingerprints), parse, ReportOption.Choices(parse.GetValue(report)));
             var facePoints = FacePoints.Read(description, parse.GetValue(rig)!);
             // The face points file is not among the hashed inputs, so a configured face always recomputes.
             var mayBeUpToDate = !parse.GetValue(force) && facePoints is null && ExistingOutputs.MayBeUpToDate(outDir, inputs.Sizes());
@@ -50,7 +49,7 @@ public static class ProcessCommand
             {
                 OutputFileSet.RemoveStalePartials(outDir, ExistingOutputs.ListedFiles(outDir));
                 diagnostics.Info($"{outDir}: up to date (inputs, rig file and tool version unchanged); nothing to do. Use --force to recompute.");
-                return ExitCodes.Success;
+                return ExistingOutputs.HasFailedPoints(outDir) ? ExitCodes.SomePointsFailed : ExitCodes.Success;
             }
             diagnostics.Detail($"reading {inputs.Inputs.Count} log file(s)");
             OutputFileSet files;
@@ -58,17 +57,10 @@ public static class ProcessCommand
             var reading = new ReadProgress(inputs.Sizes().Sum());
             using (ProgressIndicator.Start(context, diagnostics.Verbosity, "processing", reading.TotalBytes, reading))
             {
-                day = DayProcessor.Process(description, inputs.Inputs, new ProcessOptions(MonteCarlo: parse.GetValue(monteCarlo), Seed: parse.GetValue(seed))
-                {
-                    AllowExpired = allowed,
-                    Matrix = plan,
-                    Progress = reading,
-                });
+                day = DayProcessor.Process(description, inputs.Inputs, options with { Progress = reading });
                 var provenance = Provenance(hashing.GetAwaiter().GetResult());
                 files = DayOutputs.Build(day, provenance, facePoints, ReportOption.Files(parse.GetValue(report), day, diagnostics));
-                var superseded = ReportOption.Superseded(outDir, files.Files.Select(f => f.RelativePath));
-                files.Commit(outDir);
-                ReportOption.RemoveSuperseded(outDir, superseded);
+                folder.Commit(files);
             }
             foreach (var warning in day.Warnings.Concat(day.Calibration?.Warnings ?? []).Concat(day.Matrix?.Warnings ?? []))
             {
@@ -81,8 +73,12 @@ public static class ProcessCommand
                     diagnostics.Warning($"{point.Id}: {warning}");
                 }
             }
+            foreach (var failed in day.FailedPoints)
+            {
+                diagnostics.Warning($"{failed.Id}: point failed and was not written: {failed.Reason}");
+            }
             diagnostics.Detail(string.Create(CultureInfo.InvariantCulture, $"wrote {day.Points.Count} operating point(s), {files.Files.Count} files, to {outDir}"));
-            return ExitCodes.Success;
+            return day.FailedPoints.Count > 0 ? ExitCodes.SomePointsFailed : ExitCodes.Success;
         });
         return command;
     }

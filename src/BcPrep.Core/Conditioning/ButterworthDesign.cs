@@ -31,7 +31,7 @@ public static class ButterworthDesign
             gainProduct *= -s / (1.0 - s); // (1 − p)/2 without the cancellation of 1 − p near z = 1
         }
 
-        double[] a = Polynomial.FromRoots(poles);
+        double[] a = FilterPolynomial.FromRoots(poles);
         double[] b = Binomial(order);
         double gain = gainProduct.Real;
         for (int i = 0; i < b.Length; i++)

@@ -12,7 +12,7 @@ public static class ChannelConditioner
     /// low-pass run zero-phase on each gap-free segment separately (NaN cells and unbridged time jumps cut segments),
     /// because filtering across a gap would smear invented values. Sample rate = 1 / nominal interval.
     /// The mains notch is skipped when the mains frequency is not below Nyquist (NotchFrequenciesHz stays empty).
-    /// Edges: Gustafsson's initial states (<see cref="GustafssonFiltFilt"/>), applied to one second-order section at a
+    /// Edges: Gustafsson's initial states (<see cref="ForwardBackwardGustafsson"/>), applied to one second-order section at a
     /// time. A cascade of zero-phase sections is zero-phase with gain ∏|Hᵢ|², the gain of forward–backward over the
     /// whole cascade, and each biquad stays well conditioned where the expanded transfer function of a low cutoff
     /// would not. Segments not longer than the scipy default pad are set to NaN and counted in the report.
@@ -61,7 +61,7 @@ public static class ChannelConditioner
         {
             double[] b = section.IsFirstOrder ? [section.B0, section.B1] : [section.B0, section.B1, section.B2];
             double[] a = section.IsFirstOrder ? [1.0, section.A1] : [1.0, section.A1, section.A2];
-            GustafssonFiltFilt.Apply(b, a, x).CopyTo(x);
+            ForwardBackwardGustafsson.Apply(b, a, x).CopyTo(x);
         }
     }
 

@@ -14,8 +14,8 @@ public sealed record IirFilter(IReadOnlyList<SecondOrderSection> Sections, IRead
         double[] a = [1.0];
         foreach (var s in sections)
         {
-            b = Polynomial.Multiply(b, s.IsFirstOrder ? [s.B0, s.B1] : [s.B0, s.B1, s.B2]);
-            a = Polynomial.Multiply(a, s.IsFirstOrder ? [1.0, s.A1] : [1.0, s.A1, s.A2]);
+            b = FilterPolynomial.Multiply(b, s.IsFirstOrder ? [s.B0, s.B1] : [s.B0, s.B1, s.B2]);
+            a = FilterPolynomial.Multiply(a, s.IsFirstOrder ? [1.0, s.A1] : [1.0, s.A1, s.A2]);
         }
 
         return new IirFilter(sections, b, a);

@@ -68,6 +68,6 @@ public static class MainsNotch
     public static double[] Apply(ReadOnlySpan<double> x, double mainsHz, double qualityFactor, int harmonicCount, double sampleRateHz)
     {
         var filter = WithHarmonics(mainsHz, qualityFactor, harmonicCount, sampleRateHz);
-        return ZeroPhaseFilter.FiltFilt(filter.Sections, x, ZeroPhaseFilter.SettlingPadLength(filter.Sections));
+        return ZeroPhaseFilter.ForwardBackwardPadded(filter.Sections, x, ZeroPhaseFilter.SettlingPadLength(filter.Sections));
     }
 }

@@ -4,11 +4,11 @@ namespace BcPrep.Conditioning;
 
 /// <summary>
 /// Zero-phase forward–backward filtering with odd-extension padding and steady-state initial conditions
-/// (the 'pad' method of scipy.signal.filtfilt / sosfiltfilt). The result has magnitude |H|², zero phase and twice
+/// (the padded method; reference values in the tests come from an independent implementation of the same method). The result has magnitude |H|², zero phase and twice
 /// the order; a single-pass −3 dB cutoff becomes −6 dB.
-/// Gustafsson (1996) initial conditions are in <see cref="GustafssonFiltFilt"/> (transfer-function form, O(n·m)
+/// Gustafsson (1996) initial conditions are in <see cref="ForwardBackwardGustafsson"/> (transfer-function form, O(n·m)
 /// memory). The conditioning chain keeps 'pad' on second-order sections: it is well defined for any order and
-/// cutoff, matches the widely used reference output sample for sample, and its edge error is bounded by the
+/// cutoff, matches independent reference output sample for sample, and its edge error is bounded by the
 /// padding; filter the whole record before cutting windows so that edges stay out of operating-point windows.
 /// </summary>
 public static class ZeroPhaseFilter
@@ -94,12 +94,12 @@ public static class ZeroPhaseFilter
     }
 
     /// <summary>
-    /// Forward–backward filtering with the transfer function b, a (scipy filtfilt, method 'pad', padtype 'odd').
+    /// Forward–backward filtering with the transfer function b, a, padded by odd extension at both ends.
     /// <paramref name="padLength"/> defaults to 3·max(len a, len b). Prefer the section overload for general use:
     /// the expanded form loses precision at high order or low f_c/f_s.
     /// </summary>
     /// <exception cref="BcPrepDataException">Series not longer than the pad length, or containing NaN/∞.</exception>
-    public static double[] FiltFilt(IReadOnlyList<double> b, IReadOnlyList<double> a, ReadOnlySpan<double> x, int? padLength = null)
+    public static double[] ForwardBackwardPadded(IReadOnlyList<double> b, IReadOnlyList<double> a, ReadOnlySpan<double> x, int? padLength = null)
     {
         var (bn, an) = Normalise(b, a);
         int pad = padLength ?? DefaultPadLength(b, a);
@@ -115,13 +115,13 @@ public static class ZeroPhaseFilter
     }
 
     /// <summary>
-    /// Forward–backward filtering through cascaded second-order sections (scipy sosfiltfilt, 'pad', odd extension).
+    /// Forward–backward filtering through cascaded second-order sections, padded by odd extension at both ends.
     /// Each section starts from its unit-step steady state scaled by the DC gain of the sections before it and by
     /// the first sample of the extended series (scipy sosfilt_zi). <paramref name="padLength"/> defaults to
     /// <see cref="DefaultPadLength(IReadOnlyList{SecondOrderSection})"/>. Runs in place on one padded copy: O(n·sections).
     /// </summary>
     /// <exception cref="BcPrepDataException">Series not longer than the pad length, or containing NaN/∞.</exception>
-    public static double[] FiltFilt(IReadOnlyList<SecondOrderSection> sections, ReadOnlySpan<double> x, int? padLength = null)
+    public static double[] ForwardBackwardPadded(IReadOnlyList<SecondOrderSection> sections, ReadOnlySpan<double> x, int? padLength = null)
     {
         ArgumentNullException.ThrowIfNull(sections);
         if (sections.Count == 0)

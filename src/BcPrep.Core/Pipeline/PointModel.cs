@@ -60,16 +60,7 @@ public sealed partial class PointModel
     public static PointSettings SettingsOf(RigDescription rig)
     {
         var spacing = rig.Duct.PlanePositionsM["outlet"] - rig.Duct.PlanePositionsM["inlet"];
-        var model = rig.Profiles.VelocityModel switch
-        {
-            "uniform" => VelocityProfileModel.Uniform,
-            "laminar" => VelocityProfileModel.Laminar,
-            "power_law" => VelocityProfileModel.PowerLaw,
-            "spalding" => VelocityProfileModel.Spalding,
-            "reichardt" => VelocityProfileModel.Reichardt,
-            _ => VelocityProfileModel.Auto,
-        };
-        return new PointSettings(rig.Duct.WallRoughnessM, rig.Duct.HeatedLengthM, spacing, model, rig.Profiles.RadialPoints,
+        return new PointSettings(rig.Duct.WallRoughnessM, rig.Duct.HeatedLengthM, spacing, rig.Profiles.VelocityModel, rig.Profiles.RadialPoints,
             rig.Profiles.TurbulenceIntensity, rig.Profiles.LengthScaleM);
     }
 
@@ -146,7 +137,7 @@ public sealed partial class PointModel
         {
             return;
         }
-        var type = ChannelConversion.ThermocoupleTypeOf(thermocouple);
+        var type = thermocouple.Type;
         var fix = InversePolynomialCorrection.ForWindow(type, stats.TypeA.Mean, stats.StandardDeviation);
         inputs.AddTerm(Add(new UncertaintyInput($"{channelId}: ITS-90 inverse polynomial correction", fix.CorrectionK,
             TypeB.FromRectangularHalfWidth(fix.RemainderHalfWidthK), double.PositiveInfinity, DistributionKind.Rectangular, EvaluationType.TypeB,
@@ -173,7 +164,7 @@ public sealed partial class PointModel
             {
                 continue;
             }
-            var sensitivity = ColdJunction.SensitivityToReferenceJunction(ChannelConversion.ThermocoupleTypeOf(tc), window[channel.Id].Mean, window[cj].Mean);
+            var sensitivity = ColdJunction.SensitivityToReferenceJunction(tc.Type, window[channel.Id].Mean, window[cj].Mean);
             foreach (var (index, coefficient) in cold.Terms)
             {
                 hot.AddTerm(index, coefficient * sensitivity);

@@ -50,14 +50,26 @@ public sealed record DayPlan(IReadOnlyList<LoggerFiles> Loggers, double DayStart
         {
             throw new BcPrepFailure(FailureKind.InputData, problems);
         }
-        var starts = inputs.ToDictionary(i => i, i => FirstTime(i, rig.Log));
+        var firsts = inputs.ToDictionary(i => i, i => FirstRow(i, rig.Log));
+        var starts = firsts.ToDictionary(f => f.Key, f => f.Value.TimeS);
+        var dayStart = firsts.MinBy(f => f.Value.TimeS);
+        foreach (var (input, first) in firsts)
+        {
+            // The same bound as within one file (LogFileReader.MaxDaySpanS): a file whose clock is years off would
+            // otherwise stretch the day's block grid across those years.
+            if (first.TimeS - dayStart.Value.TimeS > LogFileReader.MaxDaySpanS)
+            {
+                throw new BcPrepFailure(FailureKind.InputData, new SourceLocation(input.DisplayName, (int)Math.Min(first.Line, int.MaxValue), null, rig.Log.TimeColumn),
+                    $"the file's first row lies {LogFileReader.Hours(first.TimeS - dayStart.Value.TimeS)} h after the first row of {dayStart.Key.DisplayName}; the logs of one day may start at most {LogFileReader.Hours(LogFileReader.MaxDaySpanS)} h apart (a logger clock glitch, or a log of another day?)");
+            }
+        }
         var loggers = groups.Values
             .Select(g => new LoggerFiles(g.Channels, g.Files.OrderBy(f => starts[f]).ToList()))
             .ToList();
         return new DayPlan(loggers, starts.Values.Min());
     }
 
-    private static double FirstTime(LogInput input, LogFormat format)
+    private static (double TimeS, long Line) FirstRow(LogInput input, LogFormat format)
     {
         using var reader = new LogFileReader(input, format, []);
         var block = new LogBlock(0, 1);
@@ -65,7 +77,7 @@ public sealed record DayPlan(IReadOnlyList<LoggerFiles> Loggers, double DayStart
         {
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation(input.DisplayName, 2), "the file has a header but no data rows");
         }
-        return block.TimeS[0];
+        return (block.TimeS[0], block.LineNumbers[0]);
     }
 }
 

@@ -14,6 +14,13 @@ public sealed class LogFileReader : IDisposable
     /// <summary>Longest record accepted (bytes): guards against a file that is one enormous line.</summary>
     public const int MaxRecordBytes = 1 << 20;
 
+    /// <summary>
+    /// Longest stretch of time one log may cover (s): 48 h. The per-second block means and the detection arrays grow
+    /// with the time covered, not with the rows, so a logger clock glitch (a row dated a century later) would
+    /// otherwise make memory grow without bound. Common practice: a test day is hours long; a longer run is split.
+    /// </summary>
+    public const double MaxDaySpanS = 48 * 3600.0;
+
     private readonly LogInput _input;
     private readonly LogFormat _format;
     private readonly char _separator;
@@ -28,6 +35,8 @@ public sealed class LogFileReader : IDisposable
     private double _lastTime = double.NegativeInfinity;
     private readonly IsoTimestamp.InOrder _stamps = new();
     private long _lastLine;
+    private double _firstTime = double.NaN;
+    private long _firstLine;
 
     public LogFileReader(LogInput input, LogFormat format, IReadOnlyList<string> columns)
     {
@@ -35,7 +44,7 @@ public sealed class LogFileReader : IDisposable
         _format = format;
         _numbers = new NumberFormatInfo { NumberDecimalSeparator = format.DecimalSeparator.ToString(), NumberGroupSeparator = "" };
         var stream = input.Open();
-        CanSeek = stream is not System.IO.Compression.GZipStream && !StartsWithUtf16Mark(input.Path);
+        CanSeek = stream is not CheckedGzipStream && !StartsWithUtf16Mark(input.Path);
         _separator = format.Separator ?? SniffSeparator(stream, format.DecimalSeparator);
         _csv = CsvReader.Create(stream, Options(hasHeader: true), leaveOpen: false);
         string[] header;
@@ -55,6 +64,12 @@ public sealed class LogFileReader : IDisposable
         }
         Header = header;
         _headerCount = header.Length;
+        if (DuplicateColumn(header) is { } duplicate)
+        {
+            _csv.Dispose();
+            throw new BcPrepFailure(FailureKind.InputData, new SourceLocation(input.DisplayName, 1, duplicate.Second + 1, header[duplicate.First]),
+                $"'{header[duplicate.First]}' appears twice in the header (columns {duplicate.First + 1} and {duplicate.Second + 1}): which one is the channel is a guess, so rename or remove one");
+        }
         _timeIndex = Array.IndexOf(header, format.TimeColumn);
         if (_timeIndex < 0)
         {
@@ -146,6 +161,16 @@ public sealed class LogFileReader : IDisposable
             {
                 var what = time == _lastTime ? "repeats" : "goes back from";
                 throw Fail(line, _timeIndex, $"the time {Format(time)} {what} the previous row's {Format(_lastTime)} (line {_lastLine}): timestamps must increase");
+            }
+            if (double.IsNaN(_firstTime))
+            {
+                _firstTime = time;
+                _firstLine = line;
+            }
+            else if (time - _firstTime > MaxDaySpanS)
+            {
+                throw Fail(line, _timeIndex,
+                    $"the time '{Truncate(Encoding.UTF8.GetString(_csv.GetSpan(_timeIndex)))}' lies {Hours(time - _firstTime)} h after the file's first row (line {_firstLine}) and {Hours(time - _lastTime)} h after the previous row (line {_lastLine}); a log may span at most {Hours(MaxDaySpanS)} h (a logger clock glitch?)");
             }
             _lastTime = time;
             _lastLine = line;
@@ -258,6 +283,27 @@ public sealed class LogFileReader : IDisposable
             .ToList();
         return counts[0].Count > 0 ? counts[0].Separator : ',';
     }
+
+    /// <summary>The first pair of equal non-blank header names (0-based column indices), or null.</summary>
+    private static (int First, int Second)? DuplicateColumn(string[] header)
+    {
+        var seen = new Dictionary<string, int>(StringComparer.Ordinal);
+        for (var i = 0; i < header.Length; i++)
+        {
+            if (header[i].Length == 0)
+            {
+                continue;
+            }
+            if (seen.TryGetValue(header[i], out var first))
+            {
+                return (first, i);
+            }
+            seen[header[i]] = i;
+        }
+        return null;
+    }
+
+    public static string Hours(double seconds) => (seconds / 3600).ToString(seconds < 36000 ? "0.##" : "0", CultureInfo.InvariantCulture);
 
     private static string Format(double value) => value.ToString("R", CultureInfo.InvariantCulture);
 

@@ -1,5 +1,3 @@
-using System.IO.Compression;
-
 namespace BcPrep.Reading;
 
 /// <summary>
@@ -26,6 +24,6 @@ public sealed record LogInput(string DisplayName, string Path)
         Span<byte> magic = stackalloc byte[2];
         var n = raw.ReadAtLeast(magic, 2, throwOnEndOfStream: false);
         raw.Seek(0, SeekOrigin.Begin);
-        return n == 2 && magic[0] == 0x1f && magic[1] == 0x8b ? new GZipStream(raw, CompressionMode.Decompress) : raw;
+        return n == 2 && magic[0] == 0x1f && magic[1] == 0x8b ? new CheckedGzipStream(raw) : raw;
     }
 }

@@ -66,8 +66,9 @@ public sealed class BadInputCorpusTests(BaseRunFixture baseRun, ITestOutputHelpe
             {
                 CopyTree(baseRun.PreviousOutputs, outDir);
             }
-            var before = Snapshot(outDir);
             var args = badCase.Materialize(scratch, outDir);
+            var before = Snapshot(outDir);
+            var outside = OutsideSnapshot(scratch, outDir);
             var stdout = new StringWriter();
             var stderr = new StringWriter();
             var code = BcPrepApp.Run(args, new CliContext(stdout, stderr, () => Stream.Null, false, scratch));
@@ -87,6 +88,7 @@ public sealed class BadInputCorpusTests(BaseRunFixture baseRun, ITestOutputHelpe
                 Assert.True(line.Contains(part, StringComparison.Ordinal), $"the message does not name '{part}':\n{line}");
             }
             Assert.Equal(before, Snapshot(outDir));
+            Assert.Equal(outside, OutsideSnapshot(scratch, outDir));
         }
         finally
         {
@@ -105,6 +107,41 @@ public sealed class BadInputCorpusTests(BaseRunFixture baseRun, ITestOutputHelpe
         var files = Directory.GetFiles(folder, "*", SearchOption.AllDirectories).Order(StringComparer.Ordinal)
             .Select(f => Path.GetRelativePath(folder, f) + " " + Convert.ToHexStringLower(SHA256.HashData(File.ReadAllBytes(f))));
         return string.Join("\n", files);
+    }
+
+    /// <summary>
+    /// Every entry of the scratch folder except the output folder: path, kind, size and modification time (links are
+    /// listed with their target, never followed), so that anything written, removed or left beside --out shows.
+    /// </summary>
+    private static string OutsideSnapshot(string scratch, string outDir)
+    {
+        var lines = new List<string>();
+        void Walk(string folder)
+        {
+            foreach (var entry in new DirectoryInfo(folder).EnumerateFileSystemInfos().OrderBy(e => e.Name, StringComparer.Ordinal))
+            {
+                if (entry.FullName == outDir)
+                {
+                    continue;
+                }
+                var relative = Path.GetRelativePath(scratch, entry.FullName);
+                if (entry.LinkTarget is { } target)
+                {
+                    lines.Add($"{relative} -> {target}");
+                }
+                else if (entry is DirectoryInfo)
+                {
+                    lines.Add(relative + "/");
+                    Walk(entry.FullName);
+                }
+                else
+                {
+                    lines.Add($"{relative} {((FileInfo)entry).Length} {entry.LastWriteTimeUtc.Ticks}");
+                }
+            }
+        }
+        Walk(scratch);
+        return string.Join("\n", lines);
     }
 
     private static void CopyTree(string from, string to)

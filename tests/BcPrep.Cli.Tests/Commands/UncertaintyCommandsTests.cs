@@ -95,7 +95,7 @@ public class UncertaintyCommandsTests
         Assert.True(Number(pairs[("inlet.static_pressure", "outlet.static_pressure")].Correlation) > 0.7);
         Assert.Equal("Pa*K", DataRows(longText).First(r => r[1] == "inlet.static_pressure" && r[2] == "inlet.temperature")[3]);
 
-        (code, var matrixText, error) = Run(["covariance", Rig, .. Logs, "--point", "OP2", "--matrix", "--correlation"]);
+        (code, var matrixText, error) = Run(["covariance", Rig, .. Logs, "--point", "OP2", "--square", "--correlation"]);
         Assert.True(code == 0, error);
         var header = Lines(matrixText).First(l => !l.StartsWith('#')).Split(',');
         var matrix = DataRows(matrixText);

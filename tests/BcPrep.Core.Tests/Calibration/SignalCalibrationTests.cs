@@ -52,39 +52,14 @@ public class SignalCalibrationTests
     }
 
     [Fact]
-    public void Tare_subtracts_zero_reading_and_passes_its_uncertainty_through()
-    {
-        // Zero interval mean 4.05 mA ± 0.002 mA (ν = 59) on the 4–20 mA / 0–2500 Pa transmitter:
-        // tare = 7.8125 Pa, u = 156 250 Pa/A × 2e-6 A = 0.3125 Pa.
-        var inner = new LinearCalibration(2500.0 / 0.016, -625.0);
-        var tared = TaredCalibration.FromZeroReading(inner, new MeasuredValue(0.00405, 2e-6, 59));
-        Assert.Equal(7.8125, tared.Tare.Value, 9);
-        Assert.Equal(0.3125, tared.Tare.StandardUncertainty, 9);
-        Assert.Equal(59, tared.Tare.DegreesOfFreedom);
-        Assert.Equal(0.0, tared.Apply(0.00405), 9);
-        Assert.Equal(1250.0 - 7.8125, tared.Apply(0.012), 9);
-        Assert.Equal(0.012, tared.Inverse(1250.0 - 7.8125), 12);
-        Assert.Equal(inner.Derivative(0.012), tared.Derivative(0.012));
-    }
-
-    [Fact]
-    public void Tare_outside_inner_range_throws()
-    {
-        var inner = new LinearCalibration(1.0, 0.0, new CalibrationRange(0.0, 1.0));
-        Assert.Throws<BcPrepDataException>(() => TaredCalibration.FromZeroReading(inner, new MeasuredValue(2.0, 0.0, 10)));
-    }
-
-    [Fact]
-    public void Thermocouple_and_RTD_adapters_follow_the_reference_functions()
+    public void Thermocouple_and_RTD_reference_functions_at_100_C()
     {
         // NIST type K: 4.09623 mV ↔ 100 °C, inverse polynomial within its −0.05 … +0.04 °C band;
         // IEC 60751 Pt100: 138.5055 Ω ↔ 100 °C.
-        var tc = new ThermocoupleCalibration(ThermocoupleType.K);
-        Assert.InRange(tc.Apply(4.09623e-3), 373.15 - 0.05, 373.15 + 0.04);
-        Assert.Equal(373.15, new ThermocoupleCalibration(ThermocoupleType.K, ThermocoupleInverseMethod.ExactNewton).Apply(4.09623e-3), 4);
-        Assert.Equal(1.0 / 0.04137e-3, tc.Derivative(4.09623e-3), 3.0);
-        var rtd = new RtdCalibration(RtdNominal.Pt100);
-        Assert.Equal(373.15, rtd.Apply(138.5055), 3);
-        Assert.Equal(138.5055, rtd.Inverse(373.15), 4);
+        Assert.InRange(Its90Thermocouple.TemperatureK(ThermocoupleType.K, 4.09623e-3, ThermocoupleInverseMethod.NistPolynomial), 373.15 - 0.05, 373.15 + 0.04);
+        Assert.Equal(373.15, Its90Thermocouple.TemperatureK(ThermocoupleType.K, 4.09623e-3, ThermocoupleInverseMethod.ExactNewton), 4);
+        Assert.Equal(1.0 / 0.04137e-3, 1.0 / Its90Thermocouple.SeebeckVPerK(ThermocoupleType.K, 373.15), 3.0);
+        Assert.Equal(373.15, CallendarVanDusen.TemperatureK(RtdNominal.Pt100, 138.5055), 3);
+        Assert.Equal(138.5055, CallendarVanDusen.ResistanceOhm(RtdNominal.Pt100, 373.15), 4);
     }
 }

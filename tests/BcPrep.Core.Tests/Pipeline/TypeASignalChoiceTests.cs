@@ -22,7 +22,7 @@ public class TypeASignalChoiceTests(ITestOutputHelper output)
         const double fs = 10.0;
         var x = Ar1.Series(n, phi, new Random(20261124), mean: 100.0);
         var lowPass = ButterworthDesign.LowPass(4, 0.1, fs).Sections;
-        var filtered = ZeroPhaseFilter.FiltFilt(lowPass, x, ZeroPhaseFilter.SettlingPadLength(lowPass));
+        var filtered = ZeroPhaseFilter.ForwardBackwardPadded(lowPass, x, ZeroPhaseFilter.SettlingPadLength(lowPass));
 
         var raw = WindowMean.Evaluate(x);
         var smooth = WindowMean.Evaluate(filtered);

@@ -187,4 +187,27 @@ public class LogFileReaderTests
             }
         }
     }
+
+    [Fact]
+    public void A_row_more_than_48_h_after_the_first_is_refused_naming_its_line_and_one_just_within_is_read()
+    {
+        using var files = new TempFiles();
+        var within = files.Write("within.csv", "t,a\n0,1\n1,2\n172800,3\n");
+        var beyond = files.Write("beyond.csv", "t,a\n0,1\n1,2\n172800.5,3\n");
+
+        Assert.Equal([0.0, 1.0, 172800.0], ReadAll(within, Seconds, "a").Time);
+        var failure = Assert.Throws<BcPrepFailure>(() => ReadAll(beyond, Seconds, "a"));
+        Assert.Contains("beyond.csv:4:1: t: the time '172800.5' lies 48 h after the file's first row (line 2)", failure.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_header_naming_a_column_twice_is_refused_with_both_columns()
+    {
+        using var files = new TempFiles();
+        var path = files.Write("dup.csv", "t,a,b,a\n0,1,2,3\n");
+
+        var failure = Assert.Throws<BcPrepFailure>(() => ReadAll(path, Seconds, "a"));
+
+        Assert.Contains("dup.csv:1:4: a: 'a' appears twice in the header (columns 2 and 4)", failure.Message, StringComparison.Ordinal);
+    }
 }

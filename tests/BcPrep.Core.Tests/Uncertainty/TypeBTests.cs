@@ -62,33 +62,6 @@ public class TypeBTests
     }
 
     [Fact]
-    public void Spec_terms_add_linearly_then_rectangular()
-    {
-        // ±(0.05 % of reading + 0.1 % of 1000 Pa FS + 0.2 Pa) at 400 Pa: a = 0.2 + 1.0 + 0.2 = 1.4 Pa; u = a/√3 (common practice).
-        var spec = new InstrumentSpec(PercentOfReading: 0.05, PercentOfFullScale: 0.1, FullScale: 1000.0, AbsoluteTerm: 0.2);
-        Assert.Equal(1.4, spec.HalfWidthAt(-400.0), 12);
-        Assert.Equal(1.4 / Math.Sqrt(3.0), spec.StandardUncertaintyAt(400.0), 12);
-        var input = spec.ToInput("p_inlet", 400.0);
-        Assert.Equal(DistributionKind.Rectangular, input.Distribution);
-        Assert.Equal(EvaluationType.TypeB, input.Evaluation);
-        Assert.Equal("spec ±(0.05 % of reading + 0.1 % of FS 1000 + 0.2), rectangular limits", input.Source);
-    }
-
-    [Fact]
-    public void Spec_as_expanded_uncertainty_divides_by_k()
-    {
-        var spec = new InstrumentSpec(PercentOfReading: 1.0, Interpretation: SpecInterpretation.ExpandedUncertainty, CoverageFactor: 2.0);
-        Assert.Equal(0.5, spec.StandardUncertaintyAt(100.0), 12);
-        Assert.Equal(DistributionKind.Normal, spec.ToInput("x", 100.0).Distribution);
-    }
-
-    [Fact]
-    public void Spec_with_percent_of_full_scale_but_no_full_scale_throws()
-    {
-        Assert.Throws<BcPrepDataException>(() => new InstrumentSpec(PercentOfFullScale: 0.1).HalfWidthAt(1.0));
-    }
-
-    [Fact]
     public void Input_rejects_negative_uncertainty_and_zero_dof()
     {
         Assert.Throws<BcPrepDataException>(() => new UncertaintyInput("x", 1.0, -0.1));

@@ -5,11 +5,11 @@ namespace BcPrep.Conditioning;
 
 /// <summary>
 /// Forward–backward filtering with the initial states of Gustafsson, "Determining the initial states in
-/// forward-backward filtering", IEEE Trans. Signal Processing 44(4), 1996 (scipy.signal.filtfilt method='gust'):
+/// forward-backward filtering", IEEE Trans. Signal Processing 44(4), 1996:
 /// the states at both ends are chosen so that forward–backward and backward–forward filtering give the same result,
 /// which removes the edge transients of zero or padded initial states without inventing samples beyond the record.
 /// </summary>
-public static class GustafssonFiltFilt
+public static class ForwardBackwardGustafsson
 {
     /// <summary>
     /// Zero-phase filtering of <paramref name="x"/> by b, a (normalised by a[0]; order m = max(len a, len b) − 1).

@@ -3,7 +3,7 @@ using System.Numerics;
 namespace BcPrep.Conditioning;
 
 /// <summary>Coefficient arithmetic for polynomials in z⁻¹ (index 0 = constant term).</summary>
-internal static class Polynomial
+internal static class FilterPolynomial
 {
     public static double[] Multiply(double[] p, double[] q)
     {

@@ -1,9 +1,11 @@
 using System.Globalization;
 
-namespace BcPrep.Uncertainty;
+using BcPrep.Uncertainty;
+
+namespace BcPrep.Tests.Uncertainty;
 
 /// <summary>
-/// Type A evaluation of several quantities observed together in n simultaneous sets (GUM 4.2 and 5.2.3):
+/// Test fixture (the tool itself evaluates time series with <see cref="WindowMean"/>): Type A evaluation of several quantities observed together in n simultaneous sets (GUM 4.2 and 5.2.3):
 /// the means q̄, their standard uncertainties s(q̄) = s(q)/√n, ν = n − 1, and the covariance of the means
 /// s(q̄, r̄) = Σ(q_k − q̄)(r_k − r̄)/[n(n − 1)] (GUM eq. 17) with correlation r = s(q̄, r̄)/(s(q̄)s(r̄)).
 /// Readings are assumed independent between sets (no autocorrelation; use <see cref="WindowMean"/> for a time series).
@@ -13,7 +15,7 @@ namespace BcPrep.Uncertainty;
 /// <param name="DegreesOfFreedom">n − 1.</param>
 /// <param name="Covariance">s(q̄ᵢ, q̄ⱼ).</param>
 /// <param name="Correlation">The correlation matrix of the means (identity entries where an s(q̄) is zero).</param>
-public sealed record SimultaneousMeans(
+internal sealed record SimultaneousMeans(
     IReadOnlyList<double> Means,
     IReadOnlyList<double> StandardUncertainties,
     double DegreesOfFreedom,
