@@ -102,6 +102,17 @@ public sealed partial class PointModel
                 inputs.AddTerm(Add(new UncertaintyInput($"{channel.Id}: {term.Source}", 0.0, u, term.DegreesOfFreedom,
                     TypeBTerms.Distribution(term), EvaluationType.TypeB, term.Source)), 1.0);
             }
+            if (channel.Sensor is ThermocoupleSensor thermocouple)
+            {
+                AddInverseCorrection(inputs, channel.Id, thermocouple, stats, window);
+            }
+            if (channel.Sensor is RtdSensor { Certificate: { } rtdCertificate })
+            {
+                // The certificate's A, B, C are already in the conversion; its uncertainty enters here.
+                inputs.AddTerm(Add(new UncertaintyInput($"{channel.Id}: calibration certificate {rtdCertificate.Certificate}", 0.0,
+                    rtdCertificate.ExpandedUncertaintyK / rtdCertificate.CoverageFactor, double.PositiveInfinity, DistributionKind.Normal, EvaluationType.TypeB,
+                    $"certificate {rtdCertificate.Certificate}: own Callendar-Van Dusen coefficients, expanded uncertainty with k = {rtdCertificate.CoverageFactor.ToString(CultureInfo.InvariantCulture)}")), 1.0);
+            }
             if (channel.Sensor is TableSensor table)
             {
                 var fit = ChannelConversion.Fit(table);
@@ -112,6 +123,36 @@ public sealed partial class PointModel
             _channels[channel.Id] = inputs;
         }
         CoupleColdJunctions(rig, window);
+    }
+
+    /// <summary>
+    /// Thermocouples are inverted exactly by default: the samples go through the NIST inverse polynomial (fast,
+    /// vectorised), and the window mean is moved onto the exact inverse of the reference function
+    /// (<see cref="InversePolynomialCorrection"/>). The correction is an input of its own, so the budget shows it.
+    /// </summary>
+    private void AddInverseCorrection(ChannelInputs inputs, string channelId, ThermocoupleSensor thermocouple, ChannelWindowStats stats,
+        IReadOnlyDictionary<string, ChannelWindowStats> window)
+    {
+        if (!double.IsFinite(stats.TypeA.Mean))
+        {
+            return;
+        }
+        var type = thermocouple.Type;
+        var fix = InversePolynomialCorrection.ForWindow(type, stats.TypeA.Mean, stats.StandardDeviation);
+        inputs.AddTerm(Add(new UncertaintyInput($"{channelId}: ITS-90 inverse polynomial correction", fix.CorrectionK,
+            TypeB.FromRectangularHalfWidth(fix.RemainderHalfWidthK), double.PositiveInfinity, DistributionKind.Rectangular, EvaluationType.TypeB,
+            "exact inverse of the NIST ITS-90 reference function at the window mean, less the inverse polynomial's value")), 1.0);
+        if (thermocouple.Certificate is not { } certificate)
+        {
+            return;
+        }
+        var referenceK = stats.TypeA.Mean + fix.CorrectionK;
+        var junctionK = thermocouple.ColdJunctionK
+            ?? (thermocouple.ColdJunctionChannel is { } cj && window.TryGetValue(cj, out var junction) ? junction.TypeA.Mean : Its90Thermocouple.KelvinOffset);
+        var correction = certificate.CorrectionK(type, referenceK, junctionK);
+        inputs.AddTerm(Add(new UncertaintyInput($"{channelId}: certificate correction ({certificate.Certificate})", correction,
+            certificate.StandardUncertaintyK(type, referenceK + correction), double.PositiveInfinity, DistributionKind.Normal, EvaluationType.TypeB,
+            $"certificate {certificate.Certificate}: {certificate.Kind.ToString().ToLowerInvariant()} correction, expanded uncertainty with k = {certificate.CoverageFactor.ToString(CultureInfo.InvariantCulture)}")), 1.0);
     }
 
     /// <summary>A cold-junction sensor's error enters each thermocouple scaled by S(T_cj)/S(T_hot) (emf addition).</summary>
