@@ -236,13 +236,20 @@ public static class RigLoader
                     "linear" => t.Number("gain", required: true) is { } gain
                         ? new LinearSensor(rawUnit, unit, rawToSi.Value, unitToSi.Value, gain, t.Number("offset") ?? 0.0)
                         : null,
-                    "polynomial" => ReadNumbers(t, "coefficients") is { Count: > 0 } c
+                    "polynomial" => ReadNumbers(t, "coefficients") is { } c && (c.Count > 0 || Reported(t, "coefficients", "a polynomial needs at least one coefficient (c0, c1, … of value = c0 + c1·raw + …); the list is empty"))
                         ? new PolynomialSensor(rawUnit, unit, rawToSi.Value, unitToSi.Value, c)
                         : null,
                     _ => ReadTable(t, rawUnit, unit, rawToSi.Value, unitToSi.Value),
                 };
             }
         }
+    }
+
+    /// <summary>Reports a problem and returns false, so that a refusal reads as one condition.</summary>
+    private static bool Reported(TableReader t, string key, string message)
+    {
+        t.Report(key, message);
+        return false;
     }
 
     private static TableSensor? ReadTable(TableReader t, string rawUnit, string unit, Affine rawToSi, Affine unitToSi)
