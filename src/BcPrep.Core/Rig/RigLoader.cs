@@ -106,6 +106,11 @@ public static class RigLoader
                 planeTable.Report("outlet", "the outlet plane must lie downstream of the inlet plane (larger axial position)");
             }
         }
+        if (diameter is { } dm && diameterStd >= dm / 2)
+        {
+            // At k = 2 the interval d ± 2u would reach a zero or negative bore: no measurement model holds there.
+            t.Report("inner_diameter_uncertainty", "the standard uncertainty of the diameter is not below half the diameter, so d ± 2u reaches zero: is it in the wrong unit?");
+        }
         if (diameter is { } d && roughness >= d / 2)
         {
             t.Report("wall_roughness", "wall roughness is not smaller than the radius: impossible geometry");
