@@ -21,7 +21,7 @@ public sealed class LogArguments : IDisposable
         if (arguments.FirstOrDefault(LooksLikeMistypedOption) is { } option)
         {
             throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation("(command line)", Key: option),
-                $"unknown option '{option}' (and no log file has that name); see --help for the options");
+                $"unknown option '{option}' (and no log file has that name)");
         }
         var seen = new Dictionary<string, int>(StringComparer.Ordinal);
         for (var i = 0; i < arguments.Count; i++)

@@ -13,7 +13,7 @@ public static class ProcessCommand
     {
         var rig = RigArguments.Rig();
         var logs = RigArguments.Logs();
-        var output = new Option<string>("--out", "-o") { Description = "Output folder (created if needed).", Required = true };
+        var output = new Option<string>("--out", "-o") { Description = "Output folder (created if needed).", Required = true, HelpName = "DIR" };
         var force = new Option<bool>("--force") { Description = "Recompute even when inputs, rig file and tool version match the existing manifest." };
         var reduction = ReductionOptions.WithMonteCarlo();
         var report = ReportOption.Create();
@@ -49,7 +49,7 @@ public static class ProcessCommand
             {
                 OutputFileSet.RemoveStalePartials(outDir, ExistingOutputs.ListedFiles(outDir));
                 diagnostics.Info($"{outDir}: up to date (inputs, rig file and tool version unchanged); nothing to do. Use --force to recompute.");
-                return ExitCodes.Success;
+                return ExistingOutputs.HasFailedPoints(outDir) ? ExitCodes.SomePointsFailed : ExitCodes.Success;
             }
             diagnostics.Detail($"reading {inputs.Inputs.Count} log file(s)");
             OutputFileSet files;
@@ -73,8 +73,12 @@ public static class ProcessCommand
                     diagnostics.Warning($"{point.Id}: {warning}");
                 }
             }
+            foreach (var failed in day.FailedPoints)
+            {
+                diagnostics.Warning($"{failed.Id}: point failed and was not written: {failed.Reason}");
+            }
             diagnostics.Detail(string.Create(CultureInfo.InvariantCulture, $"wrote {day.Points.Count} operating point(s), {files.Files.Count} files, to {outDir}"));
-            return ExitCodes.Success;
+            return day.FailedPoints.Count > 0 ? ExitCodes.SomePointsFailed : ExitCodes.Success;
         });
         return command;
     }

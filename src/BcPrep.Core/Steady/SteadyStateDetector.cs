@@ -224,7 +224,7 @@ public static class SteadyStateDetector
         if (duration < settings.MinStretchS)
         {
             rejected.Add(new RejectedStretch(t[start], t[end], t[start], t[end],
-                Format($"{SteadyCriterion.Duration}: steady for {duration} s, shorter than the minimum {settings.MinStretchS} s"), []));
+                Format($"{ChoiceSpelling.Name(SteadyCriterion.Duration)}: steady for {duration} s, shorter than the minimum {settings.MinStretchS} s"), []));
             return;
         }
 
@@ -283,7 +283,7 @@ public static class SteadyStateDetector
         {
             var missing = settings.RequiredMethods & ~passed;
             rejected.Add(new RejectedStretch(t[start], t[end], t[tailStart], t[end],
-                Format($"required method(s) {missing} failed on the averaging window"), criteria));
+                Format($"required method(s) {ChoiceSpelling.Names(missing)} failed on the averaging window"), criteria));
         }
     }
 
