@@ -1,3 +1,4 @@
+using BcPrep.Conditioning;
 using BcPrep.Profiles;
 using BcPrep.Steady;
 
@@ -61,5 +62,15 @@ public static class ChoiceSpelling
         SteadyCriterion.Duration => "duration",
         SteadyCriterion.Range => "range",
         _ => throw new ArgumentOutOfRangeException(nameof(criterion), criterion, null),
+    };
+
+    /// <summary>A sensor fault in words: saturation, stuck, implausible, non-finite.</summary>
+    public static string Name(SensorFaultKind kind) => kind switch
+    {
+        SensorFaultKind.Saturation => "saturation",
+        SensorFaultKind.Stuck => "stuck",
+        SensorFaultKind.Implausible => "implausible",
+        SensorFaultKind.NonFinite => "non-finite",
+        _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, null),
     };
 }
