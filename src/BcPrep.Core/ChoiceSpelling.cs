@@ -1,36 +1,20 @@
 using BcPrep.Conditioning;
 using BcPrep.Profiles;
+using BcPrep.Rig;
 using BcPrep.Steady;
 
 namespace BcPrep;
 
 /// <summary>
-/// The one place where a choice gets the spelling a person reads and writes: the rig file's own words
-/// (<c>power_law</c>, <c>auto</c>) and the steady-detection words of the <c>windows</c> table (<c>drift-scatter</c>,
-/// <c>r-test</c>). Tables, the manifest, the report and messages all spell through here, never through an enum's
+/// The one place where a choice gets the spelling a person reads: the rig file's own words (<c>power_law</c>,
+/// <c>auto</c>, kept in <see cref="RigChoices"/>) and the steady-detection words of the <c>windows</c> table
+/// (<c>drift-scatter</c>, <c>r-test</c>). Tables, the manifest, the report and messages all spell through here, never through an enum's
 /// <c>ToString()</c>, so an internal name (PowerLaw, RTest) cannot leak into what a person reads.
 /// </summary>
 public static class ChoiceSpelling
 {
-    private static readonly (VelocityProfileModel Model, string Name)[] VelocityModelNames =
-    [
-        (VelocityProfileModel.Auto, "auto"),
-        (VelocityProfileModel.Uniform, "uniform"),
-        (VelocityProfileModel.Laminar, "laminar"),
-        (VelocityProfileModel.PowerLaw, "power_law"),
-        (VelocityProfileModel.Spalding, "spalding"),
-        (VelocityProfileModel.Reichardt, "reichardt"),
-    ];
-
-    /// <summary>The values the rig file's <c>[profiles] velocity_model</c> accepts, in the order the README lists them.</summary>
-    public static IReadOnlyList<string> VelocityModels { get; } = VelocityModelNames.Select(m => m.Name).ToArray();
-
-    /// <summary>The rig-file word of <paramref name="model"/>.</summary>
-    public static string Name(VelocityProfileModel model) => VelocityModelNames.Single(m => m.Model == model).Name;
-
-    /// <summary>The model a rig-file word names; <see cref="VelocityProfileModel.Auto"/> for one it does not know (the reader has refused those already).</summary>
-    public static VelocityProfileModel VelocityModel(string name) =>
-        VelocityModelNames.FirstOrDefault(m => m.Name == name) is { Name: not null } found ? found.Model : VelocityProfileModel.Auto;
+    /// <summary>The rig-file word of <paramref name="model"/> (auto, power_law, …), from the rig's own spelling table.</summary>
+    public static string Name(VelocityProfileModel model) => model.RigName();
 
     /// <summary>A steady-detection method: drift-scatter, r-test or mser.</summary>
     public static string Name(SteadyMethod method) => method switch

@@ -32,6 +32,11 @@ public static class ReportPage
         HtmlText.List(html, day.Warnings.Concat(day.Calibration?.Warnings ?? []).Concat(day.Matrix?.Warnings ?? []), "warnings");
         html.Append("<h2>Operating points</h2>\n");
         PointsTable(html, day);
+        if (day.FailedPoints.Count > 0)
+        {
+            html.Append("<h3>Points that failed</h3>\n");
+            HtmlText.List(html, day.FailedPoints.Select(f => $"{f.Id}: {f.Reason}"), "warnings");
+        }
         html.Append("<h2>The day</h2>\n");
         foreach (var figure in dayFigures)
         {
@@ -115,9 +120,9 @@ public static class ReportPage
         HtmlText.Table(html, ["check", "verdict", "value", "limit", "unit", "basis"],
             point.Checks.Select(c => (IReadOnlyList<string>)[c.Name, c.Passed ? "pass" : "WARN", HtmlText.Number(c.Value), HtmlText.Number(c.Limit), c.Unit, c.Basis]));
         html.Append("<h3>Conditioning actions</h3>\n");
-        HtmlText.Table(html, ["channel", "samples", "missing cells", "bridged samples", "spikes replaced", "sensor faults"],
+        HtmlText.Table(html, ["channel", "samples", "missing cells", "bridged samples", "gaps left open", "spikes replaced", "sensor faults"],
             point.Channels.Values.OrderBy(s => s.Channel, StringComparer.Ordinal).Select(s => (IReadOnlyList<string>)[
-                s.Channel, Count(s.SampleCount), Count(s.MissingCount), Count(s.BridgedSamples), Count(s.SpikesReplaced),
+                s.Channel, Count(s.SampleCount), Count(s.MissingCount), Count(s.BridgedSamples), OpenGaps(s), Count(s.SpikesReplaced),
                 s.Faults.Count == 0 ? "none" : string.Join("; ", s.Faults.Select(f => $"{ChoiceSpelling.Name(f.Kind)}: {f.Evidence}")),
             ]), "numbers");
         html.Append("<h3>Warnings</h3>\n");
@@ -151,4 +156,12 @@ public static class ReportPage
         figcaption { font-size: 90%; color: #333; }
 
         """;
+
+    /// <summary>Gaps too long to bridge left open inside the window: "none", or count and seconds with each span.</summary>
+    private static string OpenGaps(Pipeline.ChannelWindowStats stats)
+    {
+        var gaps = stats.Conditioning?.UnbridgedGaps ?? [];
+        return gaps.Count == 0 ? "none" : string.Join("; ", gaps.Select(g => string.Create(System.Globalization.CultureInfo.InvariantCulture, $"{g.DurationS:F1} s")));
+    }
+
 }

@@ -66,10 +66,11 @@ public static class TypeBTerms
         }
         return term.Distribution switch
         {
-            "normal" => halfWidthOrU,
-            "triangular" => TypeB.FromTriangularHalfWidth(halfWidthOrU),
-            "arcsine" => TypeB.FromArcSineHalfWidth(halfWidthOrU),
-            _ => TypeB.FromRectangularHalfWidth(halfWidthOrU),
+            DistributionKind.Normal => halfWidthOrU,
+            DistributionKind.Triangular => TypeB.FromTriangularHalfWidth(halfWidthOrU),
+            DistributionKind.ArcSine => TypeB.FromArcSineHalfWidth(halfWidthOrU),
+            DistributionKind.Rectangular => TypeB.FromRectangularHalfWidth(halfWidthOrU),
+            _ => throw new ArgumentOutOfRangeException(nameof(term), term.Distribution, "a rig-file term has no such distribution"),
         };
     }
 
@@ -77,13 +78,7 @@ public static class TypeBTerms
     {
         UncertaintyTermKind.Certificate => DistributionKind.Normal,
         UncertaintyTermKind.Resolution => DistributionKind.Rectangular,
-        _ => term.Distribution switch
-        {
-            "normal" => DistributionKind.Normal,
-            "triangular" => DistributionKind.Triangular,
-            "arcsine" => DistributionKind.ArcSine,
-            _ => DistributionKind.Rectangular,
-        },
+        _ => term.Distribution,
     };
 
     private static double ToleranceHalfWidth(UncertaintyTerm term, ChannelSpec channel, double temperatureK)
@@ -99,7 +94,7 @@ public static class TypeBTerms
                     "3" => ThermocoupleToleranceClass.Class3,
                     _ => throw new BcPrepFailure(FailureKind.Configuration, channel.Location, $"thermocouple tolerance class '{cls}' is not 1, 2 or 3 (IEC 60584-1)"),
                 };
-                return ToleranceClasses.ThermocoupleHalfWidthK(ChannelConversion.ThermocoupleTypeOf(tc), tcClass, temperatureK);
+                return ToleranceClasses.ThermocoupleHalfWidthK(tc.Type, tcClass, temperatureK);
             case RtdSensor:
                 if (!Enum.TryParse<RtdToleranceClass>(cls, out var rtdClass))
                 {

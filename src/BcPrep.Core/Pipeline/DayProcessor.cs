@@ -32,7 +32,7 @@ public static class DayProcessor
         var pinned = rig.Points.Select(p => new TimeWindow(p.Id, Resolve(p.Start, plan.DayStartS), Resolve(p.End, plan.DayStartS))).ToList();
         var book = new WindowStatsBook();
         var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v, PinnedLocation(rig, w)),
-            collects: (w, c) => !w.Id.StartsWith("tare:", StringComparison.Ordinal) || w.Id == "tare:" + c);
+            collects: (w, c) => w.Serves(c));
         var extent = new DayExtentSink();
         var feed = DetectionFeed.For(rig, blocks);
         var index = new ScanIndex();
@@ -43,7 +43,8 @@ public static class DayProcessor
         DayScan.Run(rig, plan, converters, [.. feed.ChannelSinks, firstPass, extent], (IBlockSink?)live ?? feed.BlockSink, options.Progress, index);
         live?.ReadDone();
         feed.Complete();
-        book.DrainInto(stats);
+        var lost = new Dictionary<string, Problem>(StringComparer.Ordinal);
+        book.DrainInto(stats, lost: lost);
         var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, extent.FirstS, extent.LastS), options.AllowExpired);
 
         var series = WindowFinder.Series(rig, blocks);
@@ -60,14 +61,14 @@ public static class DayProcessor
         }
         var detected = windowPlan.Points.Where(p => p.Origin == WindowOrigin.Detected).Select(p => p.Window).ToList();
         var gathered = live is null ? [] : detected.Where(live.TryGatherNow).ToHashSet();
-        liveBook.DrainInto(stats, gathered.Contains);
+        liveBook.DrainInto(stats, gathered.Contains, lost);
         var readAgain = detected.Where(w => !gathered.Contains(w)).ToList();
         if (readAgain.Count > 0)
         {
             var secondPass = new WindowCollector(readAgain, (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v));
             // Only the blocks covering these windows are read again (seeking by the first pass's index).
             DayScan.Run(rig, plan, converters, [secondPass], progress: options.Progress, index: index, onlyWindows: readAgain);
-            book.DrainInto(stats);
+            book.DrainInto(stats, lost: lost);
         }
         var dayWarnings = new List<string>();
         if (detection is { Accepted.Count: 0 })
@@ -79,14 +80,22 @@ public static class DayProcessor
             dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, plan.DayStartS));
         }
 
-        var tareStats = TareStats(rig, stats);
-        IReadOnlyList<PointResult> points = InOrder(windowPlan.Points, p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, options));
+        var tareStats = TareStats(tareWindows, stats);
+        // A point whose window lost too much to gaps fails alone; the others are reduced and written.
+        var failed = windowPlan.Points.Where(p => lost.ContainsKey(p.Window.Id))
+            .Select(p => new FailedPoint(p.Window.Id, p.Window.StartS, p.Window.EndS, lost[p.Window.Id].Message)).ToList();
+        var reduced = windowPlan.Points.Where(p => !lost.ContainsKey(p.Window.Id)).ToList();
+        if (reduced.Count == 0)
+        {
+            throw new BcPrepFailure(FailureKind.InputData, failed.Select(f => lost[f.Id]).ToList());
+        }
+        IReadOnlyList<PointResult> points = InOrder(reduced, p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, options));
         MatrixReport? matrix = null;
         if (options.Matrix is not null)
         {
             (points, matrix) = MatrixNaming.Apply(options.Matrix, points);
         }
-        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = readAgain.Count };
+        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = readAgain.Count };
     }
 
     /// <summary>
@@ -126,7 +135,7 @@ public static class DayProcessor
 
     private static List<TimeWindow> TareWindows(RigDescription rig, double dayStartS) =>
         rig.Channels.Where(c => c.Tare is not null)
-            .Select(c => new TimeWindow("tare:" + c.Id, Resolve(c.Tare!.Start, dayStartS), Resolve(c.Tare.End, dayStartS)))
+            .Select(c => TimeWindow.Tare(c.Id, Resolve(c.Tare!.Start, dayStartS), Resolve(c.Tare.End, dayStartS)))
             .ToList();
 
     private static void Collect(RigDescription rig, double dayStartS, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,
@@ -151,6 +160,11 @@ public static class DayProcessor
             {
                 return FaultPolicy.Evaluate(rig, channel, window, times, values, dayStartS);
             }
+            catch (WindowLostFailure failure)
+            {
+                // Still a failure of this point alone, now pointing at the window in the rig file.
+                throw new WindowLostFailure(pinnedAt with { Key = $"{pinnedAt.Key}, channel '{channel}'" }, failure.Problems[0].Message);
+            }
             catch (BcPrepFailure failure)
             {
                 // Point the reader at the window in the rig file as well as at the channel.
@@ -172,22 +186,22 @@ public static class DayProcessor
     /// <summary>Where a window pinned in the rig file (operating point or tare) is written; null for a detected one.</summary>
     private static SourceLocation? PinnedLocation(RigDescription rig, TimeWindow window)
     {
-        if (rig.Points.FirstOrDefault(p => p.Id == window.Id) is { } point)
+        if (window.TareOf is { } channel)
         {
-            return point.Location;
+            var tared = rig.Channel(channel)!;
+            return tared.Location with { Key = $"channel '{tared.Id}'.tare" };
         }
-        var tared = rig.Channels.FirstOrDefault(c => "tare:" + c.Id == window.Id);
-        return tared is null ? null : tared.Location with { Key = $"channel '{tared.Id}'.tare" };
+        return rig.Points.FirstOrDefault(p => p.Id == window.Id)?.Location;
     }
 
-    private static Dictionary<string, ChannelWindowStats> TareStats(RigDescription rig, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
+    private static Dictionary<string, ChannelWindowStats> TareStats(IReadOnlyList<TimeWindow> tareWindows, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
     {
         var result = new Dictionary<string, ChannelWindowStats>(StringComparer.Ordinal);
-        foreach (var channel in rig.Channels.Where(c => c.Tare is not null))
+        foreach (var window in tareWindows)
         {
-            if (stats.TryGetValue("tare:" + channel.Id, out var byChannel) && byChannel.TryGetValue(channel.Id, out var s))
+            if (stats.TryGetValue(window.Id, out var byChannel) && byChannel.TryGetValue(window.TareOf!, out var s))
             {
-                result[channel.Id] = s;
+                result[window.TareOf!] = s;
             }
         }
         return result;

@@ -60,8 +60,7 @@ public sealed partial class PointModel
     public static PointSettings SettingsOf(RigDescription rig)
     {
         var spacing = rig.Duct.PlanePositionsM["outlet"] - rig.Duct.PlanePositionsM["inlet"];
-        var model = ChoiceSpelling.VelocityModel(rig.Profiles.VelocityModel);
-        return new PointSettings(rig.Duct.WallRoughnessM, rig.Duct.HeatedLengthM, spacing, model, rig.Profiles.RadialPoints,
+        return new PointSettings(rig.Duct.WallRoughnessM, rig.Duct.HeatedLengthM, spacing, rig.Profiles.VelocityModel, rig.Profiles.RadialPoints,
             rig.Profiles.TurbulenceIntensity, rig.Profiles.LengthScaleM);
     }
 
@@ -124,7 +123,7 @@ public sealed partial class PointModel
             {
                 continue;
             }
-            var sensitivity = ColdJunction.SensitivityToReferenceJunction(ChannelConversion.ThermocoupleTypeOf(tc), window[channel.Id].Mean, window[cj].Mean);
+            var sensitivity = ColdJunction.SensitivityToReferenceJunction(tc.Type, window[channel.Id].Mean, window[cj].Mean);
             foreach (var (index, coefficient) in cold.Terms)
             {
                 hot.AddTerm(index, coefficient * sensitivity);

@@ -2,7 +2,6 @@ using System.Globalization;
 using BcPrep.Reading;
 using BcPrep.Rig;
 using BcPrep.Steady;
-using DetectorSettings = BcPrep.Steady.SteadySettings;
 
 namespace BcPrep.Pipeline;
 
@@ -81,10 +80,10 @@ public static class WindowFinder
     /// Detector settings from the rig file. The test window slides in steps of window/30 (at least one block): fine
     /// enough to place a stretch's edges within a few percent of the window, cheap enough for a long day.
     /// </summary>
-    public static DetectorSettings Settings(Rig.SteadySettings steady)
+    public static SteadySettings Settings(SteadySpec steady)
     {
         ArgumentNullException.ThrowIfNull(steady);
-        return new DetectorSettings(WindowS: steady.WindowS, MinStretchS: steady.MinDurationS, TailS: steady.SettledTailS,
+        return new SteadySettings(WindowS: steady.WindowS, MinStretchS: steady.MinDurationS, TailS: steady.SettledTailS,
             StepS: Math.Max(steady.BlockS, steady.WindowS / 30));
     }
 

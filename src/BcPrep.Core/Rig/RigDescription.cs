@@ -1,3 +1,5 @@
+using BcPrep.Profiles;
+
 namespace BcPrep.Rig;
 
 /// <summary>
@@ -11,7 +13,7 @@ public sealed record RigDescription(
     LogFormat Log,
     IReadOnlyList<ChannelSpec> Channels,
     IReadOnlyList<PointSpec> Points,
-    SteadySettings Steady,
+    SteadySpec Steady,
     ProfileSettings Profiles,
     double CoverageProbability)
 {
@@ -127,7 +129,7 @@ public sealed record PointSpec(string Id, TimeBound Start, TimeBound End, Source
 /// Steady-window detection settings. Detection runs when <paramref name="Detect"/> is true and there are keys;
 /// windows pinned in the rig file replace the detected windows they overlap.
 /// </summary>
-public sealed record SteadySettings(
+public sealed record SteadySpec(
     double BlockS,
     double WindowS,
     double MinDurationS,
@@ -144,6 +146,6 @@ public sealed record SteadyKey(string Channel, double MaxChangeSi, double MaxSca
 /// <summary>Inlet profile settings.</summary>
 public sealed record ProfileSettings(
     int RadialPoints,
-    string VelocityModel,
+    VelocityProfileModel VelocityModel,
     double? TurbulenceIntensity,
     double? LengthScaleM);

@@ -1,4 +1,7 @@
 using System.Globalization;
+using BcPrep.Calibration;
+using BcPrep.Profiles;
+using BcPrep.Uncertainty;
 
 namespace BcPrep.Rig;
 
@@ -19,8 +22,6 @@ public static class RigLoader
     ];
 
     private static readonly string[] SensorKinds = ["linear", "polynomial", "table", "thermocouple", "rtd", "direct"];
-    private static readonly string[] ThermocoupleTypes = ["K", "T", "J", "E", "N"];
-    private static readonly string[] VelocityModels = [.. ChoiceSpelling.VelocityModels];
 
     public static RigDescription Load(string text, string fileName)
     {
@@ -196,7 +197,7 @@ public static class RigLoader
             {
                 var rawUnit = t.String("raw_unit") ?? "mV";
                 var rawToSi = AffineOf(t, "raw_unit", rawUnit, Dimension.Voltage);
-                var type = t.Choice("type", ThermocoupleTypes, "K");
+                var type = t.Choice("type", RigChoices.ThermocoupleTypes, ThermocoupleType.K);
                 var cjChannel = t.String("cold_junction");
                 var cjFixed = t.Quantity("cold_junction_temperature", Dimension.Temperature, minSi: 173.15, maxSi: 423.15);
                 if (cjChannel is null && cjFixed is null)
@@ -307,11 +308,11 @@ public static class RigLoader
         var reliability = t.Quantity("reliability", Dimension.Dimensionless, minSi: 0.01, maxSi: 1);
         // GUM G.4.2: nu = 1/2 (relative uncertainty of u)^-2; no statement means the term is taken as exact.
         var dof = reliability is { } r ? 0.5 / (r * r) : double.PositiveInfinity;
-        var distribution = t.Choice("distribution", ["rectangular", "normal", "triangular", "arcsine"], kind == "certificate" ? "normal" : "rectangular");
+        var distribution = t.Choice("distribution", RigChoices.Distributions, kind == "certificate" ? DistributionKind.Normal : DistributionKind.Rectangular);
         UncertaintyTerm? term = kind switch
         {
             "certificate" => t.Quantity("expanded", spread, required: true, minSi: 0) is { } u
-                ? new UncertaintyTerm(UncertaintyTermKind.Certificate, u, t.Number("k", min: 1, max: 10) ?? 2.0, "normal", dof, source, null)
+                ? new UncertaintyTerm(UncertaintyTermKind.Certificate, u, t.Number("k", min: 1, max: 10) ?? 2.0, DistributionKind.Normal, dof, source, null)
                 : null,
             "" => null,
             "reading" => PercentTermReader.Fraction(t, "value", PercentBasis.Reading) is { } f
@@ -324,10 +325,10 @@ public static class RigLoader
                 ? new UncertaintyTerm(UncertaintyTermKind.Absolute, a, 1, distribution, dof, source, null)
                 : null,
             "resolution" => t.Quantity("value", spread, required: true, minSi: 0) is { } step
-                ? new UncertaintyTerm(UncertaintyTermKind.Resolution, step, 1, "rectangular", dof, source, null)
+                ? new UncertaintyTerm(UncertaintyTermKind.Resolution, step, 1, DistributionKind.Rectangular, dof, source, null)
                 : null,
             _ => t.String("class", required: true) is { } c
-                ? new UncertaintyTerm(UncertaintyTermKind.ToleranceClass, 0, 1, "rectangular", dof, source, c)
+                ? new UncertaintyTerm(UncertaintyTermKind.ToleranceClass, 0, 1, DistributionKind.Rectangular, dof, source, c)
                 : null,
         };
         t.RejectUnknownKeys();
@@ -395,11 +396,11 @@ public static class RigLoader
         return t.Quantity(key, Dimension.Duration, required: true, minSi: 0) is { } seconds ? new TimeBound(seconds, false) : null;
     }
 
-    private static SteadySettings ReadSteady(TableReader? t, IReadOnlyList<ChannelSpec> channels, HashSet<string> declaredIds)
+    private static SteadySpec ReadSteady(TableReader? t, IReadOnlyList<ChannelSpec> channels, HashSet<string> declaredIds)
     {
         if (t is null)
         {
-            return new SteadySettings(1.0, 300.0, 300.0, 180.0, []);
+            return new SteadySpec(1.0, 300.0, 300.0, 180.0, []);
         }
         var block = t.Quantity("block", Dimension.Duration, minSi: 0.01, maxSi: 600) ?? 1.0;
         var window = t.Quantity("window", Dimension.Duration, minSi: 1, maxSi: 86400) ?? 300.0;
@@ -432,17 +433,17 @@ public static class RigLoader
         }
         var detect = t.Bool("detect", fallback: true);
         t.RejectUnknownKeys();
-        return new SteadySettings(block, window, minDuration, tail, keys, detect);
+        return new SteadySpec(block, window, minDuration, tail, keys, detect);
     }
 
     private static ProfileSettings ReadProfiles(TableReader? t)
     {
         if (t is null)
         {
-            return new ProfileSettings(41, "auto", null, null);
+            return new ProfileSettings(41, VelocityProfileModel.Auto, null, null);
         }
         var points = t.Integer("points", min: 3, max: MaxRadialPoints) ?? 41;
-        var model = t.Choice("velocity_model", VelocityModels, "auto");
+        var model = t.Choice("velocity_model", RigChoices.VelocityModels, VelocityProfileModel.Auto);
         var intensity = t.Quantity("turbulence_intensity", Dimension.Dimensionless, minSi: 0, maxSi: 1);
         var length = t.Quantity("length_scale", Dimension.Length, minSi: 0);
         t.RejectUnknownKeys();

@@ -1,3 +1,6 @@
+using BcPrep.Calibration;
+using BcPrep.Uncertainty;
+
 namespace BcPrep.Rig;
 
 /// <summary>
@@ -20,7 +23,7 @@ public sealed record TableSensor(string RawUnit, string Unit, Affine RawToSi, Af
     : SensorSpec(RawUnit, Unit, RawToSi, UnitToSi);
 
 /// <summary>Thermocouple emf (raw) to temperature by the NIST ITS-90 functions, with cold-junction compensation.</summary>
-public sealed record ThermocoupleSensor(string RawUnit, Affine RawToSi, string Type, string? ColdJunctionChannel, double? ColdJunctionK, string? ToleranceClass)
+public sealed record ThermocoupleSensor(string RawUnit, Affine RawToSi, ThermocoupleType Type, string? ColdJunctionChannel, double? ColdJunctionK, string? ToleranceClass)
     : SensorSpec(RawUnit, "K", RawToSi, Affine.Identity);
 
 /// <summary>Platinum RTD resistance (raw) to temperature by IEC 60751 Callendar–Van Dusen.</summary>
@@ -48,7 +51,7 @@ public sealed record UncertaintyTerm(
     UncertaintyTermKind Kind,
     double ValueSi,
     double CoverageFactor,
-    string Distribution,
+    DistributionKind Distribution,
     double DegreesOfFreedom,
     string Source,
     string? ToleranceClass);

@@ -53,6 +53,14 @@ public sealed class TableReader
 
     public string Choice(string key, IReadOnlyList<string> allowed, string fallback) => TryChoice(key, allowed, fallback) ?? fallback;
 
+    /// <summary>The value of the chosen word, the fallback when the key is absent, or the fallback (problem recorded) when it is not allowed.</summary>
+    public T Choice<T>(string key, RigSpelling<T> spelling, T fallback)
+        where T : struct, Enum
+    {
+        ArgumentNullException.ThrowIfNull(spelling);
+        return TryChoice(key, spelling.Words, spelling.WordOf(fallback)) is { } word ? spelling.ValueOf(word) : fallback;
+    }
+
     /// <summary>The chosen word, the fallback when the key is absent, or null (problem recorded) when it is not allowed.</summary>
     public string? TryChoice(string key, IReadOnlyList<string> allowed, string fallback)
     {

@@ -53,6 +53,17 @@ public static class ManifestWriter
                 WritePoint(json, day, point);
             }
             json.WriteEndArray();
+            json.WriteStartArray("failed_points");
+            foreach (var failed in day.FailedPoints)
+            {
+                json.WriteStartObject();
+                json.WriteString("id", failed.Id);
+                JsonFields.Number(json, "start_s", failed.StartS - day.DayStartS);
+                JsonFields.Number(json, "end_s", failed.EndS - day.DayStartS);
+                json.WriteString("reason", failed.Reason);
+                json.WriteEndObject();
+            }
+            json.WriteEndArray();
             JsonFields.Strings(json, "files", files);
             if (outputHashes is not null)
             {
