@@ -265,7 +265,7 @@ public static class DayProcessor
         }
         foreach (var stats in point.Channels.Values.Where(s => s.Faults.Count > 0))
         {
-            warnings.AddRange(stats.Faults.Select(f => $"channel '{stats.Channel}': {f.Kind}: {f.Evidence}"));
+            warnings.AddRange(stats.Faults.Select(f => $"channel '{stats.Channel}': {ChoiceSpelling.Name(f.Kind)}: {f.Evidence}"));
         }
         return (checks, warnings);
     }
