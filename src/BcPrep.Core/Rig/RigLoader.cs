@@ -214,7 +214,10 @@ public static class RigLoader
                     t.Report("cold_junction", "a thermocouple needs cold-junction compensation: cold_junction = \"<RTD channel id>\" or cold_junction_temperature = \"0 degC\"");
                 }
                 var tolerance = t.Choice("tolerance_class", ["1", "2", "3"], "2");
-                return rawToSi is null ? null : new ThermocoupleSensor(rawUnit, rawToSi.Value, type, cjChannel, cjFixed, t.Has("tolerance_class") ? tolerance : null);
+                return rawToSi is null ? null : new ThermocoupleSensor(rawUnit, rawToSi.Value, type, cjChannel, cjFixed, t.Has("tolerance_class") ? tolerance : null)
+                {
+                    Certificate = CertificateKeys.ReadThermocouple(t.Table("correction")),
+                };
             }
             case "rtd":
             {
@@ -222,7 +225,10 @@ public static class RigLoader
                 var rawToSi = AffineOf(t, "raw_unit", rawUnit, Dimension.Resistance);
                 var r0 = t.Quantity("r0", Dimension.Resistance, minSi: 1, maxSi: 1e5) ?? 100.0;
                 var tolerance = t.Choice("tolerance_class", ["AA", "A", "B", "C"], "B");
-                return rawToSi is null ? null : new RtdSensor(rawUnit, rawToSi.Value, r0, t.Has("tolerance_class") ? tolerance : null);
+                return rawToSi is null ? null : new RtdSensor(rawUnit, rawToSi.Value, r0, t.Has("tolerance_class") ? tolerance : null)
+                {
+                    Certificate = CertificateKeys.ReadRtd(t.Table("coefficients")),
+                };
             }
             case "direct":
             {
