@@ -27,6 +27,23 @@ public static class ExistingOutputs
     }
 
     /// <summary>
+    /// Whether the manifest lists points that failed (exit code 6 again when an up-to-date folder is not recomputed,
+    /// so that a script learns the same thing from every call); false without a readable manifest.
+    /// </summary>
+    public static bool HasFailedPoints(string outputDirectory)
+    {
+        try
+        {
+            using var document = JsonDocument.Parse(File.ReadAllBytes(Path.Combine(outputDirectory, DayOutputs.ManifestName)));
+            return document.RootElement.TryGetProperty("failed_points", out var failed) && failed.GetArrayLength() > 0;
+        }
+        catch (Exception e) when (e is JsonException or IOException or UnauthorizedAccessException or InvalidOperationException)
+        {
+            return false;
+        }
+    }
+
+    /// <summary>
     /// A cheap first test: false when the folder cannot be up to date whatever the logs hash to (no manifest, or
     /// its logs have other sizes). Only when it is true are the logs hashed before the run; otherwise hashing
     /// overlaps the processing.

@@ -14,6 +14,8 @@ public static class ExitCodes
     public const int NoSteadyPoint = 4;
     /// <summary>Outputs could not be written (nothing partial is left behind).</summary>
     public const int OutputFailure = 5;
+    /// <summary>Some operating points failed (too little of their window left after gaps); every other point was written.</summary>
+    public const int SomePointsFailed = 6;
     /// <summary>A bug in bcprep; please report it with the command line.</summary>
     public const int InternalError = 70;
 

@@ -24,7 +24,7 @@ public sealed record Problem(SourceLocation Location, string Message)
 /// Thrown by Core at the edges; the front end prints <see cref="Problems"/> and exits with the code for
 /// <see cref="Kind"/>.
 /// </summary>
-public sealed class BcPrepFailure : BcPrepDataException
+public class BcPrepFailure : BcPrepDataException
 {
     public BcPrepFailure(FailureKind kind, IReadOnlyList<Problem> problems)
         : base(string.Join(Environment.NewLine, problems))

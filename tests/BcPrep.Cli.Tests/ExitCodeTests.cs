@@ -137,6 +137,64 @@ public sealed class ExitCodeTests
     }
 
     [Fact]
+    public void Window_losing_more_than_a_quarter_to_a_gap_fails_alone_the_others_are_written_and_exit_is_6()
+    {
+        // The outlet thermocouple is blank for 200 s (3000-3200 s) inside OP1's pinned 600 s window (2970-3570 s):
+        // a third of it, beyond the documented limit of a quarter. OP2 and OP3 are untouched.
+        using var temp = new TempFolder();
+        var lines = File.ReadAllLines(SampleDay.Morning);
+        for (var row = 6000; row < 6400; row++) // 2 Hz: row k (after the header) is at k/2 s
+        {
+            var cells = lines[row + 1].Split(',');
+            cells[7] = "";
+            lines[row + 1] = string.Join(',', cells);
+        }
+        var log = temp.File("gap.csv");
+        File.WriteAllLines(log, lines);
+        var output = temp.File("out");
+
+        var run = CliRunner.Run("process", SampleDay.Rig, log, SampleDay.Afternoon, "--out", output);
+
+        Assert.Equal(6, run.ExitCode);
+        Assert.Equal(ExitCodes.SomePointsFailed, run.ExitCode);
+        Assert.Equal("", run.Out);
+        Assert.Contains("OP1: point failed and was not written", run.Error, StringComparison.Ordinal);
+        Assert.False(Directory.Exists(Path.Combine(output, "points", "OP1")));
+        Assert.True(Directory.Exists(Path.Combine(output, "points", "OP2")));
+        Assert.True(Directory.Exists(Path.Combine(output, "points", "OP3")));
+        using var manifest = System.Text.Json.JsonDocument.Parse(File.ReadAllBytes(Path.Combine(output, "manifest.json")));
+        var failed = Assert.Single(manifest.RootElement.GetProperty("failed_points").EnumerateArray());
+        Assert.Equal("OP1", failed.GetProperty("id").GetString());
+        Assert.Contains("t_out", failed.GetProperty("reason").GetString(), StringComparison.Ordinal);
+
+        // Up to date, not recomputed: a script still learns that a point failed.
+        Assert.Equal(ExitCodes.SomePointsFailed, CliRunner.Run("process", SampleDay.Rig, log, SampleDay.Afternoon, "--out", output).ExitCode);
+    }
+
+    [Fact]
+    public void Short_gap_too_long_to_bridge_inside_a_window_is_reported_not_fatal()
+    {
+        // 5 s of blank outlet-thermocouple cells inside OP1: left open, the samples around it kept, exit 0.
+        using var temp = new TempFolder();
+        var lines = File.ReadAllLines(SampleDay.Morning);
+        for (var row = 6000; row < 6010; row++)
+        {
+            var cells = lines[row + 1].Split(',');
+            cells[7] = "";
+            lines[row + 1] = string.Join(',', cells);
+        }
+        var log = temp.File("gap.csv");
+        File.WriteAllLines(log, lines);
+        var output = temp.File("out");
+
+        var run = CliRunner.Run("process", SampleDay.Rig, log, SampleDay.Afternoon, "--out", output);
+
+        Assert.Equal(ExitCodes.Success, run.ExitCode);
+        var summary = File.ReadAllLines(Path.Combine(output, "summary.csv")).First(l => l.StartsWith("OP1", StringComparison.Ordinal));
+        Assert.Contains("gaps 1 (5.5 s)", summary, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Output_folder_under_a_regular_file_exits_5()
     {
         using var temp = new TempFolder();

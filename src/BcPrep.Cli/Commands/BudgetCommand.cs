@@ -13,7 +13,7 @@ public static class BudgetCommand
         var logs = RigArguments.Logs();
         var reduction = ReductionOptions.WithoutMonteCarlo();
         var point = PointSelection.Option();
-        var quantity = new Option<string?>("--quantity") { Description = "Only this quantity (e.g. inlet.temperature, or a profile point inlet.velocity.3)." };
+        var quantity = new Option<string?>("--quantity") { Description = "Only this quantity (e.g. inlet.temperature, or a profile point inlet.velocity.3).", HelpName = "NAME" };
         var command = new Command("budget", "Write every input's sensitivity, contribution and share of variance in each quantity as CSV to standard output.\n" +
                                             "Example: bcprep budget sample-logs/marten-rig.toml sample-logs/*.csv --point OP1 --quantity inlet.temperature")
         {

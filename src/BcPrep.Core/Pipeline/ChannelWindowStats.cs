@@ -30,8 +30,11 @@ public sealed record ChannelWindowStats(
 public static class WindowStatistics
 {
     /// <summary>
-    /// Bridges gaps up to <see cref="ConditioningSettings.MaxBridgeS"/> (a longer gap inside the window fails it with
-    /// <see cref="FailureKind.InputData"/>; missing cells at the window edges are dropped and reported), removes
+    /// Bridges gaps up to <see cref="ConditioningSettings.MaxBridgeS"/>. A longer gap inside the window is left open:
+    /// the statistics use the samples on both sides of it (the mean and Type A over the segments, with the reduced
+    /// sample count), and the gap is reported; only when such gaps take more than <see cref="LostFractionLimit"/> of
+    /// the window does it fail, with <see cref="WindowLostFailure"/>. Missing cells at the window edges are dropped
+    /// and reported. Then it removes
     /// spikes with the Hampel filter of <paramref name="settings"/> (floor of the robust σ =
     /// <see cref="ConditioningSettings.HampelScaleFloor"/>), screens the de-spiked samples for sensor faults with
     /// <paramref name="limits"/>, and takes the mean and Type A uncertainty of the de-spiked, unfiltered samples.
@@ -50,11 +53,12 @@ public static class WindowStatistics
         }
         var bridged = GapBridging.Bridge(timesS, values, settings.MaxBridgeS);
         var interior = bridged.Report.Unbridged.Where(g => !g.AtRecordEdge).ToList();
-        if (interior.Count > 0)
+        var lostS = interior.Sum(g => g.DurationS);
+        if (window.DurationS > 0 && lostS > LostFractionLimit * window.DurationS)
         {
             var gap = interior.OrderByDescending(g => g.DurationS).First();
-            throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel), string.Create(System.Globalization.CultureInfo.InvariantCulture,
-                $"channel '{channel}' has a {gap.DurationS:F1} s gap ({gap.StartS - dayStartS:F1}–{gap.EndS - dayStartS:F1} s since the first sample of the day) inside window '{window.Id}', longer than the {settings.MaxBridgeS:G} s that may be bridged"));
+            throw new WindowLostFailure(new SourceLocation("(logs)", Key: channel), string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"channel '{channel}' lost {lostS:F1} s of window '{window.Id}' ({window.StartS - dayStartS:F1}–{window.EndS - dayStartS:F1} s since the first sample of the day) to {interior.Count} gap(s) longer than the {settings.MaxBridgeS:G} s that may be bridged, the longest {gap.DurationS:F1} s from {gap.StartS - dayStartS:F1} s; more than {LostFractionLimit:P0} of the window is too little left to stand for it"));
         }
         var (keptTimes, kept) = FiniteSamples(bridged.TimesS, bridged.Values);
         var despiked = HampelFilter.Apply(kept, settings.HampelHalfWindow, settings.HampelSigmas, settings.HampelScaleFloor);
@@ -63,16 +67,24 @@ public static class WindowStatistics
         var typeA = WindowMean.Evaluate(clean);
         var (min, max) = Range(clean);
         var report = new WindowConditioning(
-            bridged.Report.Bridged.ToList(), bridged.Report.Unbridged.ToList(),
+            bridged.Report.Bridged.ToList(), bridged.Report.Unbridged.Where(g => g.AtRecordEdge).ToList(),
             despiked.ReplacedIndices.Select(i => keptTimes[i]).ToList(),
             faults.Select(f => new FaultVerdict(f, FaultSeverity.Warning, f.FirstIndex >= 0 && f.FirstIndex < keptTimes.Length ? keptTimes[f.FirstIndex] : double.NaN)).ToList());
         return new ChannelWindowStats(
             channel, window.Id, clean.Length, values.Length - finite, bridged.Report.InterpolatedSamples,
             despiked.ReplacedIndices.Count, typeA.Mean, typeA.StandardDeviation, min, max, typeA, faults)
         {
-            Conditioning = report,
+            Conditioning = report with { UnbridgedGaps = interior },
         };
     }
+
+    /// <summary>
+    /// The largest part of a window (0.25) that gaps too long to bridge may take before the point fails. With three
+    /// quarters left, the mean still stands for the whole window: the plateau is steady, so the missing quarter
+    /// holds the same value, and the Type A uncertainty, taken over the samples on both sides of each gap, already
+    /// carries the smaller sample count. Common practice, no standard behind the number.
+    /// </summary>
+    public const double LostFractionLimit = 0.25;
 
     private static int FiniteCount(double[] values)
     {

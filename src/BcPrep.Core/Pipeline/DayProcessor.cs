@@ -16,9 +16,9 @@ namespace BcPrep.Pipeline;
 /// </summary>
 public static class DayProcessor
 {
-    // Accuracy of the Colebrook friction factor used as a 95 % bound in the pressure-drop check (from memory:
-    // commonly quoted ±5 % against smooth- and rough-pipe data).
-    public const double FrictionCorrelationAccuracy = 0.05;
+    // Accuracy of the Colebrook friction factor used as a 95 % bound in the pressure-drop check: ±15 %, the accuracy
+    // usually quoted for the Moody chart (White, Fluid Mechanics; from memory). See Physics/ModelForm.
+    public const double FrictionCorrelationAccuracy = ModelForm.FrictionCorrelationAccuracy;
 
     public static DayResult Process(RigDescription rig, IReadOnlyList<LogInput> logs, ProcessOptions options)
     {
@@ -42,7 +42,8 @@ public static class DayProcessor
             : null;
         DayScan.Run(rig, plan, converters, [firstPass, extent], (IBlockSink?)live ?? feed.BlockSink, options.Progress, index);
         feed.Complete();
-        book.DrainInto(stats);
+        var lost = new Dictionary<string, Problem>(StringComparer.Ordinal);
+        book.DrainInto(stats, lost: lost);
         var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, extent.FirstS, extent.LastS), options.AllowExpired);
 
         var series = WindowFinder.Series(rig, blocks);
@@ -76,9 +77,9 @@ public static class DayProcessor
                 fromKeptRows.Add(window);
             }
         }
-        liveBook.DrainInto(stats, fromKeptRows.Contains);
+        liveBook.DrainInto(stats, fromKeptRows.Contains, lost);
         secondRead.Complete();
-        book.DrainInto(stats);
+        book.DrainInto(stats, lost: lost);
         var dayWarnings = new List<string>();
         if (detection is { Accepted.Count: 0 })
         {
@@ -90,13 +91,21 @@ public static class DayProcessor
         }
 
         var tareStats = TareStats(tareWindows, stats);
-        IReadOnlyList<PointResult> points = InOrder(windowPlan.Points, p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, options));
+        // A point whose window lost too much to gaps fails alone; the others are reduced and written.
+        var failed = windowPlan.Points.Where(p => lost.ContainsKey(p.Window.Id))
+            .Select(p => new FailedPoint(p.Window.Id, p.Window.StartS, p.Window.EndS, lost[p.Window.Id].Message)).ToList();
+        var reduced = windowPlan.Points.Where(p => !lost.ContainsKey(p.Window.Id)).ToList();
+        if (reduced.Count == 0)
+        {
+            throw new BcPrepFailure(FailureKind.InputData, failed.Select(f => lost[f.Id]).ToList());
+        }
+        IReadOnlyList<PointResult> points = InOrder(reduced, p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, options));
         MatrixReport? matrix = null;
         if (options.Matrix is not null)
         {
             (points, matrix) = MatrixNaming.Apply(options.Matrix, points);
         }
-        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = secondRead.Count };
+        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = secondRead.Count };
     }
 
     /// <summary>
@@ -160,6 +169,11 @@ public static class DayProcessor
             try
             {
                 return FaultPolicy.Evaluate(rig, channel, window, times, values, dayStartS);
+            }
+            catch (WindowLostFailure failure)
+            {
+                // Still a failure of this point alone, now pointing at the window in the rig file.
+                throw new WindowLostFailure(pinnedAt with { Key = $"{pinnedAt.Key}, channel '{channel}'" }, failure.Problems[0].Message);
             }
             catch (BcPrepFailure failure)
             {
@@ -245,7 +259,7 @@ public static class DayProcessor
         {
             var tolerance = Math.Sqrt((measured.ExpandedUncertainty * measured.ExpandedUncertainty) + Math.Pow(FrictionCorrelationAccuracy * expected.Estimate, 2) + (expected.ExpandedUncertainty * expected.ExpandedUncertainty));
             checks.Add(new CheckResult("pressure drop", Math.Abs(measured.Estimate - expected.Estimate) <= tolerance, measured.Estimate - expected.Estimate, tolerance, "Pa",
-                "measured minus (Colebrook friction + acceleration), within the combined expanded uncertainty and ±5 % correlation accuracy"));
+                "measured minus (Colebrook friction + acceleration), within the combined expanded uncertainty and ±15 % correlation accuracy (Moody chart, White)"));
         }
         var re = point.Nominal.Reynolds;
         var regime = re < FrictionFactor.LaminarLimitReynolds ? "laminar" : re < 4000 ? "transitional" : "turbulent";
@@ -261,7 +275,7 @@ public static class DayProcessor
         }
         foreach (var stats in point.Channels.Values.Where(s => s.Faults.Count > 0))
         {
-            warnings.AddRange(stats.Faults.Select(f => $"channel '{stats.Channel}': {f.Kind}: {f.Evidence}"));
+            warnings.AddRange(stats.Faults.Select(f => $"channel '{stats.Channel}': {ChoiceSpelling.Name(f.Kind)}: {f.Evidence}"));
         }
         return (checks, warnings);
     }

@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using System.Globalization;
 using BcPrep.Calibration;
+using BcPrep.Physics;
 using BcPrep.Profiles;
 using BcPrep.Rig;
 using BcPrep.Uncertainty;
@@ -14,10 +15,10 @@ namespace BcPrep.Pipeline;
 /// </summary>
 public sealed partial class PointModel
 {
-    // Property-model uncertainty, rectangular half-widths: Sutherland's law against Incropera Table A.4 deviates by
-    // 0.2–0.7 % (reference sheet §7, table from memory); ideal-gas cp against 1-atm tables by 0.2–0.4 %.
+    // Property-model uncertainty, rectangular half-widths below 380 K; see Physics/ModelForm for their sources and
+    // for how they grow with temperature.
     public const double ViscosityModelHalfWidth = 0.007;
-    public const double CpModelHalfWidth = 0.004;
+    public const double CpModelHalfWidth = ModelForm.CpHalfWidth;
 
     private readonly List<UncertaintyInput> _inputs = [];
     private readonly Dictionary<string, ChannelInputs> _channels = new(StringComparer.Ordinal);
@@ -26,6 +27,7 @@ public sealed partial class PointModel
     private int _loss;
     private int _viscosityFactor;
     private int _cpFactor;
+    private int _turbulenceFactor = -1;
     private Func<double[], double> _inletPressure = null!;
     private Func<double[], double> _outletPressure = null!;
     private Func<double[], double> _inletTemperature = null!;
@@ -51,7 +53,7 @@ public sealed partial class PointModel
     {
         var model = new PointModel(SettingsOf(rig));
         model.AddChannelInputs(rig, window, tares);
-        model.AddModelInputs(rig);
+        model.AddModelInputs(rig, window);
         model.ResolveRoles(rig);
         model.DefineOutputs();
         return model;
@@ -102,6 +104,17 @@ public sealed partial class PointModel
                 inputs.AddTerm(Add(new UncertaintyInput($"{channel.Id}: {term.Source}", 0.0, u, term.DegreesOfFreedom,
                     TypeBTerms.Distribution(term), EvaluationType.TypeB, term.Source)), 1.0);
             }
+            if (channel.Sensor is ThermocoupleSensor thermocouple)
+            {
+                AddInverseCorrection(inputs, channel.Id, thermocouple, stats, window);
+            }
+            if (channel.Sensor is RtdSensor { Certificate: { } rtdCertificate })
+            {
+                // The certificate's A, B, C are already in the conversion; its uncertainty enters here.
+                inputs.AddTerm(Add(new UncertaintyInput($"{channel.Id}: calibration certificate {rtdCertificate.Certificate}", 0.0,
+                    rtdCertificate.ExpandedUncertaintyK / rtdCertificate.CoverageFactor, double.PositiveInfinity, DistributionKind.Normal, EvaluationType.TypeB,
+                    $"certificate {rtdCertificate.Certificate}: own Callendar-Van Dusen coefficients, expanded uncertainty with k = {rtdCertificate.CoverageFactor.ToString(CultureInfo.InvariantCulture)}")), 1.0);
+            }
             if (channel.Sensor is TableSensor table)
             {
                 var fit = ChannelConversion.Fit(table);
@@ -112,6 +125,36 @@ public sealed partial class PointModel
             _channels[channel.Id] = inputs;
         }
         CoupleColdJunctions(rig, window);
+    }
+
+    /// <summary>
+    /// Thermocouples are inverted exactly by default: the samples go through the NIST inverse polynomial (fast,
+    /// vectorised), and the window mean is moved onto the exact inverse of the reference function
+    /// (<see cref="InversePolynomialCorrection"/>). The correction is an input of its own, so the budget shows it.
+    /// </summary>
+    private void AddInverseCorrection(ChannelInputs inputs, string channelId, ThermocoupleSensor thermocouple, ChannelWindowStats stats,
+        IReadOnlyDictionary<string, ChannelWindowStats> window)
+    {
+        if (!double.IsFinite(stats.TypeA.Mean))
+        {
+            return;
+        }
+        var type = thermocouple.Type;
+        var fix = InversePolynomialCorrection.ForWindow(type, stats.TypeA.Mean, stats.StandardDeviation);
+        inputs.AddTerm(Add(new UncertaintyInput($"{channelId}: ITS-90 inverse polynomial correction", fix.CorrectionK,
+            TypeB.FromRectangularHalfWidth(fix.RemainderHalfWidthK), double.PositiveInfinity, DistributionKind.Rectangular, EvaluationType.TypeB,
+            "exact inverse of the NIST ITS-90 reference function at the window mean, less the inverse polynomial's value")), 1.0);
+        if (thermocouple.Certificate is not { } certificate)
+        {
+            return;
+        }
+        var referenceK = stats.TypeA.Mean + fix.CorrectionK;
+        var junctionK = thermocouple.ColdJunctionK
+            ?? (thermocouple.ColdJunctionChannel is { } cj && window.TryGetValue(cj, out var junction) ? junction.TypeA.Mean : Its90Thermocouple.KelvinOffset);
+        var correction = certificate.CorrectionK(type, referenceK, junctionK);
+        inputs.AddTerm(Add(new UncertaintyInput($"{channelId}: certificate correction ({certificate.Certificate})", correction,
+            certificate.StandardUncertaintyK(type, referenceK + correction), double.PositiveInfinity, DistributionKind.Normal, EvaluationType.TypeB,
+            $"certificate {certificate.Certificate}: {certificate.Kind.ToString().ToLowerInvariant()} correction, expanded uncertainty with k = {certificate.CoverageFactor.ToString(CultureInfo.InvariantCulture)}")), 1.0);
     }
 
     /// <summary>A cold-junction sensor's error enters each thermocouple scaled by S(T_cj)/S(T_hot) (emf addition).</summary>
@@ -131,15 +174,30 @@ public sealed partial class PointModel
         }
     }
 
-    private void AddModelInputs(RigDescription rig)
+    private void AddModelInputs(RigDescription rig, IReadOnlyDictionary<string, ChannelWindowStats> window)
     {
         _diameter = Add(new UncertaintyInput("duct inner diameter", rig.Duct.InnerDiameterM, rig.Duct.InnerDiameterStdM, double.PositiveInfinity,
             DistributionKind.Normal, EvaluationType.TypeB, "rig file: duct.inner_diameter_uncertainty"));
         _loss = Add(LossFractionInput(rig.Duct.HeaterLossFraction, rig.Duct.HeaterLossFractionStd));
-        _viscosityFactor = Add(new UncertaintyInput("viscosity model (Sutherland)", 1.0, TypeB.FromRectangularHalfWidth(ViscosityModelHalfWidth), double.PositiveInfinity,
-            DistributionKind.Rectangular, EvaluationType.TypeB, "Sutherland's law against handbook tables, ±0.7 %"));
-        _cpFactor = Add(new UncertaintyInput("cp model (ideal gas)", 1.0, TypeB.FromRectangularHalfWidth(CpModelHalfWidth), double.PositiveInfinity,
-            DistributionKind.Rectangular, EvaluationType.TypeB, "ideal-gas cp against 1-atm tables, ±0.4 %"));
+
+        // The property models are judged where the air is: the hottest and the mean of the bulk-temperature means.
+        var bulk = rig.WithRole(ChannelRole.BulkTemperature).Select(c => window.TryGetValue(c.Id, out var w) ? w.TypeA.Mean : double.NaN)
+            .Where(double.IsFinite).DefaultIfEmpty(293.15).ToList();
+        var hottestK = bulk.Max();
+        var viscosityHalfWidth = ModelForm.ViscosityHalfWidth(hottestK);
+        _viscosityFactor = Add(new UncertaintyInput("viscosity model (Sutherland)", 1.0, TypeB.FromRectangularHalfWidth(viscosityHalfWidth), double.PositiveInfinity,
+            DistributionKind.Rectangular, EvaluationType.TypeB, string.Create(CultureInfo.InvariantCulture,
+                $"Sutherland's law against Lemmon & Jacobsen (2004): ±{viscosityHalfWidth * 100:0.##} % at {hottestK:F0} K (±0.7 % holds below 380 K)")));
+        var meanK = bulk.Average();
+        _cpFactor = Add(new UncertaintyInput("cp model (ideal gas, corrected to 1-atm tables)", ModelForm.CpCorrection(meanK), TypeB.FromRectangularHalfWidth(CpModelHalfWidth), double.PositiveInfinity,
+            DistributionKind.Rectangular, EvaluationType.TypeB, string.Create(CultureInfo.InvariantCulture,
+                $"ideal-gas cp is biased low: factor {ModelForm.CpCorrection(meanK):F4} at {meanK:F0} K from 1-atm tables (Incropera A.4, Çengel A-15), ±0.15 %")));
+        if (rig.Profiles.TurbulenceIntensity is null)
+        {
+            _turbulenceFactor = Add(new UncertaintyInput("turbulence intensity model (0.16 Re^-1/8)", 1.0, TypeB.FromRectangularHalfWidth(ModelForm.TurbulenceIntensityHalfWidth),
+                double.PositiveInfinity, DistributionKind.Rectangular, EvaluationType.TypeB,
+                "core-flow estimate against area-averaged pipe-flow fits (Russo & Basse 2016): about a factor of 2 apart, ±50 %"));
+        }
     }
 
     /// <summary>

@@ -57,6 +57,9 @@ public sealed record DayResult(
     SteadyDetectionResult? Detection,
     IReadOnlyList<string> Warnings)
 {
+    /// <summary>Operating points that failed alone (too little of the window left after its gaps); the others are in <see cref="Points"/>.</summary>
+    public IReadOnlyList<FailedPoint> FailedPoints { get; init; } = [];
+
     /// <summary>Every channel's certificate and due date, checked against the test day's dates.</summary>
     public Lab.CalibrationReport? Calibration { get; init; }
 

@@ -23,4 +23,10 @@ public sealed record WindowConditioning(
     IReadOnlyList<DataGap> BridgedGaps,
     IReadOnlyList<DataGap> OpenEdgeGaps,
     IReadOnlyList<double> SpikeTimesS,
-    IReadOnlyList<FaultVerdict> Faults);
+    IReadOnlyList<FaultVerdict> Faults)
+{
+    /// <summary>
+    /// Gaps inside the window longer than the bridge limit, left open: the statistics join the samples on both sides.
+    /// </summary>
+    public IReadOnlyList<DataGap> UnbridgedGaps { get; init; } = [];
+}

@@ -3,14 +3,15 @@ using System.Globalization;
 namespace BcPrep.Pipeline;
 
 /// <summary>
-/// A window pinned in the rig file must be covered by samples from its start to its end. A window that runs past
-/// the end of the logs, or over a stretch of missing rows, would otherwise be averaged over what happens to be
-/// there: a different window from the one asked for, reported as if it were that one.
+/// A window pinned in the rig file must be covered by samples at its start and at its end. A window that runs past
+/// the end of the logs would otherwise be averaged over what happens to be there: a different window from the one
+/// asked for, reported as if it were that one. Holes inside the window are the statistics' to judge
+/// (<see cref="WindowStatistics"/>): they are reported, and only a window that loses too much to them fails, alone.
 /// </summary>
 public static class WindowCoverage
 {
     /// <summary>
-    /// Allowed hole (s) at either edge or between two samples: the larger of <paramref name="maxBridgeS"/> (the gap
+    /// Allowed hole (s) at either edge: the larger of <paramref name="maxBridgeS"/> (the gap
     /// the statistics would bridge) and two median sample intervals (so slow loggers are not refused for their
     /// own rate). Throws <see cref="BcPrepFailure"/> (input data) at <paramref name="location"/>, naming the hole.
     /// Empty input is the caller's to report.
@@ -35,13 +36,6 @@ public static class WindowCoverage
     private static (double Start, double End) LargestHole(TimeWindow window, IReadOnlyList<double> timesS)
     {
         var best = (Start: window.StartS, End: timesS[0]);
-        for (var i = 1; i < timesS.Count; i++)
-        {
-            if (timesS[i] - timesS[i - 1] > best.End - best.Start)
-            {
-                best = (timesS[i - 1], timesS[i]);
-            }
-        }
         if (window.EndS - timesS[^1] > best.End - best.Start)
         {
             best = (timesS[^1], window.EndS);

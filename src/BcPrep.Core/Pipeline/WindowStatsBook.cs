@@ -18,7 +18,14 @@ internal sealed class WindowStatsBook
     /// Waits for every window handed in so far (or only those <paramref name="keep"/> accepts; the others are
     /// dropped, failed or not) and files the results into <paramref name="into"/>.
     /// </summary>
-    public void DrainInto(Dictionary<string, Dictionary<string, ChannelWindowStats>> into, Func<TimeWindow, bool>? keep = null)
+    /// <param name="into">Receives the statistics, by window id and channel.</param>
+    /// <param name="keep">Which windows to keep (null: all).</param>
+    /// <param name="lost">
+    /// When given, an operating-point window that lost too much to gaps (<see cref="WindowLostFailure"/>) is filed
+    /// here (window id → the problem, the first channel's in hand-in order) instead of failing the day. A tare window's
+    /// loss always fails the day: every point depends on it.
+    /// </param>
+    public void DrainInto(Dictionary<string, Dictionary<string, ChannelWindowStats>> into, Func<TimeWindow, bool>? keep = null, Dictionary<string, Problem>? lost = null)
     {
         if (keep is not null)
         {
@@ -36,7 +43,13 @@ internal sealed class WindowStatsBook
         {
             if (work.IsFaulted)
             {
-                ExceptionDispatchInfo.Capture(work.Exception!.InnerException!).Throw();
+                var failure = work.Exception!.InnerException!;
+                if (lost is not null && failure is WindowLostFailure wl && !window.Id.StartsWith("tare:", StringComparison.Ordinal))
+                {
+                    lost.TryAdd(window.Id, wl.Problems[0]);
+                    continue;
+                }
+                ExceptionDispatchInfo.Capture(failure).Throw();
             }
             if (!into.TryGetValue(window.Id, out var byChannel))
             {

@@ -63,7 +63,7 @@ public static class BoundaryTables
             "r [m]", "axial_velocity [m/s]", "u(axial_velocity) [m/s]", "temperature [K]", "u(temperature) [K]",
             "k [m2/s2]", "u(k) [m2/s2]", "epsilon [m2/s3]", "u(epsilon) [m2/s3]", "omega [1/s]", "u(omega) [1/s]",
         ])
-            .Comment($"BcPrep inlet profile; point {point.Id}; velocity model {velocity.ModelUsed}; profile integrates to the measured mass flow (raw grid error {velocity.RawDiscretisationRelativeError.ToString("E2", CultureInfo.InvariantCulture)})")
+            .Comment($"BcPrep inlet profile; point {point.Id}; velocity model {ChoiceSpelling.Name(velocity.ModelUsed)}; profile integrates to the measured mass flow (raw grid error {velocity.RawDiscretisationRelativeError.ToString("E2", CultureInfo.InvariantCulture)})")
             .Comment(rake is null
                 ? "temperature uniform: the inlet bulk temperature"
                 : "temperature interpolated linearly from the radial rake, nearest rake value held beyond its ends" + (rake.ClampedPointCount > 0 ? $" ({rake.ClampedPointCount} points)" : ""))

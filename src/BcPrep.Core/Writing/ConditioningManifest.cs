@@ -50,6 +50,7 @@ public static class ConditioningManifest
         json.WriteStartObject("conditioning");
         WriteGaps(json, "bridged_gaps", c.BridgedGaps, dayStartS);
         WriteGaps(json, "open_edge_gaps", c.OpenEdgeGaps, dayStartS);
+        WriteGaps(json, "unbridged_gaps", c.UnbridgedGaps, dayStartS);
         json.WriteNumber("spikes_replaced", c.SpikeTimesS.Count);
         json.WriteStartArray("first_spike_times_s");
         foreach (var t in c.SpikeTimesS.Take(ListedSpikeTimes))
@@ -74,7 +75,10 @@ public static class ConditioningManifest
         json.WriteEndObject();
     }
 
-    /// <summary>Compact summary cell of a point: "bridged B; spikes S; faults F" summed over its channels.</summary>
+    /// <summary>
+    /// Compact summary cell of a point: "bridged B; spikes S; faults F" summed over its channels, and
+    /// "; gaps G (L s)" when gaps too long to bridge were left open inside the window (count and seconds lost).
+    /// </summary>
     public static string SummaryCell(PointResult point)
     {
         ArgumentNullException.ThrowIfNull(point);
@@ -82,7 +86,9 @@ public static class ConditioningManifest
         var bridged = channels.Sum(s => s.BridgedSamples);
         var spikes = channels.Sum(s => s.SpikesReplaced);
         var faults = channels.Sum(s => s.Faults.Count);
-        return string.Create(CultureInfo.InvariantCulture, $"bridged {bridged}; spikes {spikes}; faults {faults}");
+        var open = channels.SelectMany(s => s.Conditioning?.UnbridgedGaps ?? []).ToList();
+        var gaps = open.Count == 0 ? "" : string.Create(CultureInfo.InvariantCulture, $"; gaps {open.Count} ({open.Sum(g => g.DurationS):F1} s)");
+        return string.Create(CultureInfo.InvariantCulture, $"bridged {bridged}; spikes {spikes}; faults {faults}{gaps}");
     }
 
     private static void WriteGaps(Utf8JsonWriter json, string name, IReadOnlyList<DataGap> gaps, double dayStartS)

@@ -53,6 +53,17 @@ public static class ManifestWriter
                 WritePoint(json, day, point);
             }
             json.WriteEndArray();
+            json.WriteStartArray("failed_points");
+            foreach (var failed in day.FailedPoints)
+            {
+                json.WriteStartObject();
+                json.WriteString("id", failed.Id);
+                JsonFields.Number(json, "start_s", failed.StartS - day.DayStartS);
+                JsonFields.Number(json, "end_s", failed.EndS - day.DayStartS);
+                json.WriteString("reason", failed.Reason);
+                json.WriteEndObject();
+            }
+            json.WriteEndArray();
             JsonFields.Strings(json, "files", files);
             if (outputHashes is not null)
             {
@@ -130,7 +141,7 @@ public static class ManifestWriter
             JsonFields.Number(json, "type_a_standard_uncertainty", stats.TypeA.StandardUncertainty);
             JsonFields.Number(json, "effective_samples", stats.TypeA.EffectiveSampleCount);
             JsonFields.Number(json, "naive_standard_uncertainty", stats.TypeA.NaiveStandardUncertainty);
-            JsonFields.Strings(json, "faults", stats.Faults.Select(f => $"{f.Kind}: {f.Evidence}").ToList());
+            JsonFields.Strings(json, "faults", stats.Faults.Select(f => $"{ChoiceSpelling.Name(f.Kind)}: {f.Evidence}").ToList());
             ConditioningManifest.WriteChannel(json, stats, day.DayStartS);
             json.WriteEndObject();
         }

@@ -103,14 +103,33 @@ public class FaultPolicyTests
     }
 
     [Fact]
-    public void Gap_longer_than_max_bridge_inside_a_window_fails_the_point()
+    public void Gap_longer_than_max_bridge_inside_a_window_is_left_open_reported_and_the_samples_around_it_kept()
     {
         var (t, x) = Series(1200.0);
         for (var i = 200; i < 210; i++)
         {
             x[i] = double.NaN; // 5.5 s between valid samples > 2 s
         }
-        var failure = Assert.Throws<BcPrepFailure>(() => FaultPolicy.Evaluate(Rig(), "p_in", Window, t, x, DayStartS));
-        Assert.Contains("longer than the 2 s that may be bridged", failure.Problems[0].Message, StringComparison.Ordinal);
+        var stats = FaultPolicy.Evaluate(Rig(), "p_in", Window, t, x, DayStartS);
+        var gap = Assert.Single(stats.Conditioning!.UnbridgedGaps);
+        Assert.Equal(DayStartS + 60.0 + 99.5, gap.StartS, 12);
+        Assert.Equal(DayStartS + 60.0 + 105.0, gap.EndS, 12);
+        Assert.Empty(stats.Conditioning.OpenEdgeGaps);
+        Assert.Equal(601 - 10, stats.SampleCount); // the reduced sample count: both segments, nothing invented
+        var kept = x.Where(double.IsFinite).ToArray();
+        Assert.Equal(kept.Average(), stats.Mean, 9); // the mean of the samples on both sides
+    }
+
+    [Fact]
+    public void Gaps_taking_more_than_a_quarter_of_the_window_fail_the_point_alone()
+    {
+        var (t, x) = Series(1200.0);
+        for (var i = 100; i < 260; i++)
+        {
+            x[i] = double.NaN; // 80.5 s of a 300 s window: more than 25 % (the documented rule)
+        }
+        var failure = Assert.Throws<WindowLostFailure>(() => FaultPolicy.Evaluate(Rig(), "p_in", Window, t, x, DayStartS));
+        Assert.Equal(FailureKind.InputData, failure.Kind);
+        Assert.Contains("more than 25 % of the window", failure.Problems[0].Message, StringComparison.Ordinal);
     }
 }
