@@ -25,6 +25,12 @@ public sealed class ChannelInputs
 
     public int? TareIndex { get; set; }
 
+    /// <summary>The end-of-day tare input, when the channel is tared at both ends of the day.</summary>
+    public int? EndTareIndex { get; set; }
+
+    /// <summary>Weight of the end tare at the point's time (0 = the start tare alone, 1 = the end tare alone).</summary>
+    public double EndTareWeight { get; set; }
+
     public IReadOnlyList<(int Index, double Coefficient)> Terms => _terms;
 
     public void AddTerm(int index, double coefficient) => _terms.Add((index, coefficient));
@@ -34,7 +40,9 @@ public sealed class ChannelInputs
         var value = x[MeanIndex];
         if (TareIndex is { } tare)
         {
-            value -= x[tare];
+            value -= EndTareIndex is { } end
+                ? ((1.0 - EndTareWeight) * x[tare]) + (EndTareWeight * x[end])
+                : x[tare];
         }
         foreach (var (index, coefficient) in _terms)
         {

@@ -91,6 +91,7 @@ public static class DayProcessor
         }
 
         var tareStats = TareStats(tareWindows, stats);
+        var endTares = EndTares(tareWindows, stats);
         // A point whose window lost too much to gaps fails alone; the others are reduced and written.
         var failed = windowPlan.Points.Where(p => lost.ContainsKey(p.Window.Id))
             .Select(p => new FailedPoint(p.Window.Id, p.Window.StartS, p.Window.EndS, lost[p.Window.Id].Message)).ToList();
@@ -99,7 +100,7 @@ public static class DayProcessor
         {
             throw new BcPrepFailure(FailureKind.InputData, failed.Select(f => lost[f.Id]).ToList());
         }
-        IReadOnlyList<PointResult> points = InOrder(reduced, p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, options));
+        IReadOnlyList<PointResult> points = InOrder(reduced, p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, endTares, options));
         MatrixReport? matrix = null;
         if (options.Matrix is not null)
         {
@@ -143,10 +144,28 @@ public static class DayProcessor
 
     public static double Resolve(TimeBound bound, double dayStartS) => bound.IsAbsolute ? bound.Seconds : dayStartS + bound.Seconds;
 
+    private const string EndTarePrefix = "tare-end:";
+
     private static List<TimeWindow> TareWindows(RigDescription rig, double dayStartS) =>
-        rig.Channels.Where(c => c.Tare is not null)
-            .Select(c => TimeWindow.Tare(c.Id, Resolve(c.Tare!.Start, dayStartS), Resolve(c.Tare.End, dayStartS)))
-            .ToList();
+        [.. rig.Channels.Where(c => c.Tare is not null)
+            .Select(c => TimeWindow.Tare(c.Id, Resolve(c.Tare!.Start, dayStartS), Resolve(c.Tare.End, dayStartS))),
+         .. rig.Channels.Where(c => c.Tare is not null && c.TareEnd is not null)
+            .Select(c => new TimeWindow(EndTarePrefix + c.Id, Resolve(c.TareEnd!.Start, dayStartS), Resolve(c.TareEnd.End, dayStartS)) { TareOf = c.Id })];
+
+    /// <summary>Channels tared at both ends of the day: the end tare's statistics and both tare mid-times.</summary>
+    private static Dictionary<string, EndTare> EndTares(IReadOnlyList<TimeWindow> tareWindows, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
+    {
+        var result = new Dictionary<string, EndTare>(StringComparer.Ordinal);
+        foreach (var end in tareWindows.Where(w => w.Id.StartsWith(EndTarePrefix, StringComparison.Ordinal)))
+        {
+            var start = tareWindows.First(w => w.TareOf == end.TareOf && !w.Id.StartsWith(EndTarePrefix, StringComparison.Ordinal));
+            if (stats.TryGetValue(end.Id, out var byChannel) && byChannel.TryGetValue(end.TareOf!, out var s))
+            {
+                result[end.TareOf!] = new EndTare(s, 0.5 * (start.StartS + start.EndS), 0.5 * (end.StartS + end.EndS));
+            }
+        }
+        return result;
+    }
 
     private static void Collect(RigDescription rig, double dayStartS, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,
         SourceLocation? pinnedAt = null)
@@ -199,7 +218,7 @@ public static class DayProcessor
         if (window.TareOf is { } channel)
         {
             var tared = rig.Channel(channel)!;
-            return tared.Location with { Key = $"channel '{tared.Id}'.tare" };
+            return tared.Location with { Key = $"channel '{tared.Id}'.{(window.Id.StartsWith(EndTarePrefix, StringComparison.Ordinal) ? "tare_end" : "tare")}" };
         }
         return rig.Points.FirstOrDefault(p => p.Id == window.Id)?.Location;
     }
@@ -207,7 +226,7 @@ public static class DayProcessor
     private static Dictionary<string, ChannelWindowStats> TareStats(IReadOnlyList<TimeWindow> tareWindows, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
     {
         var result = new Dictionary<string, ChannelWindowStats>(StringComparer.Ordinal);
-        foreach (var window in tareWindows)
+        foreach (var window in tareWindows.Where(w => !w.Id.StartsWith(EndTarePrefix, StringComparison.Ordinal)))
         {
             if (stats.TryGetValue(window.Id, out var byChannel) && byChannel.TryGetValue(window.TareOf!, out var s))
             {
@@ -218,14 +237,15 @@ public static class DayProcessor
     }
 
     private static PointResult EvaluatePoint(RigDescription rig, TimeWindow window, WindowOrigin origin,
-        IReadOnlyDictionary<string, ChannelWindowStats> channels, IReadOnlyDictionary<string, ChannelWindowStats> tares, ProcessOptions options)
+        IReadOnlyDictionary<string, ChannelWindowStats> channels, IReadOnlyDictionary<string, ChannelWindowStats> tares,
+        IReadOnlyDictionary<string, EndTare> endTares, ProcessOptions options)
     {
         PointModel model;
         PointQuantities nominal;
         try
         {
             AbsolutePressureCheck.Require(rig, window.Id, channels, tares);
-            model = PointModel.Build(rig, channels, tares);
+            model = PointModel.Build(rig, channels, tares, endTares, 0.5 * (window.StartS + window.EndS));
             nominal = model.Physics(model.Estimates());
         }
         catch (BcPrepDataException e) when (e is not BcPrepFailure)

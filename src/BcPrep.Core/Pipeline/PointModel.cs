@@ -49,10 +49,13 @@ public sealed partial class PointModel
     public static PointModel Build(
         RigDescription rig,
         IReadOnlyDictionary<string, ChannelWindowStats> window,
-        IReadOnlyDictionary<string, ChannelWindowStats> tares)
+        IReadOnlyDictionary<string, ChannelWindowStats> tares,
+        IReadOnlyDictionary<string, EndTare>? endTares = null,
+        double pointMidS = double.NaN)
     {
         var model = new PointModel(SettingsOf(rig));
         model.AddChannelInputs(rig, window, tares);
+        model.AddEndTares(rig, endTares, pointMidS);
         model.AddModelInputs(rig, window);
         model.ResolveRoles(rig);
         model.DefineOutputs();
@@ -125,6 +128,40 @@ public sealed partial class PointModel
             _channels[channel.Id] = inputs;
         }
         CoupleColdJunctions(rig, window);
+    }
+
+    /// <summary>
+    /// A channel tared at both ends of the day: the zero subtracted is the start tare plus the end tare weighted by
+    /// where the point lies between them in time (linear drift, common practice). A drift between the two tares
+    /// larger than the declared zero uncertainty (<see cref="ChannelSpec.ZeroUncertaintySi"/>, else the channel's
+    /// absolute and span terms) draws a warning in the manifest and the report.
+    /// </summary>
+    private void AddEndTares(RigDescription rig, IReadOnlyDictionary<string, EndTare>? endTares, double pointMidS)
+    {
+        if (endTares is null)
+        {
+            return;
+        }
+        foreach (var (channelId, end) in endTares)
+        {
+            if (!_channels.TryGetValue(channelId, out var inputs) || inputs.TareIndex is not { } startIndex || rig.Channel(channelId) is not { } channel)
+            {
+                continue;
+            }
+            var startEstimate = _inputs[startIndex].Estimate;
+            inputs.EndTareIndex = Add(new UncertaintyInput($"{channelId} end-of-day tare mean", end.Stats.TypeA.Mean, end.Stats.TypeA.StandardUncertainty,
+                end.Stats.TypeA.DegreesOfFreedom, DistributionKind.Normal, EvaluationType.TypeA, "no-flow tare reading at the end of the day (Type A)"));
+            inputs.EndTareWeight = double.IsFinite(pointMidS) ? end.WeightAt(pointMidS) : 0.0;
+            var drift = end.Stats.TypeA.Mean - startEstimate;
+            var allowed = channel.ZeroUncertaintySi ?? Math.Sqrt(channel.Uncertainty
+                .Where(u => u.Kind is UncertaintyTermKind.Absolute or UncertaintyTermKind.PercentOfSpan)
+                .Sum(u => Math.Pow(TypeBTerms.StandardUncertainty(u, channel, 0.0), 2)));
+            if (Math.Abs(drift) > allowed)
+            {
+                _modelWarnings.Add(string.Create(CultureInfo.InvariantCulture,
+                    $"channel '{channelId}': its zero drifted by {drift:G4} (SI) between the start and end tares, more than the declared zero uncertainty {allowed:G4}; the zero is interpolated linearly in time, but a drift this size may not be linear"));
+            }
+        }
     }
 
     /// <summary>

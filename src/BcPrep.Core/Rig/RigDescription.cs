@@ -104,6 +104,15 @@ public sealed record ChannelSpec(
 
     /// <summary>Sensor-fault limits (the channel's <c>limits</c> table).</summary>
     public ChannelLimits Limits { get; init; } = ChannelLimits.None;
+
+    /// <summary>A second no-flow tare at the end of the day (<c>tare_end</c>): the zero is interpolated in time between the two.</summary>
+    public TareSpec? TareEnd { get; init; }
+
+    /// <summary>
+    /// The zero drift the sensor may show over the day without a warning (<c>tare_end.zero_uncertainty</c>, SI); null:
+    /// the root sum of squares of the channel's <c>absolute</c> and <c>span</c> terms as standard uncertainties.
+    /// </summary>
+    public double? ZeroUncertaintySi { get; init; }
 }
 
 /// <summary>A pinned time interval (seconds since the first sample of the day, or absolute when the log has dates).</summary>

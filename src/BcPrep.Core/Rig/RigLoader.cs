@@ -177,6 +177,20 @@ public static class RigLoader
             tareTable.RejectUnknownKeys();
             tare = start is null || end is null ? null : new TareSpec(start, end);
         }
+        TareSpec? tareEnd = null;
+        double? zeroUncertainty = null;
+        if (t.Table("tare_end") is { } endTable)
+        {
+            var endStart = ReadTime(endTable, "from");
+            var endEnd = ReadTime(endTable, "to");
+            zeroUncertainty = endTable.Quantity("zero_uncertainty", dimension == Dimension.Temperature ? Dimension.TemperatureDifference : dimension, minSi: 0);
+            endTable.RejectUnknownKeys();
+            tareEnd = endStart is null || endEnd is null ? null : new TareSpec(endStart, endEnd);
+            if (!t.Has("tare"))
+            {
+                t.Report("tare_end", "a tare at the end of the day pairs with one at the start: give tare = { from, to } too");
+            }
+        }
         var record = ReadRecord(t);
         var limits = ConditioningReader.ReadLimits(t.Table("limits"), dimension, sensor);
         if (role == ChannelRole.WallTemperature && position is null)
@@ -194,7 +208,7 @@ public static class RigLoader
         t.RejectUnknownKeys();
         return id is null || sensor is null
             ? null
-            : new ChannelSpec(id, column!, role, dimension, plane, position, reference, sensor, uncertainty, tare, record, isKey, t.Location with { Key = $"channel '{id}'" }) { RadiusM = radius, Limits = limits };
+            : new ChannelSpec(id, column!, role, dimension, plane, position, reference, sensor, uncertainty, tare, record, isKey, t.Location with { Key = $"channel '{id}'" }) { RadiusM = radius, Limits = limits, TareEnd = tareEnd, ZeroUncertaintySi = zeroUncertainty };
     }
 
     private static SensorSpec? ReadSensor(TableReader t, Dimension dimension)
