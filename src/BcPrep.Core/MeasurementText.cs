@@ -75,8 +75,12 @@ public static class MeasurementText
         return (Decimal(roundedValue / Math.Pow(10, exponent), decimals), Decimal(roundedU / Math.Pow(10, exponent), decimals), exponent);
     }
 
-    /// <summary>A number without an uncertainty, to <paramref name="significantDigits"/> significant digits, trailing zeros dropped; "–" for NaN or infinity.</summary>
-    public static string Number(double value, int significantDigits = 4)
+    /// <summary>
+    /// A number without an uncertainty, to <paramref name="significantDigits"/> significant digits, trailing zeros
+    /// dropped; "–" for NaN or infinity. <paramref name="grouped"/> false leaves the digits ungrouped, for a message
+    /// about a value the person types into a file ("must be between 3 and 10000").
+    /// </summary>
+    public static string Number(double value, int significantDigits = 4, bool grouped = true)
     {
         ArgumentOutOfRangeException.ThrowIfLessThan(significantDigits, 1);
         if (!double.IsFinite(value))
@@ -97,10 +101,10 @@ public static class MeasurementText
         if (-place > MaxDecimals || Math.Abs(rounded) >= Math.Pow(10, MaxIntegerDigits))
         {
             var exponent = (int)Math.Floor(Math.Log10(Math.Abs(rounded)));
-            var mantissa = TrimZeros(Decimal(rounded / Math.Pow(10, exponent), Math.Max(0, exponent - place)));
+            var mantissa = TrimZeros(Decimal(rounded / Math.Pow(10, exponent), Math.Max(0, exponent - place), grouped));
             return $"{mantissa} × 10{Superscript(exponent)}";
         }
-        return TrimZeros(Decimal(rounded, Math.Max(0, -place)));
+        return TrimZeros(Decimal(rounded, Math.Max(0, -place), grouped));
     }
 
     /// <summary><paramref name="value"/> rounded to a multiple of 10^<paramref name="place"/>, ties away from zero, computed in decimal where it fits so that 0.125 stays 0.125.</summary>
@@ -115,7 +119,7 @@ public static class MeasurementText
     }
 
     /// <summary>Fixed-point text with the integer part grouped in threes from five digits up, and no "-0".</summary>
-    private static string Decimal(double value, int decimals)
+    private static string Decimal(double value, int decimals, bool grouped = true)
     {
         var text = value.ToString("F" + decimals.ToString(CultureInfo.InvariantCulture), CultureInfo.InvariantCulture);
         if (text.TrimStart('-').All(c => c is '0' or '.'))
@@ -127,18 +131,18 @@ public static class MeasurementText
         var point = digits.IndexOf('.');
         var integer = point < 0 ? digits : digits[..point];
         var rest = point < 0 ? "" : digits[point..];
-        if (integer.Length >= 5)
+        if (grouped && integer.Length >= 5)
         {
-            var grouped = new StringBuilder();
+            var groups = new StringBuilder();
             for (var i = 0; i < integer.Length; i++)
             {
                 if (i > 0 && (integer.Length - i) % 3 == 0)
                 {
-                    grouped.Append(GroupSeparator);
+                    groups.Append(GroupSeparator);
                 }
-                grouped.Append(integer[i]);
+                groups.Append(integer[i]);
             }
-            integer = grouped.ToString();
+            integer = groups.ToString();
         }
         return (negative ? "-" : "") + integer + rest;
     }

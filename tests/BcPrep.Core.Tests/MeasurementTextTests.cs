@@ -74,6 +74,13 @@ public sealed class MeasurementTextTests
     }
 
     [Fact]
+    public void A_number_for_a_message_about_a_typed_value_can_stay_ungrouped()
+    {
+        Assert.Equal("10000", MeasurementText.Number(10000, 6, grouped: false));
+        Assert.Equal("2 × 10⁻⁶", MeasurementText.Number(2e-6, 6, grouped: false));
+    }
+
+    [Fact]
     public void The_text_does_not_depend_on_the_culture()
     {
         var previous = CultureInfo.CurrentCulture;

@@ -117,7 +117,7 @@ internal static class BoundaryKeys
             foreach (var channel in channels.Where(c => c.RadiusM > duct.InnerDiameterM / 2 * (1 + 1e-9)))
             {
                 problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.radius" }, string.Create(CultureInfo.InvariantCulture,
-                    $"rake radius {channel.RadiusM:G6} m lies outside the duct (inner radius {duct.InnerDiameterM / 2:G6} m)")));
+                    $"rake radius {MeasurementText.Number(channel.RadiusM ?? double.NaN, 6)} m lies outside the duct (inner radius {MeasurementText.Number(duct.InnerDiameterM / 2, 6)} m)")));
             }
         }
         if (meter is null)

@@ -235,6 +235,9 @@ public sealed class TableReader
         return null;
     }
 
+    // Six significant digits, ungrouped as the person types them, never E-notation ("2 × 10⁻⁶", not "2E-06").
+    private static string Plain(double value) => MeasurementText.Number(value, 6, grouped: false);
+
     private double? CheckRange(TomlEntry entry, double value, double? min, double? max, string unit)
     {
         if (!double.IsFinite(value))
@@ -246,12 +249,12 @@ public sealed class TableReader
         {
             var range = (min, max) switch
             {
-                ({ } lo, { } hi) => $"between {lo.ToString("G6", CultureInfo.InvariantCulture)} and {hi.ToString("G6", CultureInfo.InvariantCulture)}{unit}",
-                ({ } lo, null) => $"at least {lo.ToString("G6", CultureInfo.InvariantCulture)}{unit}",
-                (null, { } hi) => $"at most {hi.ToString("G6", CultureInfo.InvariantCulture)}{unit}",
+                ({ } lo, { } hi) => $"between {Plain(lo)} and {Plain(hi)}{unit}",
+                ({ } lo, null) => $"at least {Plain(lo)}{unit}",
+                (null, { } hi) => $"at most {Plain(hi)}{unit}",
                 _ => "",
             };
-            _problems.Add(new Problem(entry.Location, $"{value.ToString("G6", CultureInfo.InvariantCulture)}{unit} is out of range: must be {range}"));
+            _problems.Add(new Problem(entry.Location, $"{Plain(value)}{unit} is out of range: must be {range}"));
             return null;
         }
         return value;
