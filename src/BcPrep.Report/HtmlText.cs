@@ -10,9 +10,8 @@ internal static class HtmlText
     /// <summary>Text escaped for element content and quoted attribute values (&amp;, &lt;, &gt;, quotes).</summary>
     public static string Escape(string? text) => WebUtility.HtmlEncode(text ?? "");
 
-    /// <summary>A number for a person: 6 significant digits, invariant culture; "–" for NaN or infinity.</summary>
-    public static string Number(double value, string format = "G6") =>
-        double.IsFinite(value) ? value.ToString(format, CultureInfo.InvariantCulture) : "–";
+    /// <summary>A number for a person without an uncertainty: four significant digits, as <see cref="MeasurementText.Number"/> writes it; "–" for NaN or infinity.</summary>
+    public static string Number(double value) => MeasurementText.Number(value, 4);
 
     /// <summary>Appends a table with a header row; cells are escaped here.</summary>
     public static void Table(StringBuilder html, IReadOnlyList<string> header, IEnumerable<IReadOnlyList<string>> rows, string? cssClass = null)

@@ -71,7 +71,7 @@ public static class ReportPage
         var rows = day.Points.Select(p =>
         {
             var row = new List<string> { p.Id, WindowText(day, p.Window), p.Origin == WindowOrigin.RigFile ? "rig file" : "detected" };
-            row.AddRange(present.Select(q => p.Output(q) is { } o ? $"{HtmlText.Number(o.Estimate)} ± {HtmlText.Number(o.ExpandedUncertainty, "G2")}" : "–"));
+            row.AddRange(present.Select(q => p.Output(q) is { } o ? MeasurementText.WithUncertainty(o.Estimate, o.ExpandedUncertainty) : "–"));
             // Each check is listed in the point's section; here only the count, to keep rows short.
             row.Add(string.Create(CultureInfo.InvariantCulture, $"{p.Checks.Count(c => c.Passed)} pass, {p.Checks.Count(c => !c.Passed)} warn"));
             return (IReadOnlyList<string>)row;
@@ -123,7 +123,7 @@ public static class ReportPage
         HtmlText.Table(html, ["channel", "samples", "missing cells", "bridged samples", "gaps left open", "spikes replaced", "sensor faults"],
             point.Channels.Values.OrderBy(s => s.Channel, StringComparer.Ordinal).Select(s => (IReadOnlyList<string>)[
                 s.Channel, Count(s.SampleCount), Count(s.MissingCount), Count(s.BridgedSamples), OpenGaps(s), Count(s.SpikesReplaced),
-                s.Faults.Count == 0 ? "none" : string.Join("; ", s.Faults.Select(f => $"{f.Kind}: {f.Evidence}")),
+                s.Faults.Count == 0 ? "none" : string.Join("; ", s.Faults.Select(f => $"{ChoiceSpelling.Name(f.Kind)}: {f.Evidence}")),
             ]), "numbers");
         html.Append("<h3>Warnings</h3>\n");
         HtmlText.List(html, point.Warnings, "warnings");

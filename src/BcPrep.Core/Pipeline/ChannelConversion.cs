@@ -21,7 +21,7 @@ public static class ChannelConversion
             }
             case RtdSensor rtd:
             {
-                var nominal = new RtdNominal(rtd.R0Ohm);
+                var nominal = rtd.Nominal;
                 var rawToSi = rtd.RawToSi;
                 return (raw, _) => CallendarVanDusen.TemperatureK(nominal, rawToSi.Apply(raw));
             }

@@ -240,12 +240,12 @@ public static class DayProcessor
     {
         var checks = new List<CheckResult>();
         var warnings = new List<string>();
-        if (point.Output("energy_balance.mismatch") is { } balance)
+        if (point.Output(PointOutputs.EnergyBalanceMismatch) is { } balance)
         {
             checks.Add(new CheckResult("energy balance", Math.Abs(balance.Estimate) <= balance.ExpandedUncertainty, balance.Estimate, balance.ExpandedUncertainty, "1",
                 "|(P(1-loss) - m cp dT)/(P(1-loss))| within its expanded uncertainty"));
         }
-        if (point.Output("pressure_drop.measured") is { } measured && point.Output("pressure_drop.expected") is { } expected)
+        if (point.Output(PointOutputs.PressureDropMeasured) is { } measured && point.Output(PointOutputs.PressureDropExpected) is { } expected)
         {
             var tolerance = Math.Sqrt((measured.ExpandedUncertainty * measured.ExpandedUncertainty) + Math.Pow(FrictionCorrelationAccuracy * expected.Estimate, 2) + (expected.ExpandedUncertainty * expected.ExpandedUncertainty));
             checks.Add(new CheckResult("pressure drop", Math.Abs(measured.Estimate - expected.Estimate) <= tolerance, measured.Estimate - expected.Estimate, tolerance, "Pa",
@@ -265,7 +265,7 @@ public static class DayProcessor
         }
         foreach (var stats in point.Channels.Values.Where(s => s.Faults.Count > 0))
         {
-            warnings.AddRange(stats.Faults.Select(f => $"channel '{stats.Channel}': {f.Kind}: {f.Evidence}"));
+            warnings.AddRange(stats.Faults.Select(f => $"channel '{stats.Channel}': {ChoiceSpelling.Name(f.Kind)}: {f.Evidence}"));
         }
         return (checks, warnings);
     }

@@ -102,6 +102,17 @@ public sealed partial class PointModel
                 inputs.AddTerm(Add(new UncertaintyInput($"{channel.Id}: {term.Source}", 0.0, u, term.DegreesOfFreedom,
                     TypeBTerms.Distribution(term), EvaluationType.TypeB, term.Source)), 1.0);
             }
+            if (channel.Sensor is ThermocoupleSensor thermocouple)
+            {
+                AddInverseCorrection(inputs, channel.Id, thermocouple, stats, window);
+            }
+            if (channel.Sensor is RtdSensor { Certificate: { } rtdCertificate })
+            {
+                // The certificate's A, B, C are already in the conversion; its uncertainty enters here.
+                inputs.AddTerm(Add(new UncertaintyInput($"{channel.Id}: calibration certificate {rtdCertificate.Certificate}", 0.0,
+                    rtdCertificate.ExpandedUncertaintyK / rtdCertificate.CoverageFactor, double.PositiveInfinity, DistributionKind.Normal, EvaluationType.TypeB,
+                    $"certificate {rtdCertificate.Certificate}: own Callendar-Van Dusen coefficients, expanded uncertainty with k = {rtdCertificate.CoverageFactor.ToString(CultureInfo.InvariantCulture)}")), 1.0);
+            }
             if (channel.Sensor is TableSensor table)
             {
                 var fit = ChannelConversion.Fit(table);
@@ -112,6 +123,36 @@ public sealed partial class PointModel
             _channels[channel.Id] = inputs;
         }
         CoupleColdJunctions(rig, window);
+    }
+
+    /// <summary>
+    /// Thermocouples are inverted exactly by default: the samples go through the NIST inverse polynomial (fast,
+    /// vectorised), and the window mean is moved onto the exact inverse of the reference function
+    /// (<see cref="InversePolynomialCorrection"/>). The correction is an input of its own, so the budget shows it.
+    /// </summary>
+    private void AddInverseCorrection(ChannelInputs inputs, string channelId, ThermocoupleSensor thermocouple, ChannelWindowStats stats,
+        IReadOnlyDictionary<string, ChannelWindowStats> window)
+    {
+        if (!double.IsFinite(stats.TypeA.Mean))
+        {
+            return;
+        }
+        var type = thermocouple.Type;
+        var fix = InversePolynomialCorrection.ForWindow(type, stats.TypeA.Mean, stats.StandardDeviation);
+        inputs.AddTerm(Add(new UncertaintyInput($"{channelId}: ITS-90 inverse polynomial correction", fix.CorrectionK,
+            TypeB.FromRectangularHalfWidth(fix.RemainderHalfWidthK), double.PositiveInfinity, DistributionKind.Rectangular, EvaluationType.TypeB,
+            "exact inverse of the NIST ITS-90 reference function at the window mean, less the inverse polynomial's value")), 1.0);
+        if (thermocouple.Certificate is not { } certificate)
+        {
+            return;
+        }
+        var referenceK = stats.TypeA.Mean + fix.CorrectionK;
+        var junctionK = thermocouple.ColdJunctionK
+            ?? (thermocouple.ColdJunctionChannel is { } cj && window.TryGetValue(cj, out var junction) ? junction.TypeA.Mean : Its90Thermocouple.KelvinOffset);
+        var correction = certificate.CorrectionK(type, referenceK, junctionK);
+        inputs.AddTerm(Add(new UncertaintyInput($"{channelId}: certificate correction ({certificate.Certificate})", correction,
+            certificate.StandardUncertaintyK(type, referenceK + correction), double.PositiveInfinity, DistributionKind.Normal, EvaluationType.TypeB,
+            $"certificate {certificate.Certificate}: {certificate.Kind.ToString().ToLowerInvariant()} correction, expanded uncertainty with k = {certificate.CoverageFactor.ToString(CultureInfo.InvariantCulture)}")), 1.0);
     }
 
     /// <summary>A cold-junction sensor's error enters each thermocouple scaled by S(T_cj)/S(T_hot) (emf addition).</summary>
@@ -234,60 +275,48 @@ public sealed partial class PointModel
         var x = Estimates();
         var nominal = PointPhysics.Evaluate(MeasurementsAt(x), _settings);
         ProfileRadiiM = nominal.Velocity.Profile.RadiusM;
-        var all = Definitions(nominal.Velocity.Profile.RadiusM.Length, nominal.TemperatureProfile is null ? 0 : nominal.Velocity.Profile.RadiusM.Length);
+        _runs = Runs(nominal.Velocity.Profile.RadiusM.Length, nominal.TemperatureProfile is null ? 0 : nominal.Velocity.Profile.RadiusM.Length);
+        var all = _runs.SelectMany(r => r.Definitions).ToList();
         var values = Flatten(MeasurementsAt(x), nominal, includeAll: true);
         _included = all.Select((d, i) => double.IsFinite(values[i])).ToArray();
         Outputs = all.Where((d, i) => _included[i]).ToList();
     }
 
     private bool[] _included = [];
+    private IReadOnlyList<OutputRun> _runs = [];
 
-    private List<QuantityDefinition> Definitions(int profilePoints, int temperatureProfilePoints)
+    /// <summary>A run of outputs read together from the model's result: their definitions, and how their values are appended.</summary>
+    private sealed record OutputRun(IReadOnlyList<QuantityDefinition> Definitions, Action<PointMeasurements, PointQuantities, List<double>> Append);
+
+    /// <summary>
+    /// The point's output table: the scalars of <see cref="PointOutputs"/>, then this point's wall thermocouples, velocity
+    /// profile, wall grid and rake profile. Definitions and values both come from it, so they cannot fall out of step.
+    /// </summary>
+    private List<OutputRun> Runs(int profilePoints, int temperatureProfilePoints)
     {
-        var list = new List<QuantityDefinition>
-        {
-            new("inlet.static_pressure", "Pa", "absolute static pressure at the inlet plane"),
-            new("outlet.static_pressure", "Pa", "absolute static pressure at the outlet plane"),
-            new("inlet.temperature", "K", "bulk temperature at the inlet plane"),
-            new("outlet.temperature", "K", "bulk temperature at the outlet plane"),
-            new("mass_flow", "kg/s", "mass flow through the duct"),
-            new("heater_power", "W", "electrical heater power"),
-            new("wall.heat_flux", "W/m2", "wall heat flux over the heated length, losses removed"),
-            new("inlet.density", "kg/m3", "density at the inlet plane (ideal-gas dry air, or CIPM-2007 moist air with a humidity channel)"),
-            new("inlet.viscosity", "Pa s", "dynamic viscosity at the inlet plane (Sutherland)"),
-            new("inlet.bulk_velocity", "m/s", "bulk velocity at the inlet plane"),
-            new("reynolds", "1", "Reynolds number on diameter at inlet conditions"),
-            new("mach", "1", "Mach number at the inlet plane"),
-            new("inlet.turbulence_intensity", "1", "turbulence intensity"),
-            new("inlet.turbulent_kinetic_energy", "m2/s2", "k"),
-            new("inlet.turbulence_length_scale", "m", "length scale l"),
-            new("inlet.dissipation_rate", "m2/s3", "epsilon = Cmu^(3/4) k^(3/2) / l"),
-            new("inlet.specific_dissipation_rate", "1/s", "omega = k^(1/2) / (Cmu^(1/4) l)"),
-            new("pressure_drop.measured", "Pa", "inlet minus outlet static pressure"),
-            new("pressure_drop.expected", "Pa", "friction (Colebrook) plus flow acceleration between the planes"),
-            new("energy_balance.mismatch", "1", "(P(1-loss) - m cp (T_out - T_in)) / (P(1-loss))"),
-        };
-        list.AddRange(_wallChannels.Select(c => new QuantityDefinition($"wall.temperature.{c.Id}", "K", string.Create(CultureInfo.InvariantCulture, $"wall temperature at z = {c.AxialPositionM:G6} m"))));
-        list.AddRange(Enumerable.Range(0, profilePoints).Select(i => new QuantityDefinition($"inlet.velocity.{i}", "m/s", "axial velocity at profile point " + i)));
-        list.AddRange(WallGridM.Select((z, i) => new QuantityDefinition($"{ProfileOutputs.WallGridPrefix}{i}", "K",
-            string.Create(CultureInfo.InvariantCulture, $"wall temperature interpolated at z = {z:G6} m"))));
-        list.AddRange(Enumerable.Range(0, temperatureProfilePoints).Select(i => new QuantityDefinition($"{ProfileOutputs.TemperaturePrefix}{i}", "K", "inlet temperature from the rake at profile point " + i)));
-        return list;
+        var runs = PointOutputs.Scalars.Select(s => new OutputRun([s.Definition], (m, q, into) => into.Add(s.Value(m, q)))).ToList();
+        runs.Add(new([.. _wallChannels.Select(c => new QuantityDefinition(ProfileOutputs.WallPoint(c.Id), "K",
+                string.Create(CultureInfo.InvariantCulture, $"wall temperature at z = {c.AxialPositionM:G6} m")) { Kind = QuantityKind.WallPoint })],
+            (m, _, into) => into.AddRange(m.WallTemperaturesK)));
+        runs.Add(new([.. Enumerable.Range(0, profilePoints).Select(i => new QuantityDefinition(ProfileOutputs.Velocity(i), "m/s",
+                "axial velocity at profile point " + i) { Kind = QuantityKind.ProfilePoint })],
+            (_, q, into) => into.AddRange(q.Velocity.Profile.Values)));
+        runs.Add(new([.. WallGridM.Select((z, i) => new QuantityDefinition(ProfileOutputs.WallGrid(i), "K",
+                string.Create(CultureInfo.InvariantCulture, $"wall temperature interpolated at z = {z:G6} m")) { Kind = QuantityKind.ProfilePoint })],
+            (m, _, into) => into.AddRange(WallGridTemperatures(m))));
+        runs.Add(new([.. Enumerable.Range(0, temperatureProfilePoints).Select(i => new QuantityDefinition(ProfileOutputs.Temperature(i), "K",
+                "inlet temperature from the rake at profile point " + i) { Kind = QuantityKind.ProfilePoint })],
+            (_, q, into) => into.AddRange(q.TemperatureProfile?.Profile.Values ?? [])));
+        return runs;
     }
 
     private double[] Flatten(PointMeasurements m, PointQuantities q, bool includeAll)
     {
-        var values = new List<double>
+        var values = new List<double>(_included.Length);
+        foreach (var run in _runs)
         {
-            m.InletPressurePa, m.OutletPressurePa, m.InletTemperatureK, m.OutletTemperatureK, m.MassFlowKgS, m.HeaterPowerW,
-            q.WallHeatFlux, q.InletDensity, q.InletViscosity, q.BulkVelocity, q.Reynolds, q.Mach,
-            q.TurbulenceIntensity, q.TurbulentKineticEnergy, q.TurbulenceLengthScale, q.DissipationRate, q.SpecificDissipationRate,
-            q.PressureDropMeasured, q.PressureDropExpected, q.EnergyBalanceMismatch,
-        };
-        values.AddRange(m.WallTemperaturesK);
-        values.AddRange(q.Velocity.Profile.Values);
-        values.AddRange(WallGridTemperatures(m));
-        values.AddRange(q.TemperatureProfile?.Profile.Values ?? []);
+            run.Append(m, q, values);
+        }
         if (includeAll)
         {
             return values.ToArray();

@@ -107,6 +107,11 @@ public static class RigLoader
                 planeTable.Report("outlet", "the outlet plane must lie downstream of the inlet plane (larger axial position)");
             }
         }
+        if (diameter is { } dm && diameterStd >= dm / 2)
+        {
+            // At k = 2 the interval d ± 2u would reach a zero or negative bore: no measurement model holds there.
+            t.Report("inner_diameter_uncertainty", "the standard uncertainty of the diameter is not below half the diameter, so d ± 2u reaches zero: is it in the wrong unit?");
+        }
         if (diameter is { } d && roughness >= d / 2)
         {
             t.Report("wall_roughness", "wall roughness is not smaller than the radius: impossible geometry");
@@ -165,6 +170,10 @@ public static class RigLoader
         {
             var start = ReadTime(tareTable, "from");
             var end = ReadTime(tareTable, "to");
+            if (start is not null && end is not null && start.IsAbsolute == end.IsAbsolute && end.Seconds <= start.Seconds)
+            {
+                tareTable.Report("to", "the tare window ends before it starts ('to' must come after 'from')");
+            }
             tareTable.RejectUnknownKeys();
             tare = start is null || end is null ? null : new TareSpec(start, end);
         }
@@ -205,7 +214,10 @@ public static class RigLoader
                     t.Report("cold_junction", "a thermocouple needs cold-junction compensation: cold_junction = \"<RTD channel id>\" or cold_junction_temperature = \"0 degC\"");
                 }
                 var tolerance = t.Choice("tolerance_class", ["1", "2", "3"], "2");
-                return rawToSi is null ? null : new ThermocoupleSensor(rawUnit, rawToSi.Value, type, cjChannel, cjFixed, t.Has("tolerance_class") ? tolerance : null);
+                return rawToSi is null ? null : new ThermocoupleSensor(rawUnit, rawToSi.Value, type, cjChannel, cjFixed, t.Has("tolerance_class") ? tolerance : null)
+                {
+                    Certificate = CertificateKeys.ReadThermocouple(t.Table("correction")),
+                };
             }
             case "rtd":
             {
@@ -213,7 +225,10 @@ public static class RigLoader
                 var rawToSi = AffineOf(t, "raw_unit", rawUnit, Dimension.Resistance);
                 var r0 = t.Quantity("r0", Dimension.Resistance, minSi: 1, maxSi: 1e5) ?? 100.0;
                 var tolerance = t.Choice("tolerance_class", ["AA", "A", "B", "C"], "B");
-                return rawToSi is null ? null : new RtdSensor(rawUnit, rawToSi.Value, r0, t.Has("tolerance_class") ? tolerance : null);
+                return rawToSi is null ? null : new RtdSensor(rawUnit, rawToSi.Value, r0, t.Has("tolerance_class") ? tolerance : null)
+                {
+                    Certificate = CertificateKeys.ReadRtd(t.Table("coefficients")),
+                };
             }
             case "direct":
             {
@@ -234,16 +249,23 @@ public static class RigLoader
                 }
                 return kind switch
                 {
-                    "linear" => t.Number("gain", required: true) is { } gain
+                    "linear" => t.Number("gain", required: true) is { } gain && (gain != 0 || Reported(t, "gain", "a gain of 0 maps every raw signal to the same value, so the channel would measure nothing"))
                         ? new LinearSensor(rawUnit, unit, rawToSi.Value, unitToSi.Value, gain, t.Number("offset") ?? 0.0)
                         : null,
-                    "polynomial" => ReadNumbers(t, "coefficients") is { Count: > 0 } c
+                    "polynomial" => ReadNumbers(t, "coefficients") is { } c && (c.Count > 0 || Reported(t, "coefficients", "a polynomial needs at least one coefficient (c0, c1, … of value = c0 + c1·raw + …); the list is empty"))
                         ? new PolynomialSensor(rawUnit, unit, rawToSi.Value, unitToSi.Value, c)
                         : null,
                     _ => ReadTable(t, rawUnit, unit, rawToSi.Value, unitToSi.Value),
                 };
             }
         }
+    }
+
+    /// <summary>Reports a problem and returns false, so that a refusal reads as one condition.</summary>
+    private static bool Reported(TableReader t, string key, string message)
+    {
+        t.Report(key, message);
+        return false;
     }
 
     private static TableSensor? ReadTable(TableReader t, string rawUnit, string unit, Affine rawToSi, Affine unitToSi)
@@ -423,6 +445,10 @@ public static class RigLoader
             var spread = channel?.Dimension == Dimension.Temperature ? Dimension.TemperatureDifference : channel?.Dimension ?? Dimension.Dimensionless;
             var change = k.Quantity("max_change", spread, required: true, minSi: 0);
             var scatter = k.Quantity("max_scatter", spread, required: true, minSi: 0);
+            if (scatter == 0)
+            {
+                k.Report("max_scatter", "a scatter limit of 0 admits no real signal, so no window would ever be steady; give the largest scatter to accept");
+            }
             var step = k.Quantity("step", spread, minSi: 0);
             var minimum = k.Quantity("min", channel?.Dimension ?? Dimension.Dimensionless);
             var holdTarget = k.Quantity("hold_target", spread, minSi: 0);
@@ -475,9 +501,43 @@ public static class RigLoader
             {
                 problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.cold_junction" }, $"no channel with id '{cj}'{TableReader.Suggest(cj, ids)}"));
             }
+            if (channel.Sensor is ThermocoupleSensor { ColdJunctionChannel: { } junction } && channels.FirstOrDefault(c => c.Id == junction) is { } junctionChannel &&
+                (junctionChannel.Dimension != Dimension.Temperature || junctionChannel.Id == channel.Id))
+            {
+                problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.cold_junction" },
+                    junctionChannel.Id == channel.Id
+                        ? "a thermocouple cannot be its own cold junction"
+                        : $"the cold junction '{junction}' measures {junctionChannel.Dimension.ToString().ToLowerInvariant()}, not a temperature (give the RTD or thermistor at the terminal block)"));
+            }
+            if (channel.Role == ChannelRole.WallTemperature && channel.AxialPositionM is { } z && duct is not null &&
+                duct.PlanePositionsM.TryGetValue("inlet", out var zIn) && duct.PlanePositionsM.TryGetValue("outlet", out var zOut) && (z < zIn || z > zOut))
+            {
+                problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.position" },
+                    string.Create(CultureInfo.InvariantCulture, $"the wall thermocouple at {z} m lies {(z > zOut ? "beyond the outlet plane" : "before the inlet plane")} ({zIn} m to {zOut} m): the wall boundary condition covers only the duct between them")));
+            }
             if (channel.Plane is { } plane && duct is not null && !duct.PlanePositionsM.ContainsKey(plane))
             {
                 problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.plane" }, $"no plane '{plane}' in [duct.planes]{TableReader.Suggest(plane, duct.PlanePositionsM.Keys)}"));
+            }
+        }
+        foreach (var channel in channels.Where(c => c.ReferenceChannel is not null))
+        {
+            // Follow the reference chain: a channel that leads back to itself has no zero to refer to.
+            var seen = new List<string> { channel.Id };
+            for (var next = channel.ReferenceChannel; next is not null; next = channels.FirstOrDefault(c => c.Id == next)?.ReferenceChannel)
+            {
+                if (next == channel.Id)
+                {
+                    problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.reference" }, seen.Count == 1
+                        ? "a channel cannot be its own reference"
+                        : $"the references form a cycle ({string.Join(" → ", seen.Append(channel.Id))}): a gauge reading needs an absolute reference at the end of the chain"));
+                    break;
+                }
+                if (seen.Contains(next) || seen.Count > channels.Count)
+                {
+                    break;
+                }
+                seen.Add(next);
             }
         }
         var pointIds = new HashSet<string>(StringComparer.Ordinal);

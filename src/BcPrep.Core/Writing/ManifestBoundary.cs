@@ -55,6 +55,7 @@ internal static class ManifestBoundary
         JsonFields.Number(json, "mass_flow", r.MassFlowKgPerS);
         JsonFields.Number(json, "diameter_ratio", r.DiameterRatio);
         JsonFields.Number(json, "discharge_coefficient", r.DischargeCoefficient);
+        json.WriteString("discharge_coefficient_source", meter.DischargeCoefficientSource);
         JsonFields.Number(json, "expansibility", r.Expansibility);
         JsonFields.Number(json, "velocity_of_approach_factor", r.VelocityOfApproachFactor);
         JsonFields.Number(json, "pipe_reynolds", r.PipeReynolds);
