@@ -44,6 +44,9 @@ public sealed class LogFollower
     /// <summary>The file being followed (full path), or null before the logger has written any.</summary>
     public string? CurrentFile => _current is null ? null : Path.Combine(_folder, _current);
 
+    /// <summary>Bytes of the current file that end in a complete line (the rest is a line still being written).</summary>
+    public long CompleteBytes => _offset - _fragment.Count;
+
     /// <summary>Files read so far, in order (full paths), including the current one.</summary>
     public IReadOnlyList<string> Files => _files;
 
