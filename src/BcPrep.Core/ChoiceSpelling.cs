@@ -1,3 +1,4 @@
+using BcPrep.Conditioning;
 using BcPrep.Profiles;
 using BcPrep.Rig;
 using BcPrep.Steady;
@@ -5,14 +6,14 @@ using BcPrep.Steady;
 namespace BcPrep;
 
 /// <summary>
-/// The one place where a choice gets the spelling a person reads and writes: the rig file's own words
-/// (<c>power_law</c>, <c>auto</c>) and the steady-detection words of the <c>windows</c> table (<c>drift-scatter</c>,
-/// <c>r-test</c>). Tables, the manifest, the report and messages all spell through here, never through an enum's
+/// The one place where a choice gets the spelling a person reads: the rig file's own words (<c>power_law</c>,
+/// <c>auto</c>, kept in <see cref="RigChoices"/>) and the steady-detection words of the <c>windows</c> table
+/// (<c>drift-scatter</c>, <c>r-test</c>). Tables, the manifest, the report and messages all spell through here, never through an enum's
 /// <c>ToString()</c>, so an internal name (PowerLaw, RTest) cannot leak into what a person reads.
 /// </summary>
 public static class ChoiceSpelling
 {
-    /// <summary>The rig-file word of <paramref name="model"/> (the rig file's own table, <see cref="RigChoices"/>).</summary>
+    /// <summary>The rig-file word of <paramref name="model"/> (auto, power_law, …), from the rig's own spelling table.</summary>
     public static string Name(VelocityProfileModel model) => model.RigName();
 
     /// <summary>A steady-detection method: drift-scatter, r-test or mser.</summary>
@@ -45,5 +46,15 @@ public static class ChoiceSpelling
         SteadyCriterion.Duration => "duration",
         SteadyCriterion.Range => "range",
         _ => throw new ArgumentOutOfRangeException(nameof(criterion), criterion, null),
+    };
+
+    /// <summary>A sensor fault in words: saturation, stuck, implausible, non-finite.</summary>
+    public static string Name(SensorFaultKind kind) => kind switch
+    {
+        SensorFaultKind.Saturation => "saturation",
+        SensorFaultKind.Stuck => "stuck",
+        SensorFaultKind.Implausible => "implausible",
+        SensorFaultKind.NonFinite => "non-finite",
+        _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, null),
     };
 }
