@@ -71,7 +71,8 @@ public static class ReportPage
         var rows = day.Points.Select(p =>
         {
             var row = new List<string> { p.Id, WindowText(day, p.Window), p.Origin == WindowOrigin.RigFile ? "rig file" : "detected" };
-            row.AddRange(present.Select(q => p.Output(q) is { } o ? MeasurementText.WithUncertainty(o.Estimate, o.ExpandedUncertainty) : "–"));
+            // A no-break space after '±': a narrow cell wraps before "± U", never between the sign and U.
+            row.AddRange(present.Select(q => p.Output(q) is { } o ? MeasurementText.WithUncertainty(o.Estimate, o.ExpandedUncertainty).Replace(" ± ", " ±\u00A0", StringComparison.Ordinal) : "–"));
             // Each check is listed in the point's section; here only the count, to keep rows short.
             row.Add(string.Create(CultureInfo.InvariantCulture, $"{p.Checks.Count(c => c.Passed)} pass, {p.Checks.Count(c => !c.Passed)} warn"));
             return (IReadOnlyList<string>)row;
@@ -147,8 +148,8 @@ public static class ReportPage
         .cautions { border: 2px solid #111; padding: .2em 1em; background: #f2f2f2; }
         .cautions h2 { border: none; margin-top: .5em; }
         .warnings li { list-style: square; }
-        table { border-collapse: collapse; margin: .5em 0 1.5em; font-size: 90%; }
-        th, td { border: 1px solid #999; padding: .25em .5em; text-align: left; vertical-align: top; }
+        table { border-collapse: collapse; margin: .5em 0 1.5em; font-size: 90%; max-width: 100%; }
+        th, td { border: 1px solid #999; padding: .25em .5em; text-align: left; vertical-align: top; overflow-wrap: break-word; }
         th { background: #e6e6e6; }
         table.numbers td { font-variant-numeric: tabular-nums; }
         figure { margin: 1em 0; }

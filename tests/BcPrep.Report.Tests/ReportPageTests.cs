@@ -68,8 +68,8 @@ public sealed partial class ReportPageTests
         var flow = point.Output("mass_flow")!;
 
         // JCGM 100 7.2.6 through the one shared formatter: U to two significant digits, the value to its place.
-        var cell = MeasurementText.WithUncertainty(flow.Estimate, flow.ExpandedUncertainty);
-        Assert.Matches(@"^0\.0\d+ ± 0\.000\d\d$", cell);
+        var cell = MeasurementText.WithUncertainty(flow.Estimate, flow.ExpandedUncertainty).Replace(" ± ", " ±\u00A0", StringComparison.Ordinal);
+        Assert.Matches(@"^0\.0\d+ ±\u00A00\.000\d\d$", cell);
         Assert.Contains($"<td>{System.Net.WebUtility.HtmlEncode(cell)}</td>", html, StringComparison.Ordinal);
         // The page's text (tags and the style sheet aside) has no 4E+02 or 7.18E-05.
         var text = Regex.Replace(html, "<style>.*?</style>|<[^>]+>", " ", RegexOptions.Singleline);

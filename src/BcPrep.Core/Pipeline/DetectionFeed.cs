@@ -19,9 +19,6 @@ internal sealed class DetectionFeed
 
     public BlockMeanSink Blocks { get; }
 
-    /// <summary>The channel sinks to scan with: none, the block means take whole blocks.</summary>
-    public IReadOnlyList<IChannelSink> ChannelSinks => [];
-
     /// <summary>The block sink to scan with: the block means themselves, or the conditioning chain that feeds them.</summary>
     public IBlockSink BlockSink => _conditioned is null ? Blocks : _conditioned;
 

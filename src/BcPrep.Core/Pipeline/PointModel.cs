@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using System.Globalization;
 using BcPrep.Calibration;
+using BcPrep.Physics;
 using BcPrep.Profiles;
 using BcPrep.Rig;
 using BcPrep.Uncertainty;
@@ -14,10 +15,10 @@ namespace BcPrep.Pipeline;
 /// </summary>
 public sealed partial class PointModel
 {
-    // Property-model uncertainty, rectangular half-widths: Sutherland's law against Incropera Table A.4 deviates by
-    // 0.2–0.7 % (reference sheet §7, table from memory); ideal-gas cp against 1-atm tables by 0.2–0.4 %.
+    // Property-model uncertainty, rectangular half-widths below 380 K; see Physics/ModelForm for their sources and
+    // for how they grow with temperature.
     public const double ViscosityModelHalfWidth = 0.007;
-    public const double CpModelHalfWidth = 0.004;
+    public const double CpModelHalfWidth = ModelForm.CpHalfWidth;
 
     private readonly List<UncertaintyInput> _inputs = [];
     private readonly Dictionary<string, ChannelInputs> _channels = new(StringComparer.Ordinal);
@@ -26,6 +27,7 @@ public sealed partial class PointModel
     private int _loss;
     private int _viscosityFactor;
     private int _cpFactor;
+    private int _turbulenceFactor = -1;
     private Func<double[], double> _inletPressure = null!;
     private Func<double[], double> _outletPressure = null!;
     private Func<double[], double> _inletTemperature = null!;
@@ -51,7 +53,7 @@ public sealed partial class PointModel
     {
         var model = new PointModel(SettingsOf(rig));
         model.AddChannelInputs(rig, window, tares);
-        model.AddModelInputs(rig);
+        model.AddModelInputs(rig, window);
         model.ResolveRoles(rig);
         model.DefineOutputs();
         return model;
@@ -172,15 +174,30 @@ public sealed partial class PointModel
         }
     }
 
-    private void AddModelInputs(RigDescription rig)
+    private void AddModelInputs(RigDescription rig, IReadOnlyDictionary<string, ChannelWindowStats> window)
     {
         _diameter = Add(new UncertaintyInput("duct inner diameter", rig.Duct.InnerDiameterM, rig.Duct.InnerDiameterStdM, double.PositiveInfinity,
             DistributionKind.Normal, EvaluationType.TypeB, "rig file: duct.inner_diameter_uncertainty"));
         _loss = Add(LossFractionInput(rig.Duct.HeaterLossFraction, rig.Duct.HeaterLossFractionStd));
-        _viscosityFactor = Add(new UncertaintyInput("viscosity model (Sutherland)", 1.0, TypeB.FromRectangularHalfWidth(ViscosityModelHalfWidth), double.PositiveInfinity,
-            DistributionKind.Rectangular, EvaluationType.TypeB, "Sutherland's law against handbook tables, ±0.7 %"));
-        _cpFactor = Add(new UncertaintyInput("cp model (ideal gas)", 1.0, TypeB.FromRectangularHalfWidth(CpModelHalfWidth), double.PositiveInfinity,
-            DistributionKind.Rectangular, EvaluationType.TypeB, "ideal-gas cp against 1-atm tables, ±0.4 %"));
+
+        // The property models are judged where the air is: the hottest and the mean of the bulk-temperature means.
+        var bulk = rig.WithRole(ChannelRole.BulkTemperature).Select(c => window.TryGetValue(c.Id, out var w) ? w.TypeA.Mean : double.NaN)
+            .Where(double.IsFinite).DefaultIfEmpty(293.15).ToList();
+        var hottestK = bulk.Max();
+        var viscosityHalfWidth = ModelForm.ViscosityHalfWidth(hottestK);
+        _viscosityFactor = Add(new UncertaintyInput("viscosity model (Sutherland)", 1.0, TypeB.FromRectangularHalfWidth(viscosityHalfWidth), double.PositiveInfinity,
+            DistributionKind.Rectangular, EvaluationType.TypeB, string.Create(CultureInfo.InvariantCulture,
+                $"Sutherland's law against Lemmon & Jacobsen (2004): ±{viscosityHalfWidth * 100:0.##} % at {hottestK:F0} K (±0.7 % holds below 380 K)")));
+        var meanK = bulk.Average();
+        _cpFactor = Add(new UncertaintyInput("cp model (ideal gas, corrected to 1-atm tables)", ModelForm.CpCorrection(meanK), TypeB.FromRectangularHalfWidth(CpModelHalfWidth), double.PositiveInfinity,
+            DistributionKind.Rectangular, EvaluationType.TypeB, string.Create(CultureInfo.InvariantCulture,
+                $"ideal-gas cp is biased low: factor {ModelForm.CpCorrection(meanK):F4} at {meanK:F0} K from 1-atm tables (Incropera A.4, Çengel A-15), ±0.15 %")));
+        if (rig.Profiles.TurbulenceIntensity is null)
+        {
+            _turbulenceFactor = Add(new UncertaintyInput("turbulence intensity model (0.16 Re^-1/8)", 1.0, TypeB.FromRectangularHalfWidth(ModelForm.TurbulenceIntensityHalfWidth),
+                double.PositiveInfinity, DistributionKind.Rectangular, EvaluationType.TypeB,
+                "core-flow estimate against area-averaged pipe-flow fits (Russo & Basse 2016): about a factor of 2 apart, ±50 %"));
+        }
     }
 
     /// <summary>

@@ -29,7 +29,7 @@ public static class WindowFinder
         var plan = DayPlan.Create(rig, logs);
         var converters = rig.Channels.ToDictionary(c => c.Id, BlockConverter.For, StringComparer.Ordinal);
         var feed = DetectionFeed.For(rig, new BlockMeanSink(plan.DayStartS, rig.Steady.BlockS));
-        DayScan.Run(rig, plan, converters, feed.ChannelSinks, feed.BlockSink);
+        DayScan.Run(rig, plan, converters, [], feed.BlockSink);
         feed.Complete();
         var series = Series(rig, feed.Blocks);
         return new DayWindows(plan.DayStartS, series, Detect(rig, series, plan.DayStartS));
@@ -58,13 +58,22 @@ public static class WindowFinder
             throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation(rig.SourceFile, Key: "steady.key"),
                 "no [[point]] windows are pinned and [steady] names no key channel to detect them with");
         }
+        RequireBlocks(rig, series);
+        var times = series.TimesS.Select(t => t - dayStartS).ToArray();
+        return SteadyStateDetector.Detect(times, KeyChannels(rig, channel => series.Means[channel]), Settings(rig.Steady));
+    }
+
+    /// <summary>Refuses a day too short to look for a steady window in (fewer than three blocks).</summary>
+    /// <exception cref="BcPrepFailure">NoSteadyPoint.</exception>
+    public static void RequireBlocks(RigDescription rig, BlockSeries series)
+    {
+        ArgumentNullException.ThrowIfNull(rig);
+        ArgumentNullException.ThrowIfNull(series);
         if (series.TimesS.Length < 3)
         {
             throw new BcPrepFailure(FailureKind.NoSteadyPoint, new SourceLocation("(logs)"),
                 string.Create(CultureInfo.InvariantCulture, $"the day holds {series.TimesS.Length} block(s) of {rig.Steady.BlockS} s: too short to look for a steady window"));
         }
-        var times = series.TimesS.Select(t => t - dayStartS).ToArray();
-        return SteadyStateDetector.Detect(times, KeyChannels(rig, channel => series.Means[channel]), Settings(rig.Steady));
     }
 
     /// <summary>The detector's key channels from the rig file, with their block means.</summary>

@@ -157,7 +157,7 @@ public static class RigLoader
             return null;
         }
         var role = ParseRole(roleText);
-        var dimension = DimensionOf(role);
+        var dimension = SensorDimension(t, role) ?? DimensionOf(role);
         var plane = t.String("plane");
         var position = t.Quantity("position", Dimension.Length);
         var reference = t.String("reference");
@@ -577,6 +577,41 @@ public static class RigLoader
         "relative_humidity" => ChannelRole.RelativeHumidity,
         _ => ChannelRole.Other,
     };
+
+    private static readonly Dimension[] UnitDimensions =
+        [Dimension.Temperature, Dimension.Pressure, Dimension.MassFlow, Dimension.Voltage, Dimension.Current, Dimension.Power,
+         Dimension.Length, Dimension.Resistance, Dimension.Frequency];
+
+    /// <summary>
+    /// The sensor, not the role, sets a channel's dimension: a thermocouple or RTD reads a temperature whatever it
+    /// <c>measures</c>, and an <c>other</c> channel takes the dimension of its <c>unit</c> (so that its uncertainty
+    /// terms and limits may carry units). A temperature sensor on a role of another dimension is an error. Null: the
+    /// role decides. The keys are only peeked at here; <see cref="ReadSensor"/> reads and reports them.
+    /// </summary>
+    private static Dimension? SensorDimension(TableReader t, ChannelRole role)
+    {
+        var kind = t.Node.TryGet("sensor", out var sensorEntry) ? sensorEntry.Value as string : null;
+        if (kind is "thermocouple" or "rtd")
+        {
+            var roleDimension = DimensionOf(role);
+            if (role != ChannelRole.Other && roleDimension != Dimension.Temperature)
+            {
+                t.Report("sensor", $"a {kind} reads a temperature, but this channel measures a {roleDimension.ToString().ToLowerInvariant()} quantity: use a sensor of that kind, or measures = \"other\"");
+            }
+            return Dimension.Temperature;
+        }
+        if (role == ChannelRole.Other && t.Node.TryGet("unit", out var unitEntry) && unitEntry.Value is string unit)
+        {
+            foreach (var dimension in UnitDimensions)
+            {
+                if (UnitText.TryToSi("1 " + unit, dimension, out _, out _))
+                {
+                    return dimension;
+                }
+            }
+        }
+        return null;
+    }
 
     private static Dimension DimensionOf(ChannelRole role) => role switch
     {
