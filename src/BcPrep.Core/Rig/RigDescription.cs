@@ -150,7 +150,14 @@ public sealed record SteadySpec(
 /// Per key channel limits, in SI units of that channel. <paramref name="MinimumSi"/>: the smallest mean that counts
 /// as an operating point (null = none), so that a rig at rest is not taken for a point.
 /// </summary>
-public sealed record SteadyKey(string Channel, double MaxChangeSi, double MaxScatterSi, double StepSi, double? MinimumSi = null);
+public sealed record SteadyKey(string Channel, double MaxChangeSi, double MaxScatterSi, double StepSi, double? MinimumSi = null)
+{
+    /// <summary>
+    /// Expanded uncertainty (SI, at the rig's coverage probability) the channel's window mean should reach; the live
+    /// follower then says how long a settled point must be held for it. Null = no hold target for this channel.
+    /// </summary>
+    public double? HoldTargetSi { get; init; }
+}
 
 /// <summary>Inlet profile settings.</summary>
 public sealed record ProfileSettings(

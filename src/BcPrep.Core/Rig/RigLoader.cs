@@ -465,10 +465,15 @@ public static class RigLoader
             }
             var step = k.Quantity("step", spread, minSi: 0);
             var minimum = k.Quantity("min", channel?.Dimension ?? Dimension.Dimensionless);
+            var holdTarget = k.Quantity("hold_target", spread, minSi: 0);
+            if (holdTarget == 0)
+            {
+                k.Report("hold_target", "a hold target of zero is reached by no hold: give the expanded uncertainty wanted, e.g. \"0.1 K\"");
+            }
             k.RejectUnknownKeys();
             if (channelId is not null && change is not null && scatter is not null)
             {
-                keys.Add(new SteadyKey(channelId, change.Value, scatter.Value, step ?? 4 * scatter.Value, minimum));
+                keys.Add(new SteadyKey(channelId, change.Value, scatter.Value, step ?? 4 * scatter.Value, minimum) { HoldTargetSi = holdTarget > 0 ? holdTarget : null });
             }
         }
         var detect = t.Bool("detect", fallback: true);
