@@ -24,24 +24,19 @@ public static class BcPrepApp
                                    "Example: bcprep process sample-logs/marten-rig.toml sample-logs/*.csv --out out");
         common.AddTo(root);
         VersionAction.Install(root, context);
+        HelpWording.Apply(root);
         foreach (var command in commands(common, context))
         {
             root.Subcommands.Add(command);
         }
         // '@file' expansion is switched off: a log file named '@x' must stay a file name.
         var parse = root.Parse(args, new ParserConfiguration { ResponseFileTokenReplacer = null });
-        if (parse.Errors.Count > 0)
-        {
-            foreach (var error in parse.Errors)
-            {
-                context.Error.WriteLine("error: " + error.Message);
-            }
-            var name = parse.CommandResult.Command == root ? "bcprep" : "bcprep " + parse.CommandResult.Command.Name;
-            context.Error.WriteLine($"See '{name} --help'.");
-            return ExitCodes.UsageOrRigFile;
-        }
         try
         {
+            if (parse.Errors.Count > 0)
+            {
+                throw UsageErrors.From(parse, root);
+            }
             return parse.Invoke(new InvocationConfiguration
             {
                 Output = IsHelpOrVersion(args) ? context.Out : context.Error,
@@ -54,6 +49,10 @@ public static class BcPrepApp
             foreach (var problem in failure.Problems)
             {
                 context.Error.WriteLine("error: " + problem);
+            }
+            if (failure.Problems.Any(p => p.Location.File == UsageErrors.Location))
+            {
+                context.Error.WriteLine(UsageErrors.FollowUp(parse.CommandResult.Command, root));
             }
             return ExitCodes.For(failure.Kind);
         }

@@ -15,6 +15,13 @@ public sealed class CommonOptions
         root.Options.Add(Verbose);
     }
 
-    public Diagnostics DiagnosticsFor(ParseResult parse, CliContext context) =>
-        new(context, parse.GetValue(Quiet) ? Verbosity.Quiet : parse.GetValue(Verbose) ? Verbosity.Verbose : Verbosity.Normal);
+    public Diagnostics DiagnosticsFor(ParseResult parse, CliContext context)
+    {
+        if (parse.GetValue(Quiet) && parse.GetValue(Verbose))
+        {
+            // Either choice would ignore half of what was asked for.
+            throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation("(command line)", Key: "--quiet"), "--quiet and --verbose contradict each other: give one of them");
+        }
+        return new(context, parse.GetValue(Quiet) ? Verbosity.Quiet : parse.GetValue(Verbose) ? Verbosity.Verbose : Verbosity.Normal);
+    }
 }

@@ -21,9 +21,23 @@ public sealed class LogArguments : IDisposable
         if (arguments.FirstOrDefault(LooksLikeMistypedOption) is { } option)
         {
             throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation("(command line)", Key: option),
-                $"unknown option '{option}' (and no log file has that name); see --help for the options");
+                $"unknown option '{option}' (and no log file has that name)");
         }
-        Inputs = arguments.Select(a => a == "-" ? SpillStandardInput(context) : LogInput.FromPath(a)).ToList();
+        var seen = new Dictionary<string, int>(StringComparer.Ordinal);
+        for (var i = 0; i < arguments.Count; i++)
+        {
+            if (arguments[i] == "-" || !TryFullPath(arguments[i], out var full))
+            {
+                continue;
+            }
+            if (seen.TryGetValue(full, out var first))
+            {
+                throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation("(command line)", Key: arguments[i]),
+                    $"the log '{arguments[i]}' is given more than once (LOG arguments {first + 1} and {i + 1}); each file of the day is given once");
+            }
+            seen[full] = i;
+        }
+        Inputs = arguments.Select(a => a == "-" ? Spill(context.OpenStandardInput, "(standard input)") : FromPath(a)).ToList();
     }
 
     public IReadOnlyList<LogInput> Inputs { get; }
@@ -73,15 +87,57 @@ public sealed class LogArguments : IDisposable
         }
     }
 
-    private LogInput SpillStandardInput(CliContext context)
+    private static bool TryFullPath(string argument, out string full)
+    {
+        try
+        {
+            full = Path.GetFullPath(argument);
+            return true;
+        }
+        catch (Exception e) when (e is ArgumentException or NotSupportedException or PathTooLongException)
+        {
+            full = "";
+            return false;
+        }
+    }
+
+    /// <summary>
+    /// A path that is a pipe (process substitution, a named FIFO) can be read only once and cannot seek: it is copied
+    /// once to a temporary file, like standard input. Anything else is left to the reader, which reports what is wrong.
+    /// </summary>
+    private LogInput FromPath(string argument)
+    {
+        FileStream? stream = null;
+        try
+        {
+            if (File.Exists(argument))
+            {
+                stream = new FileStream(argument, FileMode.Open, FileAccess.Read, FileShare.ReadWrite, 1);
+            }
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+        }
+        using (stream)
+        {
+            return stream is null || stream.CanSeek ? LogInput.FromPath(argument) : Spill(() => stream, argument);
+        }
+    }
+
+    private LogInput Spill(Func<Stream> open, string displayName)
     {
         var path = Path.Combine(Path.GetTempPath(), "bcprep-stdin-" + Guid.NewGuid().ToString("N") + ".log");
         _temporary.Add(path);
-        using (var target = File.Create(path))
-        using (var source = context.OpenStandardInput())
+        try
         {
+            using var target = File.Create(path);
+            using var source = open();
             source.CopyTo(target);
         }
-        return new LogInput("(standard input)", path);
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            throw new BcPrepFailure(FailureKind.InputData, new SourceLocation(displayName), "cannot read the log: " + e.Message);
+        }
+        return new LogInput(displayName, path);
     }
 }

@@ -76,7 +76,7 @@ public static class BudgetFigure
         plot.Title($"{point.Id}: uncertainty budget of {quantity}");
         plot.XLabel("share of the variance u_c²(y) [%]");
         var caption = string.Create(CultureInfo.InvariantCulture,
-            $"{point.Id}: {quantity} = {output.Estimate:G6}, u_c = {output.StandardUncertainty:G3}; share of each input in the variance, largest first.");
+            $"{point.Id}: {quantity}, y ± u_c = {MeasurementText.WithUncertainty(output.Estimate, output.StandardUncertainty)}; share of each input in the variance, largest first.");
         return new ReportFigure(relativePath, caption, ReportStyle.BudgetWidthPx, ReportStyle.BudgetHeightPx, FigureRendering.Png(plot, ReportStyle.BudgetWidthPx, ReportStyle.BudgetHeightPx));
     }
 }

@@ -10,9 +10,15 @@ internal static class HtmlText
     /// <summary>Text escaped for element content and quoted attribute values (&amp;, &lt;, &gt;, quotes).</summary>
     public static string Escape(string? text) => WebUtility.HtmlEncode(text ?? "");
 
-    /// <summary>A number for a person: 6 significant digits, invariant culture; "–" for NaN or infinity.</summary>
-    public static string Number(double value, string format = "G6") =>
-        double.IsFinite(value) ? value.ToString(format, CultureInfo.InvariantCulture) : "–";
+    /// <summary>A number for a person without an uncertainty: four significant digits, as <see cref="MeasurementText.Number"/> writes it; "–" for NaN or infinity.</summary>
+    public static string Number(double value) => MeasurementText.Number(value, 4);
+
+    /// <summary>
+    /// Escaped text in which a quantity name may wrap after each '.' or '_' (outlet.static_pressure): headers are the
+    /// widest words of a table of numbers, and without these break points a table of many quantities runs past the page.
+    /// </summary>
+    public static string BreakableName(string text) =>
+        System.Text.RegularExpressions.Regex.Replace(Escape(text), @"([._])(?=[A-Za-z])", "$1<wbr>");
 
     /// <summary>Appends a table with a header row; cells are escaped here.</summary>
     public static void Table(StringBuilder html, IReadOnlyList<string> header, IEnumerable<IReadOnlyList<string>> rows, string? cssClass = null)
@@ -20,7 +26,7 @@ internal static class HtmlText
         html.Append(cssClass is null ? "<table>" : $"<table class=\"{Escape(cssClass)}\">").Append("\n<thead><tr>");
         foreach (var cell in header)
         {
-            html.Append("<th>").Append(Escape(cell)).Append("</th>");
+            html.Append("<th>").Append(BreakableName(cell)).Append("</th>");
         }
         html.Append("</tr></thead>\n<tbody>\n");
         var any = false;

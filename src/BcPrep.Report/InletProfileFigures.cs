@@ -21,7 +21,7 @@ public static class InletProfileFigures
         var expanded = outputs.Select(o => o?.ExpandedUncertainty ?? double.NaN).ToArray();
         var plot = FigureRendering.NewPlot();
         AddBandAndLine(plot, radiusM.Select(r => r * 1000.0).ToArray(), values, expanded, MarkerShape.FilledCircle, LinePattern.Solid, "u(r)", Coverage(day));
-        plot.Title($"{point.Id}: inlet axial velocity ({point.Nominal.Velocity.ModelUsed})");
+        plot.Title($"{point.Id}: inlet axial velocity ({ChoiceSpelling.Name(point.Nominal.Velocity.ModelUsed)})");
         plot.XLabel("r, distance from the axis [mm]");
         plot.YLabel("axial velocity [m/s]");
         var caption = $"{point.Id}: inlet axial velocity profile, scaled to the measured mass flow; grey band = ± expanded uncertainty U at p = {Coverage(day)}.";

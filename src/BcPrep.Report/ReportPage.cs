@@ -71,7 +71,8 @@ public static class ReportPage
         var rows = day.Points.Select(p =>
         {
             var row = new List<string> { p.Id, WindowText(day, p.Window), p.Origin == WindowOrigin.RigFile ? "rig file" : "detected" };
-            row.AddRange(present.Select(q => p.Output(q) is { } o ? $"{HtmlText.Number(o.Estimate)} ± {HtmlText.Number(o.ExpandedUncertainty, "G2")}" : "–"));
+            // A no-break space after '±': a narrow cell wraps before "± U", never between the sign and U.
+            row.AddRange(present.Select(q => p.Output(q) is { } o ? MeasurementText.WithUncertainty(o.Estimate, o.ExpandedUncertainty).Replace(" ± ", " ±\u00A0", StringComparison.Ordinal) : "–"));
             // Each check is listed in the point's section; here only the count, to keep rows short.
             row.Add(string.Create(CultureInfo.InvariantCulture, $"{p.Checks.Count(c => c.Passed)} pass, {p.Checks.Count(c => !c.Passed)} warn"));
             return (IReadOnlyList<string>)row;
@@ -92,7 +93,7 @@ public static class ReportPage
             var ids = day.Points.Where(p => p.Window.StartS - day.DayStartS < window.StretchEndS && p.Window.EndS - day.DayStartS > window.StretchStartS).Select(p => p.Id);
             rows.Add((window.StretchStartS, [
                 "accepted", string.Join(", ", ids), Minutes(window.StretchStartS) + "–" + Minutes(window.StretchEndS),
-                Minutes(window.StartS) + "–" + Minutes(window.EndS), window.AcceptedBy.ToString(), "",
+                Minutes(window.StartS) + "–" + Minutes(window.EndS), ChoiceSpelling.Names(window.AcceptedBy), "",
             ]));
         }
         foreach (var rejected in detection.Rejected)
@@ -123,7 +124,7 @@ public static class ReportPage
         HtmlText.Table(html, ["channel", "samples", "missing cells", "bridged samples", "gaps left open", "spikes replaced", "sensor faults"],
             point.Channels.Values.OrderBy(s => s.Channel, StringComparer.Ordinal).Select(s => (IReadOnlyList<string>)[
                 s.Channel, Count(s.SampleCount), Count(s.MissingCount), Count(s.BridgedSamples), OpenGaps(s), Count(s.SpikesReplaced),
-                s.Faults.Count == 0 ? "none" : string.Join("; ", s.Faults.Select(f => $"{f.Kind}: {f.Evidence}")),
+                s.Faults.Count == 0 ? "none" : string.Join("; ", s.Faults.Select(f => $"{ChoiceSpelling.Name(f.Kind)}: {f.Evidence}")),
             ]), "numbers");
         html.Append("<h3>Warnings</h3>\n");
         HtmlText.List(html, point.Warnings, "warnings");
@@ -147,8 +148,8 @@ public static class ReportPage
         .cautions { border: 2px solid #111; padding: .2em 1em; background: #f2f2f2; }
         .cautions h2 { border: none; margin-top: .5em; }
         .warnings li { list-style: square; }
-        table { border-collapse: collapse; margin: .5em 0 1.5em; font-size: 90%; }
-        th, td { border: 1px solid #999; padding: .25em .5em; text-align: left; vertical-align: top; }
+        table { border-collapse: collapse; margin: .5em 0 1.5em; font-size: 90%; max-width: 100%; }
+        th, td { border: 1px solid #999; padding: .25em .5em; text-align: left; vertical-align: top; overflow-wrap: break-word; }
         th { background: #e6e6e6; }
         table.numbers td { font-variant-numeric: tabular-nums; }
         figure { margin: 1em 0; }

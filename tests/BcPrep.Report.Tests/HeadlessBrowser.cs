@@ -32,7 +32,10 @@ internal static class HeadlessBrowser
     }
 
     /// <summary>Loads <paramref name="pagePath"/> with no network access of its own and returns the DOM after the page's load event.</summary>
-    public static string DumpDom(string pagePath, string profileFolder)
+    public static string DumpDom(string pagePath, string profileFolder) => DumpDom(pagePath, profileFolder, windowWidthPx: null);
+
+    /// <summary>As <see cref="DumpDom(string, string)"/>, laid out in a window <paramref name="windowWidthPx"/> wide (900 px high).</summary>
+    public static string DumpDom(string pagePath, string profileFolder, int? windowWidthPx)
     {
         var start = new ProcessStartInfo(Find())
         {
@@ -47,6 +50,10 @@ internal static class HeadlessBrowser
                  ])
         {
             start.ArgumentList.Add(argument);
+        }
+        if (windowWidthPx is { } width)
+        {
+            start.ArgumentList.Insert(0, $"--window-size={width},900");
         }
         using var process = Process.Start(start)!;
         var error = process.StandardError.ReadToEndAsync();

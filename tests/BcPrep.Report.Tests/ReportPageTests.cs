@@ -61,6 +61,22 @@ public sealed partial class ReportPageTests
     }
 
     [Fact]
+    public void Operating_points_are_shown_rounded_to_their_uncertainty_and_no_number_is_in_e_notation()
+    {
+        var html = Report.Value.Html;
+        var point = SampleDays.Day.Points[0];
+        var flow = point.Output("mass_flow")!;
+
+        // JCGM 100 7.2.6 through the one shared formatter: U to two significant digits, the value to its place.
+        var cell = MeasurementText.WithUncertainty(flow.Estimate, flow.ExpandedUncertainty).Replace(" ± ", " ±\u00A0", StringComparison.Ordinal);
+        Assert.Matches(@"^0\.0\d+ ±\u00A00\.000\d\d$", cell);
+        Assert.Contains($"<td>{System.Net.WebUtility.HtmlEncode(cell)}</td>", html, StringComparison.Ordinal);
+        // The page's text (tags and the style sheet aside) has no 4E+02 or 7.18E-05.
+        var text = Regex.Replace(html, "<style>.*?</style>|<[^>]+>", " ", RegexOptions.Singleline);
+        Assert.DoesNotMatch(@"\d[eE][+-]?\d", text);
+    }
+
+    [Fact]
     public void Files_put_the_figures_and_the_page_under_the_report_folder()
     {
         var files = Report.Value.Files(DayReport.Folder).ToList();

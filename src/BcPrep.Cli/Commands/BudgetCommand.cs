@@ -13,7 +13,7 @@ public static class BudgetCommand
         var logs = RigArguments.Logs();
         var reduction = ReductionOptions.WithoutMonteCarlo();
         var point = PointSelection.Option();
-        var quantity = new Option<string?>("--quantity") { Description = "Only this quantity (e.g. inlet.temperature, or a profile point inlet.velocity.3)." };
+        var quantity = new Option<string?>("--quantity") { Description = "Only this quantity (e.g. inlet.temperature, or a profile point inlet.velocity.3).", HelpName = "NAME" };
         var command = new Command("budget", "Write every input's sensitivity, contribution and share of variance in each quantity as CSV to standard output.\n" +
                                             "Example: bcprep budget sample-logs/marten-rig.toml sample-logs/*.csv --point OP1 --quantity inlet.temperature")
         {
@@ -31,7 +31,7 @@ public static class BudgetCommand
             if (only is not null && !points.Any(p => p.OutputIndex(only) >= 0))
             {
                 throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation("(command line)", Key: "--quantity"),
-                    $"no quantity '{only}'; the scalars are: {string.Join(", ", points[0].Model.Outputs.Select(o => o.Name).Where(n => !CovarianceTables.IsProfilePoint(n)))}, and inlet.velocity.0 … inlet.velocity.{points[0].Model.ProfileRadiiM.Length - 1}");
+                    $"no quantity '{only}'; the scalars are: {string.Join(", ", points[0].Model.Outputs.Select(o => o.Name).Where(n => !ProfileOutputs.IsProfilePoint(n)))}, and inlet.velocity.0 … inlet.velocity.{points[0].Model.ProfileRadiiM.Length - 1}");
             }
 
             Func<string, bool>? filter = only is null ? null : name => name == only;

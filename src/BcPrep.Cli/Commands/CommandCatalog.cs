@@ -14,5 +14,6 @@ public static class CommandCatalog
         CovarianceCommand.Create(common, context),
         EnsembleCommand.Create(common, context),
         WindowsCommand.Create(common, context),
+        FollowCommand.Create(common, context),
     ];
 }

@@ -14,10 +14,10 @@ public static class EnsembleCommand
         var logs = RigArguments.Logs();
         var reduction = ReductionOptions.WithoutMonteCarlo();
         var point = PointSelection.Option(required: true);
-        var samples = new Option<int>("--samples", "-n") { Description = $"Number of members (1 … {PointEnsemble.MaxMembers.ToString(CultureInfo.InvariantCulture)}).", Required = true };
-        var seed = new Option<int>("--seed") { Description = "Seed of the draws; the same seed gives the same files.", DefaultValueFactory = _ => 1 };
+        var samples = new Option<int>("--samples", "-n") { Description = $"Number of members (1 … {PointEnsemble.MaxMembers.ToString(CultureInfo.InvariantCulture)}).", Required = true, HelpName = "N" };
+        var seed = new Option<int>("--seed") { Description = "Seed of the draws; the same seed gives the same files.", DefaultValueFactory = _ => 1, HelpName = "N" };
         var latin = new Option<bool>("--latin-hypercube") { Description = "Draw the members as one Latin hypercube instead of independent random draws." };
-        var output = new Option<string>("--out", "-o") { Description = "Output folder (replaced as a whole; refused if it holds anything but an earlier ensemble).", Required = true };
+        var output = new Option<string>("--out", "-o") { Description = "Output folder (replaced as a whole; refused if it holds anything but an earlier ensemble).", Required = true, HelpName = "DIR" };
         var command = new Command("ensemble", "Write N complete boundary-condition sets of one point, drawn from the joint distribution of its inputs through the same physics.\n" +
                                               "Example: bcprep ensemble sample-logs/marten-rig.toml sample-logs/*.csv --point OP1 --samples 50 --seed 7 --out ens")
         {

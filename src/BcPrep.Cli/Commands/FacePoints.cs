@@ -14,14 +14,8 @@ public static class FacePoints
             return null;
         }
         var path = Path.IsPathRooted(face.PointsFile) ? face.PointsFile : Path.Combine(Path.GetDirectoryName(Path.GetFullPath(rigPath)) ?? ".", face.PointsFile);
-        try
-        {
-            using var reader = new StreamReader(path);
-            return FacePointsReader.Read(reader, face.PointsUnitToM, face.PointsFile);
-        }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            throw new BcPrepFailure(FailureKind.Configuration, face.Location with { Key = "inlet_profile.face.points_file" }, $"cannot read the face points file '{path}': {e.Message}");
-        }
+        var text = SmallTextFile.Read(path, "face points file", FailureKind.Configuration, face.Location with { Key = "inlet_profile.face.points_file" });
+        using var reader = new StringReader(text);
+        return FacePointsReader.Read(reader, face.PointsUnitToM, face.PointsFile);
     }
 }

@@ -11,6 +11,7 @@ public static class LabOptions
     public static Option<string[]> AllowExpired() => new("--allow-expired")
     {
         Description = "Use this channel's data although its calibration due date has passed (repeatable; 'all' for every channel). Recorded in the manifest.",
+        HelpName = "CHANNEL",
         Arity = ArgumentArity.ZeroOrMore,
         AllowMultipleArgumentsPerToken = false,
     };
@@ -18,11 +19,13 @@ public static class LabOptions
     public static Option<string> Date() => new("--date")
     {
         Description = "Check calibration due dates against this test date (yyyy-mm-dd); expired sensors are then errors. Without it, today's date is used and expired sensors are warnings.",
+        HelpName = "DATE",
     };
 
     public static Option<string> Matrix() => new("--matrix")
     {
         Description = "Test-matrix CSV of planned points; matched operating points take its names (see README, 'The test matrix').",
+        HelpName = "FILE",
     };
 
     /// <summary>Reads and checks a test-matrix file against the rig; every problem is reported with line and column.</summary>

@@ -10,6 +10,7 @@ public static class PointSelection
     {
         Description = "The operating point, by its id (as in summary.csv, e.g. OP1)" + (required ? "." : "; default: every point."),
         Required = required,
+        HelpName = "ID",
     };
 
     /// <summary>Every point, or the one named; an unknown id is a usage error that lists the day's points.</summary>

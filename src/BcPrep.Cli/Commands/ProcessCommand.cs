@@ -13,7 +13,7 @@ public static class ProcessCommand
     {
         var rig = RigArguments.Rig();
         var logs = RigArguments.Logs();
-        var output = new Option<string>("--out", "-o") { Description = "Output folder (created if needed).", Required = true };
+        var output = new Option<string>("--out", "-o") { Description = "Output folder (created if needed).", Required = true, HelpName = "DIR" };
         var force = new Option<bool>("--force") { Description = "Recompute even when inputs, rig file and tool version match the existing manifest." };
         var reduction = ReductionOptions.WithMonteCarlo();
         var report = ReportOption.Create();
@@ -31,6 +31,10 @@ public static class ProcessCommand
             using var inputs = new LogArguments(parse.GetValue(logs)!, context);
             var outDir = parse.GetValue(output)!;
             var options = reduction.Read(parse, description);
+            // The folder is claimed (checked, locked) before any work, and held until the result is swapped in.
+            using var folder = ResultFolder.Claim(outDir,
+                [parse.GetValue(rig)!, .. parse.GetValue(logs)!.Where(l => l != "-"), .. reduction.MatrixPath(parse) is { } m ? new[] { m } : []],
+                CommitHook.FromEnvironment(context));
             var rigFingerprint = LogArguments.Fingerprint(parse.GetValue(rig)!, parse.GetValue(rig)!);
             RunProvenance Provenance(IReadOnlyList<InputFingerprint> logFingerprints) =>
                 reduction.Record(new(BcPrepApp.Version, rigFingerprint, logFingerprints), parse, ReportOption.Choices(parse.GetValue(report)));
@@ -56,9 +60,7 @@ public static class ProcessCommand
                 day = DayProcessor.Process(description, inputs.Inputs, options with { Progress = reading });
                 var provenance = Provenance(hashing.GetAwaiter().GetResult());
                 files = DayOutputs.Build(day, provenance, facePoints, ReportOption.Files(parse.GetValue(report), day, diagnostics));
-                var superseded = ReportOption.Superseded(outDir, files.Files.Select(f => f.RelativePath));
-                files.Commit(outDir);
-                ReportOption.RemoveSuperseded(outDir, superseded);
+                folder.Commit(files);
             }
             foreach (var warning in day.Warnings.Concat(day.Calibration?.Warnings ?? []).Concat(day.Matrix?.Warnings ?? []))
             {

@@ -30,41 +30,4 @@ public static class ReportOption
         diagnostics.Detail(string.Create(CultureInfo.InvariantCulture, $"report: {files.Figures.Count} figures and {DayReport.Folder}{DayReport.PageName}"));
         return files.Files(DayReport.Folder).ToList();
     }
-
-    /// <summary>
-    /// Report files the previous manifest in <paramref name="outputDirectory"/> listed and the new run does not write
-    /// (a report no longer asked for, a point that is gone). Read before the commit, which replaces that manifest.
-    /// </summary>
-    public static IReadOnlyList<string> Superseded(string outputDirectory, IEnumerable<string> newFiles)
-    {
-        var keep = newFiles.ToHashSet(StringComparer.Ordinal);
-        return ExistingOutputs.ListedFiles(outputDirectory)
-            .Where(f => f.StartsWith(DayReport.Folder, StringComparison.Ordinal) && !keep.Contains(f))
-            .ToList();
-    }
-
-    /// <summary>
-    /// Deletes superseded report files after the commit, so that the folder holds the files its manifest lists.
-    /// Only paths inside <c>report/</c> are touched; a file already gone is fine.
-    /// </summary>
-    public static void RemoveSuperseded(string outputDirectory, IReadOnlyList<string> superseded)
-    {
-        var reportRoot = Path.GetFullPath(Path.Combine(outputDirectory, DayReport.Folder));
-        foreach (var relative in superseded)
-        {
-            var path = Path.GetFullPath(Path.Combine(outputDirectory, relative));
-            if (!path.StartsWith(reportRoot, StringComparison.Ordinal))
-            {
-                continue;
-            }
-            try
-            {
-                File.Delete(path);
-            }
-            catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-            {
-                throw new BcPrepFailure(FailureKind.Output, new SourceLocation(outputDirectory), $"cannot remove the superseded report file {relative}: {e.Message}");
-            }
-        }
-    }
 }

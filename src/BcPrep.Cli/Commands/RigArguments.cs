@@ -13,16 +13,7 @@ public static class RigArguments
     /// <summary>Reads and validates the rig file; all problems are reported at once.</summary>
     public static RigDescription LoadRig(string path)
     {
-        string text;
-        try
-        {
-            text = File.ReadAllText(path);
-        }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            var reason = Directory.Exists(path) ? "it is a directory, not a file" : e.Message;
-            throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation(path), "cannot read the rig file: " + reason);
-        }
+        var text = SmallTextFile.Read(path, "rig file", FailureKind.Configuration, new SourceLocation(path));
         return RigLoader.Load(text, path);
     }
 }

@@ -5,7 +5,8 @@ namespace BcPrep.Calibration;
 /// <summary>
 /// Platinum RTD resistance–temperature relation of IEC 60751 (Callendar–Van Dusen, α = 0.00385):
 /// R(t) = R0(1 + A t + B t²) for 0 … 850 °C and R(t) = R0[1 + A t + B t² + C (t − 100) t³] for −200 … 0 °C,
-/// A = 3.9083E-3 °C⁻¹, B = −5.775E-7 °C⁻², C = −4.183E-12 °C⁻⁴. Temperatures in K, resistance in Ω.
+/// A = 3.9083E-3 °C⁻¹, B = −5.775E-7 °C⁻², C = −4.183E-12 °C⁻⁴, or a calibrated sensor's own A, B, C carried by its
+/// <see cref="RtdNominal"/>. Temperatures in K, resistance in Ω.
 /// NaN inputs return NaN; values outside −200 … 850 °C (or the matching resistance span) throw
 /// <see cref="BcPrepDataException"/>.
 /// </summary>
@@ -28,16 +29,16 @@ public static class CallendarVanDusen
     public static CalibrationRange ResistanceRangeOhm(RtdNominal nominal)
     {
         double r0 = CheckedR0(nominal);
-        return new CalibrationRange(r0 * Ratio(MinC), r0 * Ratio(MaxC));
+        return new CalibrationRange(r0 * Ratio(nominal, MinC), r0 * Ratio(nominal, MaxC));
     }
 
     /// <summary>Resistance R (Ω) at <paramref name="temperatureK"/> by the CVD equation.</summary>
     public static double ResistanceOhm(RtdNominal nominal, double temperatureK) =>
-        CheckedR0(nominal) * Ratio(CheckedCelsius(temperatureK));
+        CheckedR0(nominal) * Ratio(nominal, CheckedCelsius(temperatureK));
 
     /// <summary>Slope dR/dT (Ω/K) at <paramref name="temperatureK"/>: the analytic derivative of the CVD equation.</summary>
     public static double SlopeOhmPerK(RtdNominal nominal, double temperatureK) =>
-        CheckedR0(nominal) * RatioSlope(CheckedCelsius(temperatureK));
+        CheckedR0(nominal) * RatioSlope(nominal, CheckedCelsius(temperatureK));
 
     /// <summary>
     /// Temperature (K) for a measured resistance (Ω): closed-form root of the quadratic for R ≥ R0, safeguarded
@@ -52,34 +53,34 @@ public static class CallendarVanDusen
         }
 
         double ratio = resistanceOhm / r0;
-        if (!(ratio >= Ratio(MinC) && ratio <= Ratio(MaxC)))
+        if (!(ratio >= Ratio(nominal, MinC) && ratio <= Ratio(nominal, MaxC)))
         {
             throw ResistanceRangeOhm(nominal).OutOfRange(resistanceOhm, Invariant($"RTD (R0 = {r0:R} ohm) resistance (ohm)"));
         }
 
-        double t = QuadraticRootC(ratio);
+        double t = QuadraticRootC(nominal, ratio);
         if (ratio < 1.0)
         {
-            t = MonotoneSolver.Solve(new LowRangeRatio(), ratio, MinC, 0.0, t, NewtonToleranceC);
+            t = MonotoneSolver.Solve(new LowRangeRatio(nominal), ratio, MinC, 0.0, t, NewtonToleranceC);
         }
 
         return t + Its90Thermocouple.KelvinOffset;
     }
 
-    private static double QuadraticRootC(double ratio)
+    private static double QuadraticRootC(RtdNominal k, double ratio)
     {
         // Rationalised root of B t² + A t − (ratio − 1) = 0: no cancellation near ratio = 1.
         double x = ratio - 1.0;
-        return 2.0 * x / (A + Math.Sqrt((A * A) + (4.0 * B * x)));
+        return 2.0 * x / (k.A + Math.Sqrt((k.A * k.A) + (4.0 * k.B * x)));
     }
 
-    private static double Ratio(double t) => t >= 0.0
-        ? 1.0 + (t * (A + (t * B)))
-        : 1.0 + (t * (A + (t * (B + (t * (t - 100.0) * C)))));
+    private static double Ratio(RtdNominal k, double t) => t >= 0.0
+        ? 1.0 + (t * (k.A + (t * k.B)))
+        : 1.0 + (t * (k.A + (t * (k.B + (t * (t - 100.0) * k.C)))));
 
-    private static double RatioSlope(double t) => t >= 0.0
-        ? A + (2.0 * B * t)
-        : A + (t * ((2.0 * B) + (t * ((4.0 * C * t) - (300.0 * C)))));
+    private static double RatioSlope(RtdNominal k, double t) => t >= 0.0
+        ? k.A + (2.0 * k.B * t)
+        : k.A + (t * ((2.0 * k.B) + (t * ((4.0 * k.C * t) - (300.0 * k.C)))));
 
     private static double CheckedCelsius(double temperatureK)
     {
@@ -96,10 +97,10 @@ public static class CallendarVanDusen
         ? nominal.R0Ohm
         : throw new BcPrepDataException("RTD nominal resistance R0 is not set (must be positive).");
 
-    private readonly struct LowRangeRatio : IDifferentiableFunction
+    private readonly struct LowRangeRatio(RtdNominal k) : IDifferentiableFunction
     {
-        public double Value(double x) => Ratio(x);
+        public double Value(double x) => Ratio(k, x);
 
-        public double Slope(double x) => RatioSlope(x);
+        public double Slope(double x) => RatioSlope(k, x);
     }
 }

@@ -54,20 +54,21 @@ public static class ForwardBackwardGustafsson
                 $"Series of {n} samples is too short for Gustafsson's initial states of an order-{m} filter: it needs more than {2 * m}."));
         }
 
-        // O: column k is the zero-input response to the unit state e_k, i.e. column 0 delayed by k (transposed direct form II).
+        // O: column k is the zero-input response to the unit state e_k, i.e. column 0 delayed by k (transposed direct
+        // form II), so only column 0 is stored: O[i, k] = o0[i − k] for i ≥ k, else 0. S: column k is the filter applied
+        // to O's column k reversed. Plain arrays, not matrices: the n×m matrices cost more than the filtering itself.
         var unitState = new double[m];
         unitState[0] = 1.0;
         var o0 = Filter(bn, an, new double[n], unitState);
-        var obs = Matrix<double>.Build.Dense(n, m, (i, k) => i >= k ? o0[i - k] : 0.0);
-        var s = Matrix<double>.Build.Dense(n, m);
+        var s = new double[m][];
+        var reversed = new double[n];
         for (int k = 0; k < m; k++)
         {
-            var reversed = new double[n];
             for (int i = 0; i < n; i++)
             {
-                reversed[i] = obs[n - 1 - i, k];
+                reversed[i] = O(o0, n - 1 - i, k);
             }
-            s.SetColumn(k, Filter(bn, an, reversed, new double[m]));
+            s[k] = Filter(bn, an, reversed, new double[m]);
         }
 
         var xs = x.ToArray();
@@ -81,25 +82,28 @@ public static class ForwardBackwardGustafsson
             int row = r < m ? r : n - (2 * m) + r;
             for (int k = 0; k < m; k++)
             {
-                matrix[r, k] = s[n - 1 - row, k] - obs[row, k];
-                matrix[r, m + k] = obs[n - 1 - row, k] - s[row, k];
+                matrix[r, k] = s[k][n - 1 - row] - O(o0, row, k);
+                matrix[r, m + k] = O(o0, n - 1 - row, k) - s[k][row];
             }
             delta[r] = yBf[row] - yFb[row];
         }
         var ic = matrix.QR().Solve(delta);
 
-        var y = new double[n];
+        var y = yFb;
         for (int i = 0; i < n; i++)
         {
             double w = 0.0;
             for (int k = 0; k < m; k++)
             {
-                w += (s[n - 1 - i, k] * ic[k]) + (obs[n - 1 - i, k] * ic[m + k]);
+                w += (s[k][n - 1 - i] * ic[k]) + (O(o0, n - 1 - i, k) * ic[m + k]);
             }
             y[i] = yFb[i] + w;
         }
         return y;
     }
+
+    /// <summary>Row i, column k of the zero-input response matrix O: column 0 delayed by k.</summary>
+    private static double O(double[] o0, int i, int k) => i >= k ? o0[i - k] : 0.0;
 
     /// <summary>Transposed-direct-form-II filtering of x from the state z (copied), like scipy lfilter with zi.</summary>
     private static double[] Filter(double[] b, double[] a, double[] x, double[] initialState)
@@ -121,10 +125,10 @@ public static class ForwardBackwardGustafsson
         return y;
     }
 
+    /// <summary>Reverses in place (every caller passes a temporary) and returns the same array.</summary>
     private static double[] Reverse(double[] x)
     {
-        var r = (double[])x.Clone();
-        Array.Reverse(r);
-        return r;
+        Array.Reverse(x);
+        return x;
     }
 }

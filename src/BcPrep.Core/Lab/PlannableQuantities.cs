@@ -1,3 +1,4 @@
+using BcPrep.Pipeline;
 using BcPrep.Rig;
 
 namespace BcPrep.Lab;
@@ -11,15 +12,15 @@ public static class PlannableQuantities
 {
     private static readonly (string Name, Dimension Dimension)[] Outputs =
     [
-        ("inlet.static_pressure", Dimension.Pressure),
-        ("outlet.static_pressure", Dimension.Pressure),
-        ("inlet.temperature", Dimension.Temperature),
-        ("outlet.temperature", Dimension.Temperature),
-        ("mass_flow", Dimension.MassFlow),
-        ("heater_power", Dimension.Power),
-        ("pressure_drop.measured", Dimension.Pressure),
-        ("reynolds", Dimension.Dimensionless),
-        ("mach", Dimension.Dimensionless),
+        (PointOutputs.InletStaticPressure.Name, Dimension.Pressure),
+        (PointOutputs.OutletStaticPressure.Name, Dimension.Pressure),
+        (PointOutputs.InletTemperature.Name, Dimension.Temperature),
+        (PointOutputs.OutletTemperature.Name, Dimension.Temperature),
+        (PointOutputs.MassFlow.Name, Dimension.MassFlow),
+        (PointOutputs.HeaterPower.Name, Dimension.Power),
+        (PointOutputs.PressureDropMeasured.Name, Dimension.Pressure),
+        (PointOutputs.Reynolds.Name, Dimension.Dimensionless),
+        (PointOutputs.Mach.Name, Dimension.Dimensionless),
     ];
 
     /// <summary>The dimension of <paramref name="name"/>, or null when it is nothing the matrix can plan.</summary>
@@ -32,7 +33,7 @@ public static class PlannableQuantities
                 return dimension;
             }
         }
-        const string wallPrefix = "wall.temperature.";
+        const string wallPrefix = ProfileOutputs.WallPointPrefix;
         if (name.StartsWith(wallPrefix, StringComparison.Ordinal) && rig.Channel(name[wallPrefix.Length..]) is { Role: ChannelRole.WallTemperature })
         {
             return Dimension.Temperature;
@@ -43,6 +44,6 @@ public static class PlannableQuantities
     /// <summary>Every name <see cref="DimensionOf"/> accepts for this rig, for "did you mean" hints.</summary>
     public static IEnumerable<string> Names(RigDescription rig) =>
         Outputs.Select(o => o.Name)
-            .Concat(rig.WithRole(ChannelRole.WallTemperature).Select(c => "wall.temperature." + c.Id))
+            .Concat(rig.WithRole(ChannelRole.WallTemperature).Select(c => ProfileOutputs.WallPoint(c.Id)))
             .Concat(rig.Channels.Select(c => c.Id));
 }

@@ -48,29 +48,36 @@ public static class VenturiTube
         return (4.0 + (100.0 * Math.Pow(beta, 8))) * differentialPressurePa / upstreamPressurePa;
     }
 
-    /// <summary>Mass flow q_m = C ε/√(1 − β⁴) (π/4) d² √(2 Δp ρ1), kg/s, with the standard's uncertainty statements.</summary>
-    public static DifferentialPressureFlowResult MassFlow(DifferentialPressureFlowInput input)
+    /// <summary>Mass flow q_m = C ε/√(1 − β⁴) (π/4) d² √(2 Δp ρ1), kg/s, with the standard's uncertainty statements (machined convergent).</summary>
+    public static DifferentialPressureFlowResult MassFlow(DifferentialPressureFlowInput input) => MassFlow(input, VenturiConvergent.Machined);
+
+    /// <summary>
+    /// As <see cref="MassFlow(DifferentialPressureFlowInput)"/> for the given convergent form (ISO 5167-4): its C and
+    /// uncertainty, its pipe-diameter and β range (outside them: an error), its Re_D range (outside: a warning).
+    /// </summary>
+    public static DifferentialPressureFlowResult MassFlow(DifferentialPressureFlowInput input, VenturiConvergent convergent)
     {
         ArgumentNullException.ThrowIfNull(input);
-        const string method = "ISO 5167-4 classical Venturi tubes (machined convergent)";
-        Require.InRange(input.PipeDiameterM, 0.050, 0.250, "pipe diameter", "m", method);
-        var beta = Require.InRange(input.ThroatDiameterM / input.PipeDiameterM, 0.4, 0.75, "diameter ratio beta", "", method);
+        var form = VenturiForm.Of(convergent);
+        var method = "ISO 5167-4 classical Venturi tubes (" + form.Name + ")";
+        Require.InRange(input.PipeDiameterM, form.MinPipeDiameterM, form.MaxPipeDiameterM, "pipe diameter", "m", method);
+        var beta = Require.InRange(input.ThroatDiameterM / input.PipeDiameterM, form.MinBeta, form.MaxBeta, "diameter ratio beta", "", method);
         Require.Positive(input.DifferentialPressurePa, "differential pressure", "Pa");
         Require.Positive(input.UpstreamDensityKgPerM3, "upstream density", "kg/m3");
         Require.Positive(input.ViscosityPaS, "viscosity", "Pa s");
         var epsilon = Expansibility(input.PipeDiameterM, input.ThroatDiameterM, input.UpstreamPressurePa,
             input.UpstreamPressurePa - input.DifferentialPressurePa, input.IsentropicExponent);
         var e = 1.0 / Math.Sqrt(1.0 - Math.Pow(beta, 4));
-        const double c = MachinedConvergentDischargeCoefficient;
+        var c = form.DischargeCoefficient;
         var massFlow = c * e * epsilon * Math.PI / 4.0 * input.ThroatDiameterM * input.ThroatDiameterM
             * Math.Sqrt(2.0 * input.DifferentialPressurePa * input.UpstreamDensityKgPerM3);
         var reynolds = PipeFlow.ReynoldsFromMassFlow(massFlow, input.PipeDiameterM, input.ViscosityPaS);
-        ImmutableArray<string> warnings = reynolds is >= 2.0e5 and <= 1.0e6
+        ImmutableArray<string> warnings = reynolds >= form.MinReynolds && reynolds <= form.MaxReynolds
             ? []
             : [string.Create(CultureInfo.InvariantCulture,
-                $"Re_D = {reynolds:F0} is outside 2e5..1e6 where C = 0.995 is stated for machined-convergent Venturi tubes: its stated uncertainty does not apply.")];
+                $"Re_D = {reynolds:F0} is outside {form.MinReynolds:0e0}..{form.MaxReynolds:0e0} where C = {c:R} is stated for {form.Name} Venturi tubes: its stated uncertainty does not apply.")];
         return new DifferentialPressureFlowResult(
-            massFlow, c, epsilon, e, beta, reynolds, 0, MachinedConvergentExpandedUncertaintyPercent,
+            massFlow, c, epsilon, e, beta, reynolds, 0, form.ExpandedUncertaintyPercent,
             ExpansibilityExpandedUncertaintyPercent(beta, input.DifferentialPressurePa, input.UpstreamPressurePa), warnings);
     }
 }

@@ -35,7 +35,7 @@ public sealed class BlockConverter
             DirectSensor d => new LinearChain(1.0, 0.0, d.UnitToSi, Direct: true),
             _ => null,
         };
-        var thermocouple = channel.Sensor is ThermocoupleSensor tc ? new ThermocoupleChain(ChannelConversion.ThermocoupleTypeOf(tc), tc.RawToSi) : null;
+        var thermocouple = channel.Sensor is ThermocoupleSensor tc ? new ThermocoupleChain(tc.Type, tc.RawToSi) : null;
         return new BlockConverter(ChannelConversion.For(channel), linear, thermocouple);
     }
 

@@ -5,7 +5,8 @@ namespace BcPrep.Pipeline;
 
 /// <summary>
 /// Streams a day's calibrated (SI) time series, logger by logger, with tares applied. A tare needs its interval's
-/// mean before the first row can be corrected, so a day with tares is read twice.
+/// mean before the first row can be corrected, so a day with tares is read twice. The tare is the one the point model
+/// subtracts (<see cref="FaultPolicy.Evaluate"/>'s de-spiked window mean), so both commands agree.
 /// </summary>
 public static class CalibratedSeries
 {
@@ -22,22 +23,22 @@ public static class CalibratedSeries
     {
         var result = new Dictionary<string, double>(StringComparer.Ordinal);
         var windows = rig.Channels.Where(c => c.Tare is not null)
-            .Select(c => new TimeWindow("tare:" + c.Id, DayProcessor.Resolve(c.Tare!.Start, plan.DayStartS), DayProcessor.Resolve(c.Tare.End, plan.DayStartS)))
+            .Select(c => TimeWindow.Tare(c.Id, DayProcessor.Resolve(c.Tare!.Start, plan.DayStartS), DayProcessor.Resolve(c.Tare.End, plan.DayStartS)))
             .ToList();
         if (windows.Count == 0)
         {
             return result;
         }
-        var collector = new WindowCollector(windows, (w, channel, _, values) =>
+        var collector = new WindowCollector(windows, (w, channel, times, values) =>
         {
-            if (w.Id == "tare:" + channel)
+            if (w.Serves(channel))
             {
-                var finite = values.Where(double.IsFinite).ToArray();
-                if (finite.Length == 0)
+                if (!values.Any(double.IsFinite))
                 {
                     throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel), $"the tare interval of '{channel}' holds no samples");
                 }
-                result[channel] = finite.Average();
+                // The tare `process` subtracts: the window statistics' mean (gaps bridged, spikes replaced).
+                result[channel] = FaultPolicy.Evaluate(rig, channel, w, times, values, plan.DayStartS).TypeA.Mean;
             }
         });
         DayScan.Run(rig, plan, converters, [collector]);

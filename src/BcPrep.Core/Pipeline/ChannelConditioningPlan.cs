@@ -73,7 +73,7 @@ public static class ChannelConditioningPlan
     {
         if (channel.Sensor is ThermocoupleSensor tc)
         {
-            var range = Its90Thermocouple.DirectRangeK(ChannelConversion.ThermocoupleTypeOf(tc));
+            var range = Its90Thermocouple.DirectRangeK(tc.Type);
             var margin = ThermocoupleRangeMargin * (range.Max - range.Min);
             return (range.Min + margin, range.Max - margin);
         }

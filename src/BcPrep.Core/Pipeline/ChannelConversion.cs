@@ -15,13 +15,13 @@ public static class ChannelConversion
         {
             case ThermocoupleSensor tc:
             {
-                var type = ThermocoupleTypeOf(tc);
+                var type = tc.Type;
                 var rawToSi = tc.RawToSi;
                 return (raw, referenceEmfV) => Its90Thermocouple.TemperatureK(type, rawToSi.Apply(raw) + referenceEmfV);
             }
             case RtdSensor rtd:
             {
-                var nominal = new RtdNominal(rtd.R0Ohm);
+                var nominal = rtd.Nominal;
                 var rawToSi = rtd.RawToSi;
                 return (raw, _) => CallendarVanDusen.TemperatureK(nominal, rawToSi.Apply(raw));
             }
@@ -50,6 +50,4 @@ public static class ChannelConversion
 
     public static FittedTableCalibration Fit(TableSensor table) =>
         FittedTableCalibration.Fit(table.Raw.ToArray(), table.Values.ToArray(), table.Degree);
-
-    public static ThermocoupleType ThermocoupleTypeOf(ThermocoupleSensor tc) => Enum.Parse<ThermocoupleType>(tc.Type);
 }

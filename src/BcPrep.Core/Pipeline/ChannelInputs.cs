@@ -25,6 +25,12 @@ public sealed class ChannelInputs
 
     public int? TareIndex { get; set; }
 
+    /// <summary>The end-of-day tare input, when the channel is tared at both ends of the day.</summary>
+    public int? EndTareIndex { get; set; }
+
+    /// <summary>Weight of the end tare at the point's time (0 = the start tare alone, 1 = the end tare alone).</summary>
+    public double EndTareWeight { get; set; }
+
     public IReadOnlyList<(int Index, double Coefficient)> Terms => _terms;
 
     public void AddTerm(int index, double coefficient) => _terms.Add((index, coefficient));
@@ -34,7 +40,9 @@ public sealed class ChannelInputs
         var value = x[MeanIndex];
         if (TareIndex is { } tare)
         {
-            value -= x[tare];
+            value -= EndTareIndex is { } end
+                ? ((1.0 - EndTareWeight) * x[tare]) + (EndTareWeight * x[end])
+                : x[tare];
         }
         foreach (var (index, coefficient) in _terms)
         {
@@ -66,10 +74,11 @@ public static class TypeBTerms
         }
         return term.Distribution switch
         {
-            "normal" => halfWidthOrU,
-            "triangular" => TypeB.FromTriangularHalfWidth(halfWidthOrU),
-            "arcsine" => TypeB.FromArcSineHalfWidth(halfWidthOrU),
-            _ => TypeB.FromRectangularHalfWidth(halfWidthOrU),
+            DistributionKind.Normal => halfWidthOrU,
+            DistributionKind.Triangular => TypeB.FromTriangularHalfWidth(halfWidthOrU),
+            DistributionKind.ArcSine => TypeB.FromArcSineHalfWidth(halfWidthOrU),
+            DistributionKind.Rectangular => TypeB.FromRectangularHalfWidth(halfWidthOrU),
+            _ => throw new ArgumentOutOfRangeException(nameof(term), term.Distribution, "a rig-file term has no such distribution"),
         };
     }
 
@@ -77,13 +86,7 @@ public static class TypeBTerms
     {
         UncertaintyTermKind.Certificate => DistributionKind.Normal,
         UncertaintyTermKind.Resolution => DistributionKind.Rectangular,
-        _ => term.Distribution switch
-        {
-            "normal" => DistributionKind.Normal,
-            "triangular" => DistributionKind.Triangular,
-            "arcsine" => DistributionKind.ArcSine,
-            _ => DistributionKind.Rectangular,
-        },
+        _ => term.Distribution,
     };
 
     private static double ToleranceHalfWidth(UncertaintyTerm term, ChannelSpec channel, double temperatureK)
@@ -99,7 +102,7 @@ public static class TypeBTerms
                     "3" => ThermocoupleToleranceClass.Class3,
                     _ => throw new BcPrepFailure(FailureKind.Configuration, channel.Location, $"thermocouple tolerance class '{cls}' is not 1, 2 or 3 (IEC 60584-1)"),
                 };
-                return ToleranceClasses.ThermocoupleHalfWidthK(ChannelConversion.ThermocoupleTypeOf(tc), tcClass, temperatureK);
+                return ToleranceClasses.ThermocoupleHalfWidthK(tc.Type, tcClass, temperatureK);
             case RtdSensor:
                 if (!Enum.TryParse<RtdToleranceClass>(cls, out var rtdClass))
                 {

@@ -16,9 +16,9 @@ namespace BcPrep.Pipeline;
 /// </summary>
 public static class DayProcessor
 {
-    // Accuracy of the Colebrook friction factor used as a 95 % bound in the pressure-drop check (from memory:
-    // commonly quoted ±5 % against smooth- and rough-pipe data).
-    public const double FrictionCorrelationAccuracy = 0.05;
+    // Accuracy of the Colebrook friction factor used as a 95 % bound in the pressure-drop check: ±15 %, the accuracy
+    // usually quoted for the Moody chart (White, Fluid Mechanics; from memory). See Physics/ModelForm.
+    public const double FrictionCorrelationAccuracy = ModelForm.FrictionCorrelationAccuracy;
 
     public static DayResult Process(RigDescription rig, IReadOnlyList<LogInput> logs, ProcessOptions options)
     {
@@ -32,7 +32,7 @@ public static class DayProcessor
         var pinned = rig.Points.Select(p => new TimeWindow(p.Id, Resolve(p.Start, plan.DayStartS), Resolve(p.End, plan.DayStartS))).ToList();
         var book = new WindowStatsBook();
         var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v, PinnedLocation(rig, w)),
-            collects: (w, c) => !w.Id.StartsWith("tare:", StringComparison.Ordinal) || w.Id == "tare:" + c);
+            collects: (w, c) => w.Serves(c));
         var extent = new DayExtentSink();
         var feed = DetectionFeed.For(rig, blocks);
         var index = new ScanIndex();
@@ -40,8 +40,7 @@ public static class DayProcessor
         var live = ReadsLive(rig, plan, pinned, options)
             ? new LiveDetection(rig, plan.DayStartS, feed.BlockSink, blocks, pinned, (w, c, t, v) => Collect(rig, plan.DayStartS, liveBook, w, c, t, v), options.KeptRowsS)
             : null;
-        DayScan.Run(rig, plan, converters, [.. feed.ChannelSinks, firstPass, extent], (IBlockSink?)live ?? feed.BlockSink, options.Progress, index);
-        live?.ReadDone();
+        DayScan.Run(rig, plan, converters, [firstPass, extent], (IBlockSink?)live ?? feed.BlockSink, options.Progress, index);
         feed.Complete();
         var lost = new Dictionary<string, Problem>(StringComparer.Ordinal);
         book.DrainInto(stats, lost: lost);
@@ -49,7 +48,13 @@ public static class DayProcessor
 
         var series = WindowFinder.Series(rig, blocks);
         SteadyDetectionResult? detection = null;
-        if (WindowFinder.IsEnabled(rig) || pinned.Count == 0)
+        if (live is not null)
+        {
+            // The scan that ran during the read is the day's detection.
+            WindowFinder.RequireBlocks(rig, series);
+            detection = live.Finish();
+        }
+        else if (WindowFinder.IsEnabled(rig) || pinned.Count == 0)
         {
             detection = WindowFinder.Detect(rig, series, plan.DayStartS);
         }
@@ -60,16 +65,21 @@ public static class DayProcessor
             throw new BcPrepFailure(FailureKind.NoSteadyPoint, WindowFinder.NoSteadyProblems(rig, detection!));
         }
         var detected = windowPlan.Points.Where(p => p.Origin == WindowOrigin.Detected).Select(p => p.Window).ToList();
-        var gathered = live is null ? [] : detected.Where(live.TryGatherNow).ToHashSet();
-        liveBook.DrainInto(stats, gathered.Contains, lost);
-        var readAgain = detected.Where(w => !gathered.Contains(w)).ToList();
-        if (readAgain.Count > 0)
+        // Each detected window goes to the first source that can serve it: the rows kept back, else a second read.
+        var secondRead = new SeekingSecondRead(rig, plan, converters, index, options.Progress, (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v));
+        IReadOnlyList<IWindowSource> sources = live is null ? [secondRead] : [live, secondRead];
+        var fromKeptRows = new HashSet<TimeWindow>();
+        foreach (var window in detected)
         {
-            var secondPass = new WindowCollector(readAgain, (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v));
-            // Only the blocks covering these windows are read again (seeking by the first pass's index).
-            DayScan.Run(rig, plan, converters, [secondPass], progress: options.Progress, index: index, onlyWindows: readAgain);
-            book.DrainInto(stats, lost: lost);
+            var source = sources.First(s => s.TryGather(window));
+            if (ReferenceEquals(source, live))
+            {
+                fromKeptRows.Add(window);
+            }
         }
+        liveBook.DrainInto(stats, fromKeptRows.Contains, lost);
+        secondRead.Complete();
+        book.DrainInto(stats, lost: lost);
         var dayWarnings = new List<string>();
         if (detection is { Accepted.Count: 0 })
         {
@@ -80,7 +90,8 @@ public static class DayProcessor
             dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, plan.DayStartS));
         }
 
-        var tareStats = TareStats(rig, stats);
+        var tareStats = TareStats(tareWindows, stats);
+        var endTares = EndTares(tareWindows, stats);
         // A point whose window lost too much to gaps fails alone; the others are reduced and written.
         var failed = windowPlan.Points.Where(p => lost.ContainsKey(p.Window.Id))
             .Select(p => new FailedPoint(p.Window.Id, p.Window.StartS, p.Window.EndS, lost[p.Window.Id].Message)).ToList();
@@ -89,13 +100,13 @@ public static class DayProcessor
         {
             throw new BcPrepFailure(FailureKind.InputData, failed.Select(f => lost[f.Id]).ToList());
         }
-        IReadOnlyList<PointResult> points = InOrder(reduced, p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, options));
+        IReadOnlyList<PointResult> points = InOrder(reduced, p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, endTares, options));
         MatrixReport? matrix = null;
         if (options.Matrix is not null)
         {
             (points, matrix) = MatrixNaming.Apply(options.Matrix, points);
         }
-        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = readAgain.Count };
+        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = secondRead.Count };
     }
 
     /// <summary>
@@ -139,10 +150,28 @@ public static class DayProcessor
 
     public static double Resolve(TimeBound bound, double dayStartS) => bound.IsAbsolute ? bound.Seconds : dayStartS + bound.Seconds;
 
+    private const string EndTarePrefix = "tare-end:";
+
     private static List<TimeWindow> TareWindows(RigDescription rig, double dayStartS) =>
-        rig.Channels.Where(c => c.Tare is not null)
-            .Select(c => new TimeWindow("tare:" + c.Id, Resolve(c.Tare!.Start, dayStartS), Resolve(c.Tare.End, dayStartS)))
-            .ToList();
+        [.. rig.Channels.Where(c => c.Tare is not null)
+            .Select(c => TimeWindow.Tare(c.Id, Resolve(c.Tare!.Start, dayStartS), Resolve(c.Tare.End, dayStartS))),
+         .. rig.Channels.Where(c => c.Tare is not null && c.TareEnd is not null)
+            .Select(c => new TimeWindow(EndTarePrefix + c.Id, Resolve(c.TareEnd!.Start, dayStartS), Resolve(c.TareEnd.End, dayStartS)) { TareOf = c.Id })];
+
+    /// <summary>Channels tared at both ends of the day: the end tare's statistics and both tare mid-times.</summary>
+    private static Dictionary<string, EndTare> EndTares(IReadOnlyList<TimeWindow> tareWindows, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
+    {
+        var result = new Dictionary<string, EndTare>(StringComparer.Ordinal);
+        foreach (var end in tareWindows.Where(w => w.Id.StartsWith(EndTarePrefix, StringComparison.Ordinal)))
+        {
+            var start = tareWindows.First(w => w.TareOf == end.TareOf && !w.Id.StartsWith(EndTarePrefix, StringComparison.Ordinal));
+            if (stats.TryGetValue(end.Id, out var byChannel) && byChannel.TryGetValue(end.TareOf!, out var s))
+            {
+                result[end.TareOf!] = new EndTare(s, 0.5 * (start.StartS + start.EndS), 0.5 * (end.StartS + end.EndS));
+            }
+        }
+        return result;
+    }
 
     private static void Collect(RigDescription rig, double dayStartS, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,
         SourceLocation? pinnedAt = null)
@@ -192,36 +221,37 @@ public static class DayProcessor
     /// <summary>Where a window pinned in the rig file (operating point or tare) is written; null for a detected one.</summary>
     private static SourceLocation? PinnedLocation(RigDescription rig, TimeWindow window)
     {
-        if (rig.Points.FirstOrDefault(p => p.Id == window.Id) is { } point)
+        if (window.TareOf is { } channel)
         {
-            return point.Location;
+            var tared = rig.Channel(channel)!;
+            return tared.Location with { Key = $"channel '{tared.Id}'.{(window.Id.StartsWith(EndTarePrefix, StringComparison.Ordinal) ? "tare_end" : "tare")}" };
         }
-        var tared = rig.Channels.FirstOrDefault(c => "tare:" + c.Id == window.Id);
-        return tared is null ? null : tared.Location with { Key = $"channel '{tared.Id}'.tare" };
+        return rig.Points.FirstOrDefault(p => p.Id == window.Id)?.Location;
     }
 
-    private static Dictionary<string, ChannelWindowStats> TareStats(RigDescription rig, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
+    private static Dictionary<string, ChannelWindowStats> TareStats(IReadOnlyList<TimeWindow> tareWindows, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
     {
         var result = new Dictionary<string, ChannelWindowStats>(StringComparer.Ordinal);
-        foreach (var channel in rig.Channels.Where(c => c.Tare is not null))
+        foreach (var window in tareWindows.Where(w => !w.Id.StartsWith(EndTarePrefix, StringComparison.Ordinal)))
         {
-            if (stats.TryGetValue("tare:" + channel.Id, out var byChannel) && byChannel.TryGetValue(channel.Id, out var s))
+            if (stats.TryGetValue(window.Id, out var byChannel) && byChannel.TryGetValue(window.TareOf!, out var s))
             {
-                result[channel.Id] = s;
+                result[window.TareOf!] = s;
             }
         }
         return result;
     }
 
     private static PointResult EvaluatePoint(RigDescription rig, TimeWindow window, WindowOrigin origin,
-        IReadOnlyDictionary<string, ChannelWindowStats> channels, IReadOnlyDictionary<string, ChannelWindowStats> tares, ProcessOptions options)
+        IReadOnlyDictionary<string, ChannelWindowStats> channels, IReadOnlyDictionary<string, ChannelWindowStats> tares,
+        IReadOnlyDictionary<string, EndTare> endTares, ProcessOptions options)
     {
         PointModel model;
         PointQuantities nominal;
         try
         {
             AbsolutePressureCheck.Require(rig, window.Id, channels, tares);
-            model = PointModel.Build(rig, channels, tares);
+            model = PointModel.Build(rig, channels, tares, endTares, 0.5 * (window.StartS + window.EndS));
             nominal = model.Physics(model.Estimates());
         }
         catch (BcPrepDataException e) when (e is not BcPrepFailure)
@@ -246,16 +276,16 @@ public static class DayProcessor
     {
         var checks = new List<CheckResult>();
         var warnings = new List<string>();
-        if (point.Output("energy_balance.mismatch") is { } balance)
+        if (point.Output(PointOutputs.EnergyBalanceMismatch) is { } balance)
         {
             checks.Add(new CheckResult("energy balance", Math.Abs(balance.Estimate) <= balance.ExpandedUncertainty, balance.Estimate, balance.ExpandedUncertainty, "1",
                 "|(P(1-loss) - m cp dT)/(P(1-loss))| within its expanded uncertainty"));
         }
-        if (point.Output("pressure_drop.measured") is { } measured && point.Output("pressure_drop.expected") is { } expected)
+        if (point.Output(PointOutputs.PressureDropMeasured) is { } measured && point.Output(PointOutputs.PressureDropExpected) is { } expected)
         {
             var tolerance = Math.Sqrt((measured.ExpandedUncertainty * measured.ExpandedUncertainty) + Math.Pow(FrictionCorrelationAccuracy * expected.Estimate, 2) + (expected.ExpandedUncertainty * expected.ExpandedUncertainty));
             checks.Add(new CheckResult("pressure drop", Math.Abs(measured.Estimate - expected.Estimate) <= tolerance, measured.Estimate - expected.Estimate, tolerance, "Pa",
-                "measured minus (Colebrook friction + acceleration), within the combined expanded uncertainty and ±5 % correlation accuracy"));
+                "measured minus (Colebrook friction + acceleration), within the combined expanded uncertainty and ±15 % correlation accuracy (Moody chart, White)"));
         }
         var re = point.Nominal.Reynolds;
         var regime = re < FrictionFactor.LaminarLimitReynolds ? "laminar" : re < 4000 ? "transitional" : "turbulent";
@@ -271,7 +301,7 @@ public static class DayProcessor
         }
         foreach (var stats in point.Channels.Values.Where(s => s.Faults.Count > 0))
         {
-            warnings.AddRange(stats.Faults.Select(f => $"channel '{stats.Channel}': {f.Kind}: {f.Evidence}"));
+            warnings.AddRange(stats.Faults.Select(f => $"channel '{stats.Channel}': {ChoiceSpelling.Name(f.Kind)}: {f.Evidence}"));
         }
         return (checks, warnings);
     }

@@ -207,7 +207,7 @@ public static class DayScan
             var convert = converters[channel.Id];
             var reference = ReferenceJunctionEmf(file, block, channel, si, referenceEmf);
             var fixedReference = channel.Sensor is ThermocoupleSensor { ColdJunctionK: { } k } tc
-                ? Its90Thermocouple.EmfV(ChannelConversion.ThermocoupleTypeOf(tc), k)
+                ? Its90Thermocouple.EmfV(tc.Type, k)
                 : 0.0;
             try
             {
@@ -253,7 +253,7 @@ public static class DayScan
         {
             return null;
         }
-        var type = ChannelConversion.ThermocoupleTypeOf(tc);
+        var type = tc.Type;
         if (cache.TryGetValue((junction, type), out var emf))
         {
             return emf;

@@ -9,13 +9,14 @@ namespace BcPrep.Pipeline;
 /// <para>
 /// The detector is fed block means as they become final (<see cref="SteadyScan"/>); a steady stretch is judged as
 /// soon as the day leaves it, and its averaging window then lies within the last
-/// <see cref="KeptSpanS"/> of the detector's clock, which is what the rows kept back cover. The windows gathered
-/// here are provisional: the day's detection is still run once over all block means when the read is over, and
-/// only the windows it plans with the same id and the same times keep their statistics (<see cref="TryGatherNow"/>);
-/// anything else is gathered from the kept rows then, or read again.
+/// <see cref="KeptSpanS"/> of the detector's clock, which is what the rows kept back cover. This scan is the day's
+/// detection: <see cref="Finish"/> feeds the last blocks, judges the last run and returns the result, which is final.
+/// A window accepted before the end keeps its point id (windows are accepted in time order and pinned windows are
+/// known from the start), so the statistics gathered for it during the read are the point's. A detected window the
+/// kept rows no longer cover is left to the next <see cref="IWindowSource"/>, a second read.
 /// </para>
 /// </summary>
-internal sealed class LiveDetection : IBlockSink
+internal sealed class LiveDetection : IBlockSink, IWindowSource
 {
     private readonly IBlockSink _detectionFeed;
     private readonly BlockMeanSink _blocks;
@@ -64,7 +65,7 @@ internal sealed class LiveDetection : IBlockSink
     {
         _detectionFeed.AcceptBlock(channels, timeS, valuesSi, count);
         _rows.Add(channels, timeS, valuesSi, count);
-        FeedFinalBlocks();
+        FeedBlocks(_blocks.FinalBlocks);
         while (_judged < _scan.Accepted.Count)
         {
             Gather(_scan.Accepted[_judged++]);
@@ -75,14 +76,23 @@ internal sealed class LiveDetection : IBlockSink
         }
     }
 
-    /// <summary>Call when the read is over: the rows kept are then all there will be.</summary>
-    public void ReadDone() => _rows.Complete();
+    /// <summary>
+    /// Call when the read is over and the block means are complete (after the detection feed's own completion): feeds
+    /// the blocks not yet final during the read, judges the last run and returns the day's detection. It is the same
+    /// scan over the same block means (times since the day's first sample) as <see cref="WindowFinder.Detect"/>.
+    /// </summary>
+    public SteadyDetectionResult Finish()
+    {
+        _rows.Complete();
+        FeedBlocks(_blocks.Length);
+        return _scan.Finish();
+    }
 
     /// <summary>
     /// True when <paramref name="window"/> (id and times) was gathered during the read or can be gathered now from
     /// the kept rows; false when it must be read again.
     /// </summary>
-    public bool TryGatherNow(TimeWindow window)
+    public bool TryGather(TimeWindow window)
     {
         if (_gathered.Contains(window))
         {
@@ -97,10 +107,9 @@ internal sealed class LiveDetection : IBlockSink
         return true;
     }
 
-    private void FeedFinalBlocks()
+    private void FeedBlocks(int count)
     {
-        var final = _blocks.FinalBlocks;
-        for (; _fedBlocks < final; _fedBlocks++)
+        for (; _fedBlocks < count; _fedBlocks++)
         {
             for (var k = 0; k < _keys.Count; k++)
             {
@@ -121,7 +130,7 @@ internal sealed class LiveDetection : IBlockSink
         var point = plan.Points.FirstOrDefault(p => p.Origin == WindowOrigin.Detected && ReferenceEquals(p.Detected[0], accepted));
         if (point is not null)
         {
-            TryGatherNow(point.Window);
+            TryGather(point.Window);
         }
     }
 }

@@ -6,7 +6,11 @@ namespace BcPrep.Pipeline;
 
 /// <summary>The nominal state of the differential-pressure flow meter of a point, for the manifest.</summary>
 public sealed record FlowMeterNominal(FlowMeterKind Kind, OrificeTapping? Tapping, DifferentialPressureFlowResult Result,
-    double UpstreamPressurePa, double UpstreamTemperatureK, double UpstreamDensityKgPerM3);
+    double UpstreamPressurePa, double UpstreamTemperatureK, double UpstreamDensityKgPerM3)
+{
+    /// <summary>Where C comes from: the standard's equation or value (with the Venturi's convergent form), or the meter's flow calibration.</summary>
+    public string DischargeCoefficientSource { get; init; } = "";
+}
 
 /// <summary>Mass flow from an ISO 5167 orifice plate or Venturi tube when the rig has no mass-flow channel.</summary>
 public sealed partial class PointModel
@@ -56,20 +60,34 @@ public sealed partial class PointModel
                 : PointPhysics.Density(_inletPressure(x), _inletTemperature(x), humidity(x)) * (p / _inletPressure(x)) * (_inletTemperature(x) / t);
             return new DifferentialPressureFlowInput(x[pipe], x[throat], dp(x), p, rho, DryAir.Viscosity(t) * x[_viscosityFactor], spec.IsentropicExponent);
         }
-        DifferentialPressureFlowResult Meter(double[] x) => spec.Kind == FlowMeterKind.Orifice
-            ? OrificeMeter.MassFlow(Input(x), spec.Tapping)
-            : VenturiTube.MassFlow(Input(x));
+        DifferentialPressureFlowResult Meter(double[] x) => spec.Calibration is { } calibration
+            ? CalibratedMeter.MassFlow(Input(x), calibration, venturi: spec.Kind == FlowMeterKind.Venturi)
+            : spec.Kind == FlowMeterKind.Orifice
+                ? OrificeMeter.MassFlow(Input(x), spec.Tapping)
+                : VenturiTube.MassFlow(Input(x), spec.Convergent);
 
         var estimates = Estimates();
         var nominal = Meter(estimates);
         var nominalInput = Input(estimates);
         FlowMeter = new FlowMeterNominal(spec.Kind, spec.Kind == FlowMeterKind.Orifice ? spec.Tapping : null, nominal,
-            nominalInput.UpstreamPressurePa, t1(estimates), nominalInput.UpstreamDensityKgPerM3);
+            nominalInput.UpstreamPressurePa, t1(estimates), nominalInput.UpstreamDensityKgPerM3)
+        {
+            DischargeCoefficientSource = spec.Calibration is { } c
+                ? $"flow calibration {c.Certificate}: {c.Describe()}"
+                : spec.Kind == FlowMeterKind.Orifice
+                    ? "ISO 5167-2 Reader-Harris/Gallagher equation"
+                    : "ISO 5167-4, " + VenturiForm.Of(spec.Convergent).Name,
+        };
         _modelWarnings.AddRange(nominal.Warnings);
         var standard = spec.Kind == FlowMeterKind.Orifice ? "ISO 5167-2 §5.3.3" : "ISO 5167-4";
-        var cFactor = Add(new UncertaintyInput("discharge coefficient C (" + standard + ")", 1.0,
-            TypeB.FromCertificate(nominal.DischargeCoefficientExpandedUncertaintyPercent / 100.0, IsoCoverageFactor), double.PositiveInfinity,
-            DistributionKind.Normal, EvaluationType.TypeB, standard + ": 95 % relative uncertainty of C, k = 2"));
+        var cFactor = spec.Calibration is { } cal
+            ? Add(new UncertaintyInput("discharge coefficient C (flow calibration " + cal.Certificate + ")", 1.0,
+                TypeB.FromCertificate(cal.ExpandedUncertaintyPercent / 100.0, cal.CoverageFactor), double.PositiveInfinity,
+                DistributionKind.Normal, EvaluationType.TypeB, string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                    $"flow calibration {cal.Certificate}: relative expanded uncertainty of C {cal.ExpandedUncertaintyPercent:R} %, k = {cal.CoverageFactor:R}")))
+            : Add(new UncertaintyInput("discharge coefficient C (" + standard + ")", 1.0,
+                TypeB.FromCertificate(nominal.DischargeCoefficientExpandedUncertaintyPercent / 100.0, IsoCoverageFactor), double.PositiveInfinity,
+                DistributionKind.Normal, EvaluationType.TypeB, standard + ": 95 % relative uncertainty of C, k = 2"));
         var epsilonFactor = Add(new UncertaintyInput("expansibility factor (" + standard + ")", 1.0,
             TypeB.FromCertificate(nominal.ExpansibilityExpandedUncertaintyPercent / 100.0, IsoCoverageFactor), double.PositiveInfinity,
             DistributionKind.Normal, EvaluationType.TypeB, standard + ": 95 % relative uncertainty of the expansibility factor, k = 2"));

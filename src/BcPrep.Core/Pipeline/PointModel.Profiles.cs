@@ -67,6 +67,7 @@ public sealed partial class PointModel
         RelativeHumidity = _humidity?.Invoke(x) ?? double.NaN,
         RakeRadiiM = _rake.Count == 0 ? [] : RakeRadii(x),
         RakeTemperaturesK = _rake.Count == 0 ? [] : RakeTemperatures(x),
+        TurbulenceIntensityFactor = _turbulenceFactor < 0 ? 1.0 : x[_turbulenceFactor],
     };
 
     /// <summary>Wall thermocouples at the same position are averaged; the grid spans inlet to outlet plane.</summary>

@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using System.Globalization;
 using BcPrep.Calibration;
+using BcPrep.Physics;
 using BcPrep.Profiles;
 using BcPrep.Rig;
 using BcPrep.Uncertainty;
@@ -14,10 +15,10 @@ namespace BcPrep.Pipeline;
 /// </summary>
 public sealed partial class PointModel
 {
-    // Property-model uncertainty, rectangular half-widths: Sutherland's law against Incropera Table A.4 deviates by
-    // 0.2–0.7 % (reference sheet §7, table from memory); ideal-gas cp against 1-atm tables by 0.2–0.4 %.
+    // Property-model uncertainty, rectangular half-widths below 380 K; see Physics/ModelForm for their sources and
+    // for how they grow with temperature.
     public const double ViscosityModelHalfWidth = 0.007;
-    public const double CpModelHalfWidth = 0.004;
+    public const double CpModelHalfWidth = ModelForm.CpHalfWidth;
 
     private readonly List<UncertaintyInput> _inputs = [];
     private readonly Dictionary<string, ChannelInputs> _channels = new(StringComparer.Ordinal);
@@ -26,6 +27,7 @@ public sealed partial class PointModel
     private int _loss;
     private int _viscosityFactor;
     private int _cpFactor;
+    private int _turbulenceFactor = -1;
     private Func<double[], double> _inletPressure = null!;
     private Func<double[], double> _outletPressure = null!;
     private Func<double[], double> _inletTemperature = null!;
@@ -47,11 +49,14 @@ public sealed partial class PointModel
     public static PointModel Build(
         RigDescription rig,
         IReadOnlyDictionary<string, ChannelWindowStats> window,
-        IReadOnlyDictionary<string, ChannelWindowStats> tares)
+        IReadOnlyDictionary<string, ChannelWindowStats> tares,
+        IReadOnlyDictionary<string, EndTare>? endTares = null,
+        double pointMidS = double.NaN)
     {
         var model = new PointModel(SettingsOf(rig));
         model.AddChannelInputs(rig, window, tares);
-        model.AddModelInputs(rig);
+        model.AddEndTares(rig, endTares, pointMidS);
+        model.AddModelInputs(rig, window);
         model.ResolveRoles(rig);
         model.DefineOutputs();
         return model;
@@ -60,16 +65,7 @@ public sealed partial class PointModel
     public static PointSettings SettingsOf(RigDescription rig)
     {
         var spacing = rig.Duct.PlanePositionsM["outlet"] - rig.Duct.PlanePositionsM["inlet"];
-        var model = rig.Profiles.VelocityModel switch
-        {
-            "uniform" => VelocityProfileModel.Uniform,
-            "laminar" => VelocityProfileModel.Laminar,
-            "power_law" => VelocityProfileModel.PowerLaw,
-            "spalding" => VelocityProfileModel.Spalding,
-            "reichardt" => VelocityProfileModel.Reichardt,
-            _ => VelocityProfileModel.Auto,
-        };
-        return new PointSettings(rig.Duct.WallRoughnessM, rig.Duct.HeatedLengthM, spacing, model, rig.Profiles.RadialPoints,
+        return new PointSettings(rig.Duct.WallRoughnessM, rig.Duct.HeatedLengthM, spacing, rig.Profiles.VelocityModel, rig.Profiles.RadialPoints,
             rig.Profiles.TurbulenceIntensity, rig.Profiles.LengthScaleM);
     }
 
@@ -111,6 +107,17 @@ public sealed partial class PointModel
                 inputs.AddTerm(Add(new UncertaintyInput($"{channel.Id}: {term.Source}", 0.0, u, term.DegreesOfFreedom,
                     TypeBTerms.Distribution(term), EvaluationType.TypeB, term.Source)), 1.0);
             }
+            if (channel.Sensor is ThermocoupleSensor thermocouple)
+            {
+                AddInverseCorrection(inputs, channel.Id, thermocouple, stats, window);
+            }
+            if (channel.Sensor is RtdSensor { Certificate: { } rtdCertificate })
+            {
+                // The certificate's A, B, C are already in the conversion; its uncertainty enters here.
+                inputs.AddTerm(Add(new UncertaintyInput($"{channel.Id}: calibration certificate {rtdCertificate.Certificate}", 0.0,
+                    rtdCertificate.ExpandedUncertaintyK / rtdCertificate.CoverageFactor, double.PositiveInfinity, DistributionKind.Normal, EvaluationType.TypeB,
+                    $"certificate {rtdCertificate.Certificate}: own Callendar-Van Dusen coefficients, expanded uncertainty with k = {rtdCertificate.CoverageFactor.ToString(CultureInfo.InvariantCulture)}")), 1.0);
+            }
             if (channel.Sensor is TableSensor table)
             {
                 var fit = ChannelConversion.Fit(table);
@@ -123,6 +130,70 @@ public sealed partial class PointModel
         CoupleColdJunctions(rig, window);
     }
 
+    /// <summary>
+    /// A channel tared at both ends of the day: the zero subtracted is the start tare plus the end tare weighted by
+    /// where the point lies between them in time (linear drift, common practice). A drift between the two tares
+    /// larger than the declared zero uncertainty (<see cref="ChannelSpec.ZeroUncertaintySi"/>, else the channel's
+    /// absolute and span terms) draws a warning in the manifest and the report.
+    /// </summary>
+    private void AddEndTares(RigDescription rig, IReadOnlyDictionary<string, EndTare>? endTares, double pointMidS)
+    {
+        if (endTares is null)
+        {
+            return;
+        }
+        foreach (var (channelId, end) in endTares)
+        {
+            if (!_channels.TryGetValue(channelId, out var inputs) || inputs.TareIndex is not { } startIndex || rig.Channel(channelId) is not { } channel)
+            {
+                continue;
+            }
+            var startEstimate = _inputs[startIndex].Estimate;
+            inputs.EndTareIndex = Add(new UncertaintyInput($"{channelId} end-of-day tare mean", end.Stats.TypeA.Mean, end.Stats.TypeA.StandardUncertainty,
+                end.Stats.TypeA.DegreesOfFreedom, DistributionKind.Normal, EvaluationType.TypeA, "no-flow tare reading at the end of the day (Type A)"));
+            inputs.EndTareWeight = double.IsFinite(pointMidS) ? end.WeightAt(pointMidS) : 0.0;
+            var drift = end.Stats.TypeA.Mean - startEstimate;
+            var allowed = channel.ZeroUncertaintySi ?? Math.Sqrt(channel.Uncertainty
+                .Where(u => u.Kind is UncertaintyTermKind.Absolute or UncertaintyTermKind.PercentOfSpan)
+                .Sum(u => Math.Pow(TypeBTerms.StandardUncertainty(u, channel, 0.0), 2)));
+            if (Math.Abs(drift) > allowed)
+            {
+                _modelWarnings.Add(string.Create(CultureInfo.InvariantCulture,
+                    $"channel '{channelId}': its zero drifted by {drift:G4} (SI) between the start and end tares, more than the declared zero uncertainty {allowed:G4}; the zero is interpolated linearly in time, but a drift this size may not be linear"));
+            }
+        }
+    }
+
+    /// <summary>
+    /// Thermocouples are inverted exactly by default: the samples go through the NIST inverse polynomial (fast,
+    /// vectorised), and the window mean is moved onto the exact inverse of the reference function
+    /// (<see cref="InversePolynomialCorrection"/>). The correction is an input of its own, so the budget shows it.
+    /// </summary>
+    private void AddInverseCorrection(ChannelInputs inputs, string channelId, ThermocoupleSensor thermocouple, ChannelWindowStats stats,
+        IReadOnlyDictionary<string, ChannelWindowStats> window)
+    {
+        if (!double.IsFinite(stats.TypeA.Mean))
+        {
+            return;
+        }
+        var type = thermocouple.Type;
+        var fix = InversePolynomialCorrection.ForWindow(type, stats.TypeA.Mean, stats.StandardDeviation);
+        inputs.AddTerm(Add(new UncertaintyInput($"{channelId}: ITS-90 inverse polynomial correction", fix.CorrectionK,
+            TypeB.FromRectangularHalfWidth(fix.RemainderHalfWidthK), double.PositiveInfinity, DistributionKind.Rectangular, EvaluationType.TypeB,
+            "exact inverse of the NIST ITS-90 reference function at the window mean, less the inverse polynomial's value")), 1.0);
+        if (thermocouple.Certificate is not { } certificate)
+        {
+            return;
+        }
+        var referenceK = stats.TypeA.Mean + fix.CorrectionK;
+        var junctionK = thermocouple.ColdJunctionK
+            ?? (thermocouple.ColdJunctionChannel is { } cj && window.TryGetValue(cj, out var junction) ? junction.TypeA.Mean : Its90Thermocouple.KelvinOffset);
+        var correction = certificate.CorrectionK(type, referenceK, junctionK);
+        inputs.AddTerm(Add(new UncertaintyInput($"{channelId}: certificate correction ({certificate.Certificate})", correction,
+            certificate.StandardUncertaintyK(type, referenceK + correction), double.PositiveInfinity, DistributionKind.Normal, EvaluationType.TypeB,
+            $"certificate {certificate.Certificate}: {certificate.Kind.ToString().ToLowerInvariant()} correction, expanded uncertainty with k = {certificate.CoverageFactor.ToString(CultureInfo.InvariantCulture)}")), 1.0);
+    }
+
     /// <summary>A cold-junction sensor's error enters each thermocouple scaled by S(T_cj)/S(T_hot) (emf addition).</summary>
     private void CoupleColdJunctions(RigDescription rig, IReadOnlyDictionary<string, ChannelWindowStats> window)
     {
@@ -132,7 +203,7 @@ public sealed partial class PointModel
             {
                 continue;
             }
-            var sensitivity = ColdJunction.SensitivityToReferenceJunction(ChannelConversion.ThermocoupleTypeOf(tc), window[channel.Id].Mean, window[cj].Mean);
+            var sensitivity = ColdJunction.SensitivityToReferenceJunction(tc.Type, window[channel.Id].Mean, window[cj].Mean);
             foreach (var (index, coefficient) in cold.Terms)
             {
                 hot.AddTerm(index, coefficient * sensitivity);
@@ -140,15 +211,30 @@ public sealed partial class PointModel
         }
     }
 
-    private void AddModelInputs(RigDescription rig)
+    private void AddModelInputs(RigDescription rig, IReadOnlyDictionary<string, ChannelWindowStats> window)
     {
         _diameter = Add(new UncertaintyInput("duct inner diameter", rig.Duct.InnerDiameterM, rig.Duct.InnerDiameterStdM, double.PositiveInfinity,
             DistributionKind.Normal, EvaluationType.TypeB, "rig file: duct.inner_diameter_uncertainty"));
         _loss = Add(LossFractionInput(rig.Duct.HeaterLossFraction, rig.Duct.HeaterLossFractionStd));
-        _viscosityFactor = Add(new UncertaintyInput("viscosity model (Sutherland)", 1.0, TypeB.FromRectangularHalfWidth(ViscosityModelHalfWidth), double.PositiveInfinity,
-            DistributionKind.Rectangular, EvaluationType.TypeB, "Sutherland's law against handbook tables, ±0.7 %"));
-        _cpFactor = Add(new UncertaintyInput("cp model (ideal gas)", 1.0, TypeB.FromRectangularHalfWidth(CpModelHalfWidth), double.PositiveInfinity,
-            DistributionKind.Rectangular, EvaluationType.TypeB, "ideal-gas cp against 1-atm tables, ±0.4 %"));
+
+        // The property models are judged where the air is: the hottest and the mean of the bulk-temperature means.
+        var bulk = rig.WithRole(ChannelRole.BulkTemperature).Select(c => window.TryGetValue(c.Id, out var w) ? w.TypeA.Mean : double.NaN)
+            .Where(double.IsFinite).DefaultIfEmpty(293.15).ToList();
+        var hottestK = bulk.Max();
+        var viscosityHalfWidth = ModelForm.ViscosityHalfWidth(hottestK);
+        _viscosityFactor = Add(new UncertaintyInput("viscosity model (Sutherland)", 1.0, TypeB.FromRectangularHalfWidth(viscosityHalfWidth), double.PositiveInfinity,
+            DistributionKind.Rectangular, EvaluationType.TypeB, string.Create(CultureInfo.InvariantCulture,
+                $"Sutherland's law against Lemmon & Jacobsen (2004): ±{viscosityHalfWidth * 100:0.##} % at {hottestK:F0} K (±0.7 % holds below 380 K)")));
+        var meanK = bulk.Average();
+        _cpFactor = Add(new UncertaintyInput("cp model (ideal gas, corrected to 1-atm tables)", ModelForm.CpCorrection(meanK), TypeB.FromRectangularHalfWidth(CpModelHalfWidth), double.PositiveInfinity,
+            DistributionKind.Rectangular, EvaluationType.TypeB, string.Create(CultureInfo.InvariantCulture,
+                $"ideal-gas cp is biased low: factor {ModelForm.CpCorrection(meanK):F4} at {meanK:F0} K from 1-atm tables (Incropera A.4, Çengel A-15), ±0.15 %")));
+        if (rig.Profiles.TurbulenceIntensity is null)
+        {
+            _turbulenceFactor = Add(new UncertaintyInput("turbulence intensity model (0.16 Re^-1/8)", 1.0, TypeB.FromRectangularHalfWidth(ModelForm.TurbulenceIntensityHalfWidth),
+                double.PositiveInfinity, DistributionKind.Rectangular, EvaluationType.TypeB,
+                "core-flow estimate against area-averaged pipe-flow fits (Russo & Basse 2016): about a factor of 2 apart, ±50 %"));
+        }
     }
 
     /// <summary>
@@ -243,60 +329,48 @@ public sealed partial class PointModel
         var x = Estimates();
         var nominal = PointPhysics.Evaluate(MeasurementsAt(x), _settings);
         ProfileRadiiM = nominal.Velocity.Profile.RadiusM;
-        var all = Definitions(nominal.Velocity.Profile.RadiusM.Length, nominal.TemperatureProfile is null ? 0 : nominal.Velocity.Profile.RadiusM.Length);
+        _runs = Runs(nominal.Velocity.Profile.RadiusM.Length, nominal.TemperatureProfile is null ? 0 : nominal.Velocity.Profile.RadiusM.Length);
+        var all = _runs.SelectMany(r => r.Definitions).ToList();
         var values = Flatten(MeasurementsAt(x), nominal, includeAll: true);
         _included = all.Select((d, i) => double.IsFinite(values[i])).ToArray();
         Outputs = all.Where((d, i) => _included[i]).ToList();
     }
 
     private bool[] _included = [];
+    private IReadOnlyList<OutputRun> _runs = [];
 
-    private List<QuantityDefinition> Definitions(int profilePoints, int temperatureProfilePoints)
+    /// <summary>A run of outputs read together from the model's result: their definitions, and how their values are appended.</summary>
+    private sealed record OutputRun(IReadOnlyList<QuantityDefinition> Definitions, Action<PointMeasurements, PointQuantities, List<double>> Append);
+
+    /// <summary>
+    /// The point's output table: the scalars of <see cref="PointOutputs"/>, then this point's wall thermocouples, velocity
+    /// profile, wall grid and rake profile. Definitions and values both come from it, so they cannot fall out of step.
+    /// </summary>
+    private List<OutputRun> Runs(int profilePoints, int temperatureProfilePoints)
     {
-        var list = new List<QuantityDefinition>
-        {
-            new("inlet.static_pressure", "Pa", "absolute static pressure at the inlet plane"),
-            new("outlet.static_pressure", "Pa", "absolute static pressure at the outlet plane"),
-            new("inlet.temperature", "K", "bulk temperature at the inlet plane"),
-            new("outlet.temperature", "K", "bulk temperature at the outlet plane"),
-            new("mass_flow", "kg/s", "mass flow through the duct"),
-            new("heater_power", "W", "electrical heater power"),
-            new("wall.heat_flux", "W/m2", "wall heat flux over the heated length, losses removed"),
-            new("inlet.density", "kg/m3", "density at the inlet plane (ideal-gas dry air, or CIPM-2007 moist air with a humidity channel)"),
-            new("inlet.viscosity", "Pa s", "dynamic viscosity at the inlet plane (Sutherland)"),
-            new("inlet.bulk_velocity", "m/s", "bulk velocity at the inlet plane"),
-            new("reynolds", "1", "Reynolds number on diameter at inlet conditions"),
-            new("mach", "1", "Mach number at the inlet plane"),
-            new("inlet.turbulence_intensity", "1", "turbulence intensity"),
-            new("inlet.turbulent_kinetic_energy", "m2/s2", "k"),
-            new("inlet.turbulence_length_scale", "m", "length scale l"),
-            new("inlet.dissipation_rate", "m2/s3", "epsilon = Cmu^(3/4) k^(3/2) / l"),
-            new("inlet.specific_dissipation_rate", "1/s", "omega = k^(1/2) / (Cmu^(1/4) l)"),
-            new("pressure_drop.measured", "Pa", "inlet minus outlet static pressure"),
-            new("pressure_drop.expected", "Pa", "friction (Colebrook) plus flow acceleration between the planes"),
-            new("energy_balance.mismatch", "1", "(P(1-loss) - m cp (T_out - T_in)) / (P(1-loss))"),
-        };
-        list.AddRange(_wallChannels.Select(c => new QuantityDefinition($"wall.temperature.{c.Id}", "K", string.Create(CultureInfo.InvariantCulture, $"wall temperature at z = {c.AxialPositionM:G6} m"))));
-        list.AddRange(Enumerable.Range(0, profilePoints).Select(i => new QuantityDefinition($"inlet.velocity.{i}", "m/s", "axial velocity at profile point " + i)));
-        list.AddRange(WallGridM.Select((z, i) => new QuantityDefinition($"{ProfileOutputs.WallGridPrefix}{i}", "K",
-            string.Create(CultureInfo.InvariantCulture, $"wall temperature interpolated at z = {z:G6} m"))));
-        list.AddRange(Enumerable.Range(0, temperatureProfilePoints).Select(i => new QuantityDefinition($"{ProfileOutputs.TemperaturePrefix}{i}", "K", "inlet temperature from the rake at profile point " + i)));
-        return list;
+        var runs = PointOutputs.Scalars.Select(s => new OutputRun([s.Definition], (m, q, into) => into.Add(s.Value(m, q)))).ToList();
+        runs.Add(new([.. _wallChannels.Select(c => new QuantityDefinition(ProfileOutputs.WallPoint(c.Id), "K",
+                string.Create(CultureInfo.InvariantCulture, $"wall temperature at z = {c.AxialPositionM:G6} m")) { Kind = QuantityKind.WallPoint })],
+            (m, _, into) => into.AddRange(m.WallTemperaturesK)));
+        runs.Add(new([.. Enumerable.Range(0, profilePoints).Select(i => new QuantityDefinition(ProfileOutputs.Velocity(i), "m/s",
+                "axial velocity at profile point " + i) { Kind = QuantityKind.ProfilePoint })],
+            (_, q, into) => into.AddRange(q.Velocity.Profile.Values)));
+        runs.Add(new([.. WallGridM.Select((z, i) => new QuantityDefinition(ProfileOutputs.WallGrid(i), "K",
+                string.Create(CultureInfo.InvariantCulture, $"wall temperature interpolated at z = {z:G6} m")) { Kind = QuantityKind.ProfilePoint })],
+            (m, _, into) => into.AddRange(WallGridTemperatures(m))));
+        runs.Add(new([.. Enumerable.Range(0, temperatureProfilePoints).Select(i => new QuantityDefinition(ProfileOutputs.Temperature(i), "K",
+                "inlet temperature from the rake at profile point " + i) { Kind = QuantityKind.ProfilePoint })],
+            (_, q, into) => into.AddRange(q.TemperatureProfile?.Profile.Values ?? [])));
+        return runs;
     }
 
     private double[] Flatten(PointMeasurements m, PointQuantities q, bool includeAll)
     {
-        var values = new List<double>
+        var values = new List<double>(_included.Length);
+        foreach (var run in _runs)
         {
-            m.InletPressurePa, m.OutletPressurePa, m.InletTemperatureK, m.OutletTemperatureK, m.MassFlowKgS, m.HeaterPowerW,
-            q.WallHeatFlux, q.InletDensity, q.InletViscosity, q.BulkVelocity, q.Reynolds, q.Mach,
-            q.TurbulenceIntensity, q.TurbulentKineticEnergy, q.TurbulenceLengthScale, q.DissipationRate, q.SpecificDissipationRate,
-            q.PressureDropMeasured, q.PressureDropExpected, q.EnergyBalanceMismatch,
-        };
-        values.AddRange(m.WallTemperaturesK);
-        values.AddRange(q.Velocity.Profile.Values);
-        values.AddRange(WallGridTemperatures(m));
-        values.AddRange(q.TemperatureProfile?.Profile.Values ?? []);
+            run.Append(m, q, values);
+        }
         if (includeAll)
         {
             return values.ToArray();

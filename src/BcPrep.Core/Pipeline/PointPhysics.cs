@@ -26,6 +26,9 @@ public sealed record PointMeasurements(
 
     /// <summary>Rake temperatures (K), one per radius.</summary>
     public ImmutableArray<double> RakeTemperaturesK { get; init; } = [];
+
+    /// <summary>Model-form factor on the correlation's turbulence intensity (1 = the correlation as published).</summary>
+    public double TurbulenceIntensityFactor { get; init; } = 1.0;
 }
 
 /// <summary>Fixed geometry and settings that are not uncertain inputs.</summary>
@@ -122,7 +125,7 @@ public static class PointPhysics
         {
             return null; // laminar inlet: no turbulence quantities to prescribe
         }
-        var intensity = s.TurbulenceIntensity ?? InletTurbulence.PipeIntensity(reynolds);
+        var intensity = s.TurbulenceIntensity ?? (InletTurbulence.PipeIntensity(reynolds) * m.TurbulenceIntensityFactor);
         var length = s.LengthScaleM ?? InletTurbulence.LengthScaleToDiameter * m.DiameterM;
         return InletTurbulence.FromIntensityAndLengthScale(bulk, intensity, length, kinematic);
     }

@@ -43,6 +43,9 @@ public sealed record PointResult(
     }
 
     public GumOutput? Output(string name) => OutputIndex(name) is var i and >= 0 ? Gum.Outputs[i] : null;
+
+    /// <summary>The GUM result of one scalar of <see cref="PointOutputs"/>; null when the point does not define it.</summary>
+    public GumOutput? Output(ScalarOutput output) => Output(output.Name);
 }
 
 /// <summary>The result of processing a test day.</summary>

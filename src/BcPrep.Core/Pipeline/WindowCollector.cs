@@ -3,7 +3,16 @@ namespace BcPrep.Pipeline;
 /// <summary>A time interval on the log clock (s) for which samples are gathered.</summary>
 public sealed record TimeWindow(string Id, double StartS, double EndS)
 {
+    /// <summary>The channel whose no-flow tare this window is; null for an operating point's window.</summary>
+    public string? TareOf { get; init; }
+
     public double DurationS => EndS - StartS;
+
+    /// <summary>The tare window of a channel: it serves that channel only, and its id ("tare:" + channel) is only a label.</summary>
+    public static TimeWindow Tare(string channel, double startS, double endS) => new("tare:" + channel, startS, endS) { TareOf = channel };
+
+    /// <summary>Whether this window's samples of <paramref name="channel"/> are wanted: a tare window serves its own channel only.</summary>
+    public bool Serves(string channel) => TareOf is null || TareOf == channel;
 
     public bool Contains(double timeS) => timeS >= StartS && timeS <= EndS;
 }

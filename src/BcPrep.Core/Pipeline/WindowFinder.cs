@@ -2,7 +2,6 @@ using System.Globalization;
 using BcPrep.Reading;
 using BcPrep.Rig;
 using BcPrep.Steady;
-using DetectorSettings = BcPrep.Steady.SteadySettings;
 
 namespace BcPrep.Pipeline;
 
@@ -33,7 +32,7 @@ public static class WindowFinder
         var plan = DayPlan.Create(rig, logs);
         var converters = rig.Channels.ToDictionary(c => c.Id, BlockConverter.For, StringComparer.Ordinal);
         var feed = DetectionFeed.For(rig, new BlockMeanSink(plan.DayStartS, rig.Steady.BlockS));
-        DayScan.Run(rig, plan, converters, feed.ChannelSinks, feed.BlockSink);
+        DayScan.Run(rig, plan, converters, [], feed.BlockSink);
         feed.Complete();
         var series = Series(rig, feed.Blocks);
         return new DayWindows(plan.DayStartS, series, Detect(rig, series, plan.DayStartS));
@@ -62,13 +61,22 @@ public static class WindowFinder
             throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation(rig.SourceFile, Key: "steady.key"),
                 "no [[point]] windows are pinned, [steady] names no key channel, and the rig has no mass flow, outlet or wall temperature channel to detect them with by default");
         }
+        RequireBlocks(rig, series);
+        var times = series.TimesS.Select(t => t - dayStartS).ToArray();
+        return PlateauDetector.Detect(times, DetectionKeys.For(rig, channel => series.Means[channel]), Settings(rig.Steady));
+    }
+
+    /// <summary>Refuses a day too short to look for a steady window in (fewer than three blocks).</summary>
+    /// <exception cref="BcPrepFailure">NoSteadyPoint.</exception>
+    public static void RequireBlocks(RigDescription rig, BlockSeries series)
+    {
+        ArgumentNullException.ThrowIfNull(rig);
+        ArgumentNullException.ThrowIfNull(series);
         if (series.TimesS.Length < 3)
         {
             throw new BcPrepFailure(FailureKind.NoSteadyPoint, new SourceLocation("(logs)"),
                 string.Create(CultureInfo.InvariantCulture, $"the day holds {series.TimesS.Length} block(s) of {rig.Steady.BlockS} s: too short to look for a steady window"));
         }
-        var times = series.TimesS.Select(t => t - dayStartS).ToArray();
-        return PlateauDetector.Detect(times, DetectionKeys.For(rig, channel => series.Means[channel]), Settings(rig.Steady));
     }
 
     /// <summary>The detector's key channels from the rig file, with their block means.</summary>
@@ -84,10 +92,10 @@ public static class WindowFinder
     /// Detector settings from the rig file. The test window slides in steps of window/30 (at least one block): fine
     /// enough to place a stretch's edges within a few percent of the window, cheap enough for a long day.
     /// </summary>
-    public static DetectorSettings Settings(Rig.SteadySettings steady)
+    public static SteadySettings Settings(SteadySpec steady)
     {
         ArgumentNullException.ThrowIfNull(steady);
-        return new DetectorSettings(WindowS: steady.WindowS, MinStretchS: steady.MinDurationS, TailS: steady.SettledTailS,
+        return new SteadySettings(WindowS: steady.WindowS, MinStretchS: steady.MinDurationS, TailS: steady.SettledTailS,
             StepS: Math.Max(steady.BlockS, steady.WindowS / 30));
     }
 

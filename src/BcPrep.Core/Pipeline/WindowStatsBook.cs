@@ -44,7 +44,7 @@ internal sealed class WindowStatsBook
             if (work.IsFaulted)
             {
                 var failure = work.Exception!.InnerException!;
-                if (lost is not null && failure is WindowLostFailure wl && !window.Id.StartsWith("tare:", StringComparison.Ordinal))
+                if (lost is not null && failure is WindowLostFailure wl && window.TareOf is null)
                 {
                     lost.TryAdd(window.Id, wl.Problems[0]);
                     continue;

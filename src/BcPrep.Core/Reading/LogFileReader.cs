@@ -196,11 +196,12 @@ public sealed class LogFileReader : IDisposable
         }
         catch (CsvFormatException e)
         {
-            throw Fail(_lastLine + 1, null, "malformed row: " + e.Message);
+            // Before the first row the header is line 1, so the record that failed starts on line 2 at the earliest.
+            throw Fail(Math.Max(_lastLine, 1) + 1, null, "malformed row: " + e.Message);
         }
         catch (Exception e) when (e is InvalidDataException or IOException)
         {
-            throw Fail(_lastLine + 1, null, "the file cannot be read: " + e.Message);
+            throw Fail(Math.Max(_lastLine, 1) + 1, null, "the file cannot be read: " + e.Message);
         }
     }
 

@@ -49,6 +49,8 @@ internal static class BoundaryKeys
         var upstream = t.String("upstream_pressure", required: true);
         var temperature = t.String("upstream_temperature");
         var kappa = t.Number("isentropic_exponent", min: 1.0 + 1e-6, max: 2.0) ?? DryAir.HeatCapacityRatio;
+        var convergent = FlowCalibrationKeys.ReadConvergent(t, kind);
+        var calibration = FlowCalibrationKeys.ReadCalibration(t);
         if (pipe is { } d && throat is { } dt && dt >= d)
         {
             t.Report(throatKey, "the throat (bore) must be smaller than the pipe diameter");
@@ -56,7 +58,11 @@ internal static class BoundaryKeys
         t.RejectUnknownKeys();
         return pipe is null || throat is null || upstream is null || kindText is null
             ? null
-            : new FlowMeterSpec(kind, pipe.Value, pipeStd, throat.Value, throatStd, tapping, dp, upstream, temperature, kappa, t.Location);
+            : new FlowMeterSpec(kind, pipe.Value, pipeStd, throat.Value, throatStd, tapping, dp, upstream, temperature, kappa, t.Location)
+            {
+                Convergent = convergent,
+                Calibration = calibration,
+            };
     }
 
     public static WallSettings ReadWall(TableReader? t)
@@ -111,7 +117,7 @@ internal static class BoundaryKeys
             foreach (var channel in channels.Where(c => c.RadiusM > duct.InnerDiameterM / 2 * (1 + 1e-9)))
             {
                 problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.radius" }, string.Create(CultureInfo.InvariantCulture,
-                    $"rake radius {channel.RadiusM:G6} m lies outside the duct (inner radius {duct.InnerDiameterM / 2:G6} m)")));
+                    $"rake radius {MeasurementText.Number(channel.RadiusM ?? double.NaN, 6)} m lies outside the duct (inner radius {MeasurementText.Number(duct.InnerDiameterM / 2, 6)} m)")));
             }
         }
         if (meter is null)

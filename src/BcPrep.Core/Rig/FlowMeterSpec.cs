@@ -8,7 +8,7 @@ public enum FlowMeterKind
     /// <summary>Orifice plate, ISO 5167-2 (Reader-Harris/Gallagher C, iterated on Re_D).</summary>
     Orifice,
 
-    /// <summary>Classical Venturi tube with a machined convergent, ISO 5167-4.</summary>
+    /// <summary>Classical Venturi tube, ISO 5167-4 (machined, as-cast or rough-welded convergent).</summary>
     Venturi,
 }
 
@@ -29,4 +29,11 @@ public sealed record FlowMeterSpec(
     string UpstreamPressureChannel,
     string? UpstreamTemperatureChannel,
     double IsentropicExponent,
-    SourceLocation Location);
+    SourceLocation Location)
+{
+    /// <summary>The convergent form of a Venturi tube (ISO 5167-4); machined unless the rig file says otherwise.</summary>
+    public VenturiConvergent Convergent { get; init; } = VenturiConvergent.Machined;
+
+    /// <summary>The meter's own flow calibration of C (a constant or a table against Re_D); null: the standard's C.</summary>
+    public DischargeCalibration? Calibration { get; init; }
+}

@@ -1,3 +1,5 @@
+using BcPrep.Profiles;
+
 namespace BcPrep.Rig;
 
 /// <summary>
@@ -11,7 +13,7 @@ public sealed record RigDescription(
     LogFormat Log,
     IReadOnlyList<ChannelSpec> Channels,
     IReadOnlyList<PointSpec> Points,
-    SteadySettings Steady,
+    SteadySpec Steady,
     ProfileSettings Profiles,
     double CoverageProbability)
 {
@@ -102,6 +104,15 @@ public sealed record ChannelSpec(
 
     /// <summary>Sensor-fault limits (the channel's <c>limits</c> table).</summary>
     public ChannelLimits Limits { get; init; } = ChannelLimits.None;
+
+    /// <summary>A second no-flow tare at the end of the day (<c>tare_end</c>): the zero is interpolated in time between the two.</summary>
+    public TareSpec? TareEnd { get; init; }
+
+    /// <summary>
+    /// The zero drift the sensor may show over the day without a warning (<c>tare_end.zero_uncertainty</c>, SI); null:
+    /// the root sum of squares of the channel's <c>absolute</c> and <c>span</c> terms as standard uncertainties.
+    /// </summary>
+    public double? ZeroUncertaintySi { get; init; }
 }
 
 /// <summary>A pinned time interval (seconds since the first sample of the day, or absolute when the log has dates).</summary>
@@ -127,7 +138,7 @@ public sealed record PointSpec(string Id, TimeBound Start, TimeBound End, Source
 /// Steady-window detection settings. Detection runs when <paramref name="Detect"/> is true and there are keys;
 /// windows pinned in the rig file replace the detected windows they overlap.
 /// </summary>
-public sealed record SteadySettings(
+public sealed record SteadySpec(
     double BlockS,
     double WindowS,
     double MinDurationS,
@@ -139,11 +150,18 @@ public sealed record SteadySettings(
 /// Per key channel limits, in SI units of that channel. <paramref name="MinimumSi"/>: the smallest mean that counts
 /// as an operating point (null = none), so that a rig at rest is not taken for a point.
 /// </summary>
-public sealed record SteadyKey(string Channel, double MaxChangeSi, double MaxScatterSi, double StepSi, double? MinimumSi = null);
+public sealed record SteadyKey(string Channel, double MaxChangeSi, double MaxScatterSi, double StepSi, double? MinimumSi = null)
+{
+    /// <summary>
+    /// Expanded uncertainty (SI, at the rig's coverage probability) the channel's window mean should reach; the live
+    /// follower then says how long a settled point must be held for it. Null = no hold target for this channel.
+    /// </summary>
+    public double? HoldTargetSi { get; init; }
+}
 
 /// <summary>Inlet profile settings.</summary>
 public sealed record ProfileSettings(
     int RadialPoints,
-    string VelocityModel,
+    VelocityProfileModel VelocityModel,
     double? TurbulenceIntensity,
     double? LengthScaleM);

@@ -1,4 +1,7 @@
 using System.Globalization;
+using BcPrep.Calibration;
+using BcPrep.Profiles;
+using BcPrep.Uncertainty;
 
 namespace BcPrep.Rig;
 
@@ -19,8 +22,6 @@ public static class RigLoader
     ];
 
     private static readonly string[] SensorKinds = ["linear", "polynomial", "table", "thermocouple", "rtd", "direct"];
-    private static readonly string[] ThermocoupleTypes = ["K", "T", "J", "E", "N"];
-    private static readonly string[] VelocityModels = ["auto", "uniform", "laminar", "power_law", "spalding", "reichardt"];
 
     public static RigDescription Load(string text, string fileName)
     {
@@ -106,6 +107,11 @@ public static class RigLoader
                 planeTable.Report("outlet", "the outlet plane must lie downstream of the inlet plane (larger axial position)");
             }
         }
+        if (diameter is { } dm && diameterStd >= dm / 2)
+        {
+            // At k = 2 the interval d ± 2u would reach a zero or negative bore: no measurement model holds there.
+            t.Report("inner_diameter_uncertainty", "the standard uncertainty of the diameter is not below half the diameter, so d ± 2u reaches zero: is it in the wrong unit?");
+        }
         if (diameter is { } d && roughness >= d / 2)
         {
             t.Report("wall_roughness", "wall roughness is not smaller than the radius: impossible geometry");
@@ -151,7 +157,7 @@ public static class RigLoader
             return null;
         }
         var role = ParseRole(roleText);
-        var dimension = DimensionOf(role);
+        var dimension = SensorDimension(t, role) ?? DimensionOf(role);
         var plane = t.String("plane");
         var position = t.Quantity("position", Dimension.Length);
         var reference = t.String("reference");
@@ -164,8 +170,26 @@ public static class RigLoader
         {
             var start = ReadTime(tareTable, "from");
             var end = ReadTime(tareTable, "to");
+            if (start is not null && end is not null && start.IsAbsolute == end.IsAbsolute && end.Seconds <= start.Seconds)
+            {
+                tareTable.Report("to", "the tare window ends before it starts ('to' must come after 'from')");
+            }
             tareTable.RejectUnknownKeys();
             tare = start is null || end is null ? null : new TareSpec(start, end);
+        }
+        TareSpec? tareEnd = null;
+        double? zeroUncertainty = null;
+        if (t.Table("tare_end") is { } endTable)
+        {
+            var endStart = ReadTime(endTable, "from");
+            var endEnd = ReadTime(endTable, "to");
+            zeroUncertainty = endTable.Quantity("zero_uncertainty", dimension == Dimension.Temperature ? Dimension.TemperatureDifference : dimension, minSi: 0);
+            endTable.RejectUnknownKeys();
+            tareEnd = endStart is null || endEnd is null ? null : new TareSpec(endStart, endEnd);
+            if (!t.Has("tare"))
+            {
+                t.Report("tare_end", "a tare at the end of the day pairs with one at the start: give tare = { from, to } too");
+            }
         }
         var record = ReadRecord(t);
         var limits = ConditioningReader.ReadLimits(t.Table("limits"), dimension, sensor);
@@ -184,7 +208,7 @@ public static class RigLoader
         t.RejectUnknownKeys();
         return id is null || sensor is null
             ? null
-            : new ChannelSpec(id, column!, role, dimension, plane, position, reference, sensor, uncertainty, tare, record, isKey, t.Location with { Key = $"channel '{id}'" }) { RadiusM = radius, Limits = limits };
+            : new ChannelSpec(id, column!, role, dimension, plane, position, reference, sensor, uncertainty, tare, record, isKey, t.Location with { Key = $"channel '{id}'" }) { RadiusM = radius, Limits = limits, TareEnd = tareEnd, ZeroUncertaintySi = zeroUncertainty };
     }
 
     private static SensorSpec? ReadSensor(TableReader t, Dimension dimension)
@@ -196,7 +220,7 @@ public static class RigLoader
             {
                 var rawUnit = t.String("raw_unit") ?? "mV";
                 var rawToSi = AffineOf(t, "raw_unit", rawUnit, Dimension.Voltage);
-                var type = t.Choice("type", ThermocoupleTypes, "K");
+                var type = t.Choice("type", RigChoices.ThermocoupleTypes, ThermocoupleType.K);
                 var cjChannel = t.String("cold_junction");
                 var cjFixed = t.Quantity("cold_junction_temperature", Dimension.Temperature, minSi: 173.15, maxSi: 423.15);
                 if (cjChannel is null && cjFixed is null)
@@ -204,7 +228,10 @@ public static class RigLoader
                     t.Report("cold_junction", "a thermocouple needs cold-junction compensation: cold_junction = \"<RTD channel id>\" or cold_junction_temperature = \"0 degC\"");
                 }
                 var tolerance = t.Choice("tolerance_class", ["1", "2", "3"], "2");
-                return rawToSi is null ? null : new ThermocoupleSensor(rawUnit, rawToSi.Value, type, cjChannel, cjFixed, t.Has("tolerance_class") ? tolerance : null);
+                return rawToSi is null ? null : new ThermocoupleSensor(rawUnit, rawToSi.Value, type, cjChannel, cjFixed, t.Has("tolerance_class") ? tolerance : null)
+                {
+                    Certificate = CertificateKeys.ReadThermocouple(t.Table("correction")),
+                };
             }
             case "rtd":
             {
@@ -212,7 +239,10 @@ public static class RigLoader
                 var rawToSi = AffineOf(t, "raw_unit", rawUnit, Dimension.Resistance);
                 var r0 = t.Quantity("r0", Dimension.Resistance, minSi: 1, maxSi: 1e5) ?? 100.0;
                 var tolerance = t.Choice("tolerance_class", ["AA", "A", "B", "C"], "B");
-                return rawToSi is null ? null : new RtdSensor(rawUnit, rawToSi.Value, r0, t.Has("tolerance_class") ? tolerance : null);
+                return rawToSi is null ? null : new RtdSensor(rawUnit, rawToSi.Value, r0, t.Has("tolerance_class") ? tolerance : null)
+                {
+                    Certificate = CertificateKeys.ReadRtd(t.Table("coefficients")),
+                };
             }
             case "direct":
             {
@@ -233,16 +263,23 @@ public static class RigLoader
                 }
                 return kind switch
                 {
-                    "linear" => t.Number("gain", required: true) is { } gain
+                    "linear" => t.Number("gain", required: true) is { } gain && (gain != 0 || Reported(t, "gain", "a gain of 0 maps every raw signal to the same value, so the channel would measure nothing"))
                         ? new LinearSensor(rawUnit, unit, rawToSi.Value, unitToSi.Value, gain, t.Number("offset") ?? 0.0)
                         : null,
-                    "polynomial" => ReadNumbers(t, "coefficients") is { Count: > 0 } c
+                    "polynomial" => ReadNumbers(t, "coefficients") is { } c && (c.Count > 0 || Reported(t, "coefficients", "a polynomial needs at least one coefficient (c0, c1, … of value = c0 + c1·raw + …); the list is empty"))
                         ? new PolynomialSensor(rawUnit, unit, rawToSi.Value, unitToSi.Value, c)
                         : null,
                     _ => ReadTable(t, rawUnit, unit, rawToSi.Value, unitToSi.Value),
                 };
             }
         }
+    }
+
+    /// <summary>Reports a problem and returns false, so that a refusal reads as one condition.</summary>
+    private static bool Reported(TableReader t, string key, string message)
+    {
+        t.Report(key, message);
+        return false;
     }
 
     private static TableSensor? ReadTable(TableReader t, string rawUnit, string unit, Affine rawToSi, Affine unitToSi)
@@ -307,11 +344,11 @@ public static class RigLoader
         var reliability = t.Quantity("reliability", Dimension.Dimensionless, minSi: 0.01, maxSi: 1);
         // GUM G.4.2: nu = 1/2 (relative uncertainty of u)^-2; no statement means the term is taken as exact.
         var dof = reliability is { } r ? 0.5 / (r * r) : double.PositiveInfinity;
-        var distribution = t.Choice("distribution", ["rectangular", "normal", "triangular", "arcsine"], kind == "certificate" ? "normal" : "rectangular");
+        var distribution = t.Choice("distribution", RigChoices.Distributions, kind == "certificate" ? DistributionKind.Normal : DistributionKind.Rectangular);
         UncertaintyTerm? term = kind switch
         {
             "certificate" => t.Quantity("expanded", spread, required: true, minSi: 0) is { } u
-                ? new UncertaintyTerm(UncertaintyTermKind.Certificate, u, t.Number("k", min: 1, max: 10) ?? 2.0, "normal", dof, source, null)
+                ? new UncertaintyTerm(UncertaintyTermKind.Certificate, u, t.Number("k", min: 1, max: 10) ?? 2.0, DistributionKind.Normal, dof, source, null)
                 : null,
             "" => null,
             "reading" => PercentTermReader.Fraction(t, "value", PercentBasis.Reading) is { } f
@@ -324,10 +361,10 @@ public static class RigLoader
                 ? new UncertaintyTerm(UncertaintyTermKind.Absolute, a, 1, distribution, dof, source, null)
                 : null,
             "resolution" => t.Quantity("value", spread, required: true, minSi: 0) is { } step
-                ? new UncertaintyTerm(UncertaintyTermKind.Resolution, step, 1, "rectangular", dof, source, null)
+                ? new UncertaintyTerm(UncertaintyTermKind.Resolution, step, 1, DistributionKind.Rectangular, dof, source, null)
                 : null,
             _ => t.String("class", required: true) is { } c
-                ? new UncertaintyTerm(UncertaintyTermKind.ToleranceClass, 0, 1, "rectangular", dof, source, c)
+                ? new UncertaintyTerm(UncertaintyTermKind.ToleranceClass, 0, 1, DistributionKind.Rectangular, dof, source, c)
                 : null,
         };
         t.RejectUnknownKeys();
@@ -395,11 +432,11 @@ public static class RigLoader
         return t.Quantity(key, Dimension.Duration, required: true, minSi: 0) is { } seconds ? new TimeBound(seconds, false) : null;
     }
 
-    private static SteadySettings ReadSteady(TableReader? t, IReadOnlyList<ChannelSpec> channels, HashSet<string> declaredIds)
+    private static SteadySpec ReadSteady(TableReader? t, IReadOnlyList<ChannelSpec> channels, HashSet<string> declaredIds)
     {
         if (t is null)
         {
-            return new SteadySettings(1.0, 300.0, 300.0, 180.0, []);
+            return new SteadySpec(1.0, 300.0, 300.0, 180.0, []);
         }
         var block = t.Quantity("block", Dimension.Duration, minSi: 0.01, maxSi: 600) ?? 1.0;
         var window = t.Quantity("window", Dimension.Duration, minSi: 1, maxSi: 86400) ?? 300.0;
@@ -422,27 +459,36 @@ public static class RigLoader
             var spread = channel?.Dimension == Dimension.Temperature ? Dimension.TemperatureDifference : channel?.Dimension ?? Dimension.Dimensionless;
             var change = k.Quantity("max_change", spread, required: true, minSi: 0);
             var scatter = k.Quantity("max_scatter", spread, required: true, minSi: 0);
+            if (scatter == 0)
+            {
+                k.Report("max_scatter", "a scatter limit of 0 admits no real signal, so no window would ever be steady; give the largest scatter to accept");
+            }
             var step = k.Quantity("step", spread, minSi: 0);
             var minimum = k.Quantity("min", channel?.Dimension ?? Dimension.Dimensionless);
+            var holdTarget = k.Quantity("hold_target", spread, minSi: 0);
+            if (holdTarget == 0)
+            {
+                k.Report("hold_target", "a hold target of zero is reached by no hold: give the expanded uncertainty wanted, e.g. \"0.1 K\"");
+            }
             k.RejectUnknownKeys();
             if (channelId is not null && change is not null && scatter is not null)
             {
-                keys.Add(new SteadyKey(channelId, change.Value, scatter.Value, step ?? 4 * scatter.Value, minimum));
+                keys.Add(new SteadyKey(channelId, change.Value, scatter.Value, step ?? 4 * scatter.Value, minimum) { HoldTargetSi = holdTarget > 0 ? holdTarget : null });
             }
         }
         var detect = t.Bool("detect", fallback: true);
         t.RejectUnknownKeys();
-        return new SteadySettings(block, window, minDuration, tail, keys, detect);
+        return new SteadySpec(block, window, minDuration, tail, keys, detect);
     }
 
     private static ProfileSettings ReadProfiles(TableReader? t)
     {
         if (t is null)
         {
-            return new ProfileSettings(41, "auto", null, null);
+            return new ProfileSettings(41, VelocityProfileModel.Auto, null, null);
         }
         var points = t.Integer("points", min: 3, max: MaxRadialPoints) ?? 41;
-        var model = t.Choice("velocity_model", VelocityModels, "auto");
+        var model = t.Choice("velocity_model", RigChoices.VelocityModels, VelocityProfileModel.Auto);
         var intensity = t.Quantity("turbulence_intensity", Dimension.Dimensionless, minSi: 0, maxSi: 1);
         var length = t.Quantity("length_scale", Dimension.Length, minSi: 0);
         t.RejectUnknownKeys();
@@ -469,9 +515,43 @@ public static class RigLoader
             {
                 problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.cold_junction" }, $"no channel with id '{cj}'{TableReader.Suggest(cj, ids)}"));
             }
+            if (channel.Sensor is ThermocoupleSensor { ColdJunctionChannel: { } junction } && channels.FirstOrDefault(c => c.Id == junction) is { } junctionChannel &&
+                (junctionChannel.Dimension != Dimension.Temperature || junctionChannel.Id == channel.Id))
+            {
+                problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.cold_junction" },
+                    junctionChannel.Id == channel.Id
+                        ? "a thermocouple cannot be its own cold junction"
+                        : $"the cold junction '{junction}' measures {junctionChannel.Dimension.ToString().ToLowerInvariant()}, not a temperature (give the RTD or thermistor at the terminal block)"));
+            }
+            if (channel.Role == ChannelRole.WallTemperature && channel.AxialPositionM is { } z && duct is not null &&
+                duct.PlanePositionsM.TryGetValue("inlet", out var zIn) && duct.PlanePositionsM.TryGetValue("outlet", out var zOut) && (z < zIn || z > zOut))
+            {
+                problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.position" },
+                    string.Create(CultureInfo.InvariantCulture, $"the wall thermocouple at {z} m lies {(z > zOut ? "beyond the outlet plane" : "before the inlet plane")} ({zIn} m to {zOut} m): the wall boundary condition covers only the duct between them")));
+            }
             if (channel.Plane is { } plane && duct is not null && !duct.PlanePositionsM.ContainsKey(plane))
             {
                 problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.plane" }, $"no plane '{plane}' in [duct.planes]{TableReader.Suggest(plane, duct.PlanePositionsM.Keys)}"));
+            }
+        }
+        foreach (var channel in channels.Where(c => c.ReferenceChannel is not null))
+        {
+            // Follow the reference chain: a channel that leads back to itself has no zero to refer to.
+            var seen = new List<string> { channel.Id };
+            for (var next = channel.ReferenceChannel; next is not null; next = channels.FirstOrDefault(c => c.Id == next)?.ReferenceChannel)
+            {
+                if (next == channel.Id)
+                {
+                    problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.reference" }, seen.Count == 1
+                        ? "a channel cannot be its own reference"
+                        : $"the references form a cycle ({string.Join(" → ", seen.Append(channel.Id))}): a gauge reading needs an absolute reference at the end of the chain"));
+                    break;
+                }
+                if (seen.Contains(next) || seen.Count > channels.Count)
+                {
+                    break;
+                }
+                seen.Add(next);
             }
         }
         var pointIds = new HashSet<string>(StringComparer.Ordinal);
@@ -511,6 +591,41 @@ public static class RigLoader
         "relative_humidity" => ChannelRole.RelativeHumidity,
         _ => ChannelRole.Other,
     };
+
+    private static readonly Dimension[] UnitDimensions =
+        [Dimension.Temperature, Dimension.Pressure, Dimension.MassFlow, Dimension.Voltage, Dimension.Current, Dimension.Power,
+         Dimension.Length, Dimension.Resistance, Dimension.Frequency];
+
+    /// <summary>
+    /// The sensor, not the role, sets a channel's dimension: a thermocouple or RTD reads a temperature whatever it
+    /// <c>measures</c>, and an <c>other</c> channel takes the dimension of its <c>unit</c> (so that its uncertainty
+    /// terms and limits may carry units). A temperature sensor on a role of another dimension is an error. Null: the
+    /// role decides. The keys are only peeked at here; <see cref="ReadSensor"/> reads and reports them.
+    /// </summary>
+    private static Dimension? SensorDimension(TableReader t, ChannelRole role)
+    {
+        var kind = t.Node.TryGet("sensor", out var sensorEntry) ? sensorEntry.Value as string : null;
+        if (kind is "thermocouple" or "rtd")
+        {
+            var roleDimension = DimensionOf(role);
+            if (role != ChannelRole.Other && roleDimension != Dimension.Temperature)
+            {
+                t.Report("sensor", $"a {kind} reads a temperature, but this channel measures a {roleDimension.ToString().ToLowerInvariant()} quantity: use a sensor of that kind, or measures = \"other\"");
+            }
+            return Dimension.Temperature;
+        }
+        if (role == ChannelRole.Other && t.Node.TryGet("unit", out var unitEntry) && unitEntry.Value is string unit)
+        {
+            foreach (var dimension in UnitDimensions)
+            {
+                if (UnitText.TryToSi("1 " + unit, dimension, out _, out _))
+                {
+                    return dimension;
+                }
+            }
+        }
+        return null;
+    }
 
     private static Dimension DimensionOf(ChannelRole role) => role switch
     {

@@ -1,3 +1,6 @@
+using BcPrep.Calibration;
+using BcPrep.Uncertainty;
+
 namespace BcPrep.Rig;
 
 /// <summary>
@@ -20,12 +23,25 @@ public sealed record TableSensor(string RawUnit, string Unit, Affine RawToSi, Af
     : SensorSpec(RawUnit, Unit, RawToSi, UnitToSi);
 
 /// <summary>Thermocouple emf (raw) to temperature by the NIST ITS-90 functions, with cold-junction compensation.</summary>
-public sealed record ThermocoupleSensor(string RawUnit, Affine RawToSi, string Type, string? ColdJunctionChannel, double? ColdJunctionK, string? ToleranceClass)
-    : SensorSpec(RawUnit, "K", RawToSi, Affine.Identity);
+public sealed record ThermocoupleSensor(string RawUnit, Affine RawToSi, ThermocoupleType Type, string? ColdJunctionChannel, double? ColdJunctionK, string? ToleranceClass)
+    : SensorSpec(RawUnit, "K", RawToSi, Affine.Identity)
+{
+    /// <summary>The sensor's calibration-certificate correction (<c>correction</c>), or null.</summary>
+    public ThermocoupleCertificate? Certificate { get; init; }
+}
 
 /// <summary>Platinum RTD resistance (raw) to temperature by IEC 60751 Callendar–Van Dusen.</summary>
 public sealed record RtdSensor(string RawUnit, Affine RawToSi, double R0Ohm, string? ToleranceClass)
-    : SensorSpec(RawUnit, "K", RawToSi, Affine.Identity);
+    : SensorSpec(RawUnit, "K", RawToSi, Affine.Identity)
+{
+    /// <summary>The sensor's own A, B, C from its certificate (<c>coefficients</c>), or null for IEC 60751's.</summary>
+    public RtdCertificate? Certificate { get; init; }
+
+    /// <summary>R0 with the certificate's coefficients, or with IEC 60751's.</summary>
+    public RtdNominal Nominal => Certificate is { } c
+        ? new RtdNominal(R0Ohm, c.A, c.B, c.C)
+        : new RtdNominal(R0Ohm);
+}
 
 /// <summary>The logged number already is the engineering value in <see cref="SensorSpec.Unit"/>.</summary>
 public sealed record DirectSensor(string Unit, Affine UnitToSi)
@@ -48,7 +64,7 @@ public sealed record UncertaintyTerm(
     UncertaintyTermKind Kind,
     double ValueSi,
     double CoverageFactor,
-    string Distribution,
+    DistributionKind Distribution,
     double DegreesOfFreedom,
     string Source,
     string? ToleranceClass);

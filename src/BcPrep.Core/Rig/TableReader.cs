@@ -53,6 +53,14 @@ public sealed class TableReader
 
     public string Choice(string key, IReadOnlyList<string> allowed, string fallback) => TryChoice(key, allowed, fallback) ?? fallback;
 
+    /// <summary>The value of the chosen word, the fallback when the key is absent, or the fallback (problem recorded) when it is not allowed.</summary>
+    public T Choice<T>(string key, RigSpelling<T> spelling, T fallback)
+        where T : struct, Enum
+    {
+        ArgumentNullException.ThrowIfNull(spelling);
+        return TryChoice(key, spelling.Words, spelling.WordOf(fallback)) is { } word ? spelling.ValueOf(word) : fallback;
+    }
+
     /// <summary>The chosen word, the fallback when the key is absent, or null (problem recorded) when it is not allowed.</summary>
     public string? TryChoice(string key, IReadOnlyList<string> allowed, string fallback)
     {
@@ -227,6 +235,9 @@ public sealed class TableReader
         return null;
     }
 
+    // Six significant digits, ungrouped as the person types them, never E-notation ("2 × 10⁻⁶", not "2E-06").
+    private static string Plain(double value) => MeasurementText.Number(value, 6, grouped: false);
+
     private double? CheckRange(TomlEntry entry, double value, double? min, double? max, string unit)
     {
         if (!double.IsFinite(value))
@@ -238,12 +249,12 @@ public sealed class TableReader
         {
             var range = (min, max) switch
             {
-                ({ } lo, { } hi) => $"between {lo.ToString("G6", CultureInfo.InvariantCulture)} and {hi.ToString("G6", CultureInfo.InvariantCulture)}{unit}",
-                ({ } lo, null) => $"at least {lo.ToString("G6", CultureInfo.InvariantCulture)}{unit}",
-                (null, { } hi) => $"at most {hi.ToString("G6", CultureInfo.InvariantCulture)}{unit}",
+                ({ } lo, { } hi) => $"between {Plain(lo)} and {Plain(hi)}{unit}",
+                ({ } lo, null) => $"at least {Plain(lo)}{unit}",
+                (null, { } hi) => $"at most {Plain(hi)}{unit}",
                 _ => "",
             };
-            _problems.Add(new Problem(entry.Location, $"{value.ToString("G6", CultureInfo.InvariantCulture)}{unit} is out of range: must be {range}"));
+            _problems.Add(new Problem(entry.Location, $"{Plain(value)}{unit} is out of range: must be {range}"));
             return null;
         }
         return value;

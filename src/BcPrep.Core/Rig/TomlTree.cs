@@ -1,3 +1,4 @@
+using Tomlyn;
 using Tomlyn.Parsing;
 using Tomlyn.Syntax;
 
@@ -46,7 +47,17 @@ public static class TomlTree
     public static (TomlTableNode Root, IReadOnlyList<Problem> Problems) Parse(string text, string fileName)
     {
         var problems = new List<Problem>();
-        var document = SyntaxParser.Parse(text, fileName, false);
+        DocumentSyntax document;
+        try
+        {
+            document = SyntaxParser.Parse(text, fileName, false);
+        }
+        catch (TomlException)
+        {
+            // The parser stops at a fixed nesting depth (64); report where the nesting first goes that deep.
+            problems.Add(new Problem(new SourceLocation(fileName, TooDeepLine(text)), "TOML syntax: tables or arrays nested more than 64 levels deep; a rig file needs a few"));
+            return (new TomlTableNode("", new SourceLocation(fileName, 1, 1)), problems);
+        }
         foreach (var diagnostic in document.Diagnostics)
         {
             if (diagnostic.Kind == DiagnosticMessageKind.Error)
@@ -69,6 +80,38 @@ public static class TomlTree
             builder.AddTable(root, table);
         }
         return (root, problems);
+    }
+
+    /// <summary>Line where brackets and braces (outside strings) first nest 64 deep; 1 when not found.</summary>
+    private static int TooDeepLine(string text)
+    {
+        var depth = 0;
+        var line = 1;
+        var quote = '\0';
+        foreach (var c in text)
+        {
+            if (c == '\n')
+            {
+                line++;
+            }
+            else if (quote != '\0')
+            {
+                quote = c == quote ? '\0' : quote;
+            }
+            else if (c is '"' or '\'')
+            {
+                quote = c;
+            }
+            else if (c is '[' or '{' && ++depth >= 64)
+            {
+                return line;
+            }
+            else if (c is ']' or '}')
+            {
+                depth--;
+            }
+        }
+        return 1;
     }
 
     internal static SourceLocation At(string file, SourceSpan span, string? key) =>

@@ -52,6 +52,11 @@ public static class UnitText
             error = $"'{text}' does not start with a number (write it as \"value unit\", e.g. \"{Example(dimension)}\")";
             return false;
         }
+        if (!double.IsFinite(value))
+        {
+            error = $"'{text}': the number is beyond the range of a double (about 1.8e308)";
+            return false;
+        }
         if (unit.Length == 0)
         {
             error = $"'{text}' has no unit (write e.g. \"{Example(dimension)}\")";

@@ -64,20 +64,20 @@ public static class SteadyStateDetector
             {
                 string how = Math.Abs(fit.SlopePerS) > channel.DriftLimitPerS ? "slope beyond limit" : "slope uncertainty reaches beyond limit";
                 failures.Add(new CriterionFailure(SteadyCriterion.Drift, bound, channel.DriftLimitPerS,
-                    Format($"{channel.Name}: {how}: |{fit.SlopePerS:G4}| + {settings.DriftCoverageFactor}·{fit.SlopeUncertaintyPerS:G3} = {bound:G4} > {channel.DriftLimitPerS:G4} per s ({bound / channel.DriftLimitPerS:F2}× limit) in [{t[start]}, {t[end]}] s")));
+                    Format($"{channel.Name}: {how}: |{MeasurementText.Number(fit.SlopePerS)}| + {settings.DriftCoverageFactor}·{MeasurementText.Number(fit.SlopeUncertaintyPerS, 3)} = {MeasurementText.Number(bound)} > {MeasurementText.Number(channel.DriftLimitPerS)} per s ({bound / channel.DriftLimitPerS:F2}× limit) in [{t[start]}, {t[end]}] s")));
             }
 
             if (fit.StandardDeviation > channel.ScatterLimit)
             {
                 failures.Add(new CriterionFailure(SteadyCriterion.Scatter, fit.StandardDeviation, channel.ScatterLimit,
-                    Format($"{channel.Name}: standard deviation {fit.StandardDeviation:G4} > {channel.ScatterLimit:G4} ({fit.StandardDeviation / channel.ScatterLimit:F2}× limit) in [{t[start]}, {t[end]}] s")));
+                    Format($"{channel.Name}: standard deviation {MeasurementText.Number(fit.StandardDeviation)} > {MeasurementText.Number(channel.ScatterLimit)} ({fit.StandardDeviation / channel.ScatterLimit:F2}× limit) in [{t[start]}, {t[end]}] s")));
             }
 
             if (fit.Mean < channel.MinimumValue)
             {
                 worst = double.PositiveInfinity;
                 failures.Add(new CriterionFailure(SteadyCriterion.Range, fit.Mean, channel.MinimumValue,
-                    Format($"{channel.Name}: mean {fit.Mean:G4} below the operating minimum {channel.MinimumValue:G4} in [{t[start]}, {t[end]}] s (rig at rest, not an operating point)")));
+                    Format($"{channel.Name}: mean {MeasurementText.Number(fit.Mean)} below the operating minimum {MeasurementText.Number(channel.MinimumValue)} in [{t[start]}, {t[end]}] s (rig at rest, not an operating point)")));
             }
         }
 
@@ -224,7 +224,7 @@ public static class SteadyStateDetector
         if (duration < settings.MinStretchS)
         {
             rejected.Add(new RejectedStretch(t[start], t[end], t[start], t[end],
-                Format($"{SteadyCriterion.Duration}: steady for {duration} s, shorter than the minimum {settings.MinStretchS} s"), []));
+                Format($"{ChoiceSpelling.Name(SteadyCriterion.Duration)}: steady for {duration} s, shorter than the minimum {settings.MinStretchS} s"), []));
             return;
         }
 
@@ -283,7 +283,7 @@ public static class SteadyStateDetector
         {
             var missing = settings.RequiredMethods & ~passed;
             rejected.Add(new RejectedStretch(t[start], t[end], t[tailStart], t[end],
-                Format($"required method(s) {missing} failed on the averaging window"), criteria));
+                Format($"required method(s) {ChoiceSpelling.Names(missing)} failed on the averaging window"), criteria));
         }
     }
 

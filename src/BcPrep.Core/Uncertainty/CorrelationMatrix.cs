@@ -185,7 +185,7 @@ public sealed class CorrelationMatrix
         if (smallest < -1e-10 * n)
         {
             throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture,
-                $"Correlation matrix is not positive semi-definite (smallest eigenvalue {smallest:G6}); the stated correlations are mutually inconsistent."));
+                $"Correlation matrix is not positive semi-definite (smallest eigenvalue {MeasurementText.Number(smallest, 6)}); the stated correlations are mutually inconsistent."));
         }
     }
 }

@@ -54,7 +54,7 @@ public static class WindowMean
         if (nEff < 2.0)
         {
             throw new BcPrepDataException(string.Create(CultureInfo.InvariantCulture,
-                $"Window of {n} samples holds only n_eff = {nEff:G4} effectively independent samples (γ_n = {gamma:G4}); need ≥ 2. Use a longer window or check for drift."));
+                $"Window of {n} samples holds only n_eff = {MeasurementText.Number(nEff)} effectively independent samples (γ_n = {MeasurementText.Number(gamma)}); need ≥ 2. Use a longer window or check for drift."));
         }
 
         var u = s * Math.Sqrt((n - 1.0) / (n * (nEff - 1.0)));

@@ -15,8 +15,12 @@ public static class BoundaryTables
     /// <summary>Quantities repeated in the summary, in this order.</summary>
     public static readonly string[] SummaryQuantities =
     [
-        "mass_flow", "inlet.bulk_velocity", "reynolds", "inlet.temperature", "outlet.temperature", "inlet.static_pressure",
-        "outlet.static_pressure", "heater_power", "wall.heat_flux", "energy_balance.mismatch",
+        .. new[]
+        {
+            PointOutputs.MassFlow, PointOutputs.InletBulkVelocity, PointOutputs.Reynolds, PointOutputs.InletTemperature, PointOutputs.OutletTemperature,
+            PointOutputs.InletStaticPressure, PointOutputs.OutletStaticPressure, PointOutputs.HeaterPower, PointOutputs.WallHeatFlux,
+            PointOutputs.EnergyBalanceMismatch,
+        }.Select(o => o.Name),
     ];
 
     public static CsvTable Summary(DayResult day)
@@ -53,25 +57,25 @@ public static class BoundaryTables
     public static CsvTable InletProfile(PointResult point)
     {
         var velocity = point.Nominal.Velocity;
-        var temperature = point.Output("inlet.temperature");
+        var temperature = point.Output(PointOutputs.InletTemperature);
         var rake = point.Nominal.TemperatureProfile;
         var table = new CsvTable([
             "r [m]", "axial_velocity [m/s]", "u(axial_velocity) [m/s]", "temperature [K]", "u(temperature) [K]",
             "k [m2/s2]", "u(k) [m2/s2]", "epsilon [m2/s3]", "u(epsilon) [m2/s3]", "omega [1/s]", "u(omega) [1/s]",
         ])
-            .Comment($"BcPrep inlet profile; point {point.Id}; velocity model {velocity.ModelUsed}; profile integrates to the measured mass flow (raw grid error {velocity.RawDiscretisationRelativeError.ToString("E2", CultureInfo.InvariantCulture)})")
+            .Comment($"BcPrep inlet profile; point {point.Id}; velocity model {ChoiceSpelling.Name(velocity.ModelUsed)}; profile integrates to the measured mass flow (raw grid error {velocity.RawDiscretisationRelativeError.ToString("E2", CultureInfo.InvariantCulture)})")
             .Comment(rake is null
                 ? "temperature uniform: the inlet bulk temperature"
                 : "temperature interpolated linearly from the radial rake, nearest rake value held beyond its ends" + (rake.ClampedPointCount > 0 ? $" ({rake.ClampedPointCount} points)" : ""))
             .Comment(InletTurbulence.ConventionDescription)
             .Comment("u(...) is the standard uncertainty propagated from the measurements; the profile shape model and the turbulence correlations carry no model-form uncertainty here");
-        var k = point.Output("inlet.turbulent_kinetic_energy");
-        var eps = point.Output("inlet.dissipation_rate");
-        var omega = point.Output("inlet.specific_dissipation_rate");
+        var k = point.Output(PointOutputs.TurbulentKineticEnergy);
+        var eps = point.Output(PointOutputs.DissipationRate);
+        var omega = point.Output(PointOutputs.SpecificDissipationRate);
         for (var i = 0; i < velocity.Profile.RadiusM.Length; i++)
         {
-            var u = point.Output($"inlet.velocity.{i}");
-            var t = rake is null ? temperature : point.Output($"{ProfileOutputs.TemperaturePrefix}{i}");
+            var u = point.Output(ProfileOutputs.Velocity(i));
+            var t = rake is null ? temperature : point.Output(ProfileOutputs.Temperature(i));
             table.Add(velocity.Profile.RadiusM[i], u?.Estimate ?? velocity.Profile.Values[i], u?.StandardUncertainty ?? double.NaN,
                 t?.Estimate, t?.StandardUncertainty,
                 k?.Estimate ?? double.NaN, k?.StandardUncertainty ?? double.NaN, eps?.Estimate ?? double.NaN, eps?.StandardUncertainty ?? double.NaN,
@@ -81,17 +85,17 @@ public static class BoundaryTables
     }
 
     public static CsvTable OutletPlane(PointResult point) =>
-        Scalars(point, ["outlet.static_pressure", "outlet.temperature"], $"BcPrep outlet plane; point {point.Id}; absolute static pressure");
+        Scalars(point, [PointOutputs.OutletStaticPressure.Name, PointOutputs.OutletTemperature.Name], $"BcPrep outlet plane; point {point.Id}; absolute static pressure");
 
     public static CsvTable Wall(PointResult point, DayResult day)
     {
         var table = new CsvTable(["z [m]", "channel", "temperature [K]", "u(temperature) [K]", "U(temperature) [K]", "heat_flux [W/m2]", "u(heat_flux) [W/m2]"])
             .Comment($"BcPrep wall; point {point.Id}; uniform heat flux over the heated length {day.Rig.Duct.HeatedLengthM.ToString("R", CultureInfo.InvariantCulture)} m; wall temperatures at the thermocouple positions, then (channel 'interpolated') linearly between them on the axial grid of [wall], " +
                        (day.Rig.Wall.ClampOutside ? "holding the nearest thermocouple's value beyond the outermost ones" : "omitted beyond the outermost thermocouples"));
-        var flux = point.Output("wall.heat_flux");
+        var flux = point.Output(PointOutputs.WallHeatFlux);
         foreach (var channel in day.Rig.Channels.Where(c => c.Role == ChannelRole.WallTemperature).OrderBy(c => c.AxialPositionM))
         {
-            var t = point.Output($"wall.temperature.{channel.Id}");
+            var t = point.Output(ProfileOutputs.WallPoint(channel.Id));
             table.Add(channel.AxialPositionM ?? double.NaN, channel.Id, t?.Estimate ?? double.NaN, t?.StandardUncertainty ?? double.NaN, t?.ExpandedUncertainty ?? double.NaN,
                 flux?.Estimate ?? double.NaN, flux?.StandardUncertainty ?? double.NaN);
         }

@@ -12,13 +12,11 @@ namespace BcPrep.Writing;
 /// </summary>
 public static class CovarianceTables
 {
-    public static bool IsProfilePoint(string quantity) => quantity.StartsWith("inlet.velocity.", StringComparison.Ordinal);
-
     /// <summary>The covariance of the point's scalars (and profile points when <paramref name="includeProfile"/>).</summary>
     public static OutputCovariance Of(PointResult point, bool includeProfile = false)
     {
         ArgumentNullException.ThrowIfNull(point);
-        return OutputCovariance.Select(point.Gum, name => includeProfile || !IsProfilePoint(name));
+        return OutputCovariance.Select(point.Gum, name => includeProfile || !ProfileOutputs.IsProfilePoint(name));
     }
 
     /// <summary>One row per ordered pair (i, j), both triangles, per point: covariance in unit_i·unit_j and correlation.</summary>

@@ -123,7 +123,7 @@ public static class DetectionEvidenceJson
             foreach (var f in c.Failures)
             {
                 json.WriteStartObject();
-                json.WriteString("criterion", f.Criterion.ToString());
+                json.WriteString("criterion", ChoiceSpelling.Name(f.Criterion));
                 JsonFields.Number(json, "value", f.Value);
                 JsonFields.Number(json, "limit", f.Limit);
                 json.WriteString("description", f.Description);

@@ -17,11 +17,11 @@ public static class InletFaceTable
         ArgumentNullException.ThrowIfNull(point);
         ArgumentNullException.ThrowIfNull(face);
         var radius = point.Model.ProfileRadiiM;
-        var velocity = Profile(point, radius, i => $"{ProfileOutputs.VelocityPrefix}{i}", "axial velocity", "m/s");
-        var temperature = Profile(point, radius, i => point.Nominal.TemperatureProfile is null ? "inlet.temperature" : $"{ProfileOutputs.TemperaturePrefix}{i}", "temperature", "K");
-        var k = point.Output("inlet.turbulent_kinetic_energy")?.Estimate ?? double.NaN;
-        var epsilon = point.Output("inlet.dissipation_rate")?.Estimate ?? double.NaN;
-        var omega = point.Output("inlet.specific_dissipation_rate")?.Estimate ?? double.NaN;
+        var velocity = Profile(point, radius, ProfileOutputs.Velocity, "axial velocity", "m/s");
+        var temperature = Profile(point, radius, i => point.Nominal.TemperatureProfile is null ? PointOutputs.InletTemperature.Name : ProfileOutputs.Temperature(i), "temperature", "K");
+        var k = point.Output(PointOutputs.TurbulentKineticEnergy)?.Estimate ?? double.NaN;
+        var epsilon = point.Output(PointOutputs.DissipationRate)?.Estimate ?? double.NaN;
+        var omega = point.Output(PointOutputs.SpecificDissipationRate)?.Estimate ?? double.NaN;
         ImmutableArray<double> u, uVelocity, t, uTemperature;
         try
         {

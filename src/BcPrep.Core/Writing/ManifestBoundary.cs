@@ -55,6 +55,7 @@ internal static class ManifestBoundary
         JsonFields.Number(json, "mass_flow", r.MassFlowKgPerS);
         JsonFields.Number(json, "diameter_ratio", r.DiameterRatio);
         JsonFields.Number(json, "discharge_coefficient", r.DischargeCoefficient);
+        json.WriteString("discharge_coefficient_source", meter.DischargeCoefficientSource);
         JsonFields.Number(json, "expansibility", r.Expansibility);
         JsonFields.Number(json, "velocity_of_approach_factor", r.VelocityOfApproachFactor);
         JsonFields.Number(json, "pipe_reynolds", r.PipeReynolds);
@@ -72,8 +73,8 @@ internal static class ManifestBoundary
     {
         var v = point.Nominal.Velocity;
         json.WriteStartObject("inlet_velocity_profile");
-        json.WriteString("model_requested", point.Model.Settings.VelocityModel.ToString());
-        json.WriteString("model_used", v.ModelUsed.ToString());
+        json.WriteString("model_requested", ChoiceSpelling.Name(point.Model.Settings.VelocityModel));
+        json.WriteString("model_used", ChoiceSpelling.Name(v.ModelUsed));
         json.WriteString("selection", "auto: laminar below Re_D 2300, power law above (transitional 2300-4000 flagged); a named model is used as given");
         json.WriteNumber("points", v.Profile.RadiusM.Length);
         JsonFields.Number(json, "reynolds", v.Reynolds);

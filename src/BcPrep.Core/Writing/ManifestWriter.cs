@@ -141,7 +141,7 @@ public static class ManifestWriter
             JsonFields.Number(json, "type_a_standard_uncertainty", stats.TypeA.StandardUncertainty);
             JsonFields.Number(json, "effective_samples", stats.TypeA.EffectiveSampleCount);
             JsonFields.Number(json, "naive_standard_uncertainty", stats.TypeA.NaiveStandardUncertainty);
-            JsonFields.Strings(json, "faults", stats.Faults.Select(f => $"{f.Kind}: {f.Evidence}").ToList());
+            JsonFields.Strings(json, "faults", stats.Faults.Select(f => $"{ChoiceSpelling.Name(f.Kind)}: {f.Evidence}").ToList());
             ConditioningManifest.WriteChannel(json, stats, day.DayStartS);
             json.WriteEndObject();
         }

@@ -60,27 +60,7 @@ public static class WindowTable
     }
 
     /// <summary>Method flags as words joined by '+', e.g. "drift-scatter+r-test+mser"; "none" when empty.</summary>
-    public static string Methods(SteadyMethod methods)
-    {
-        var names = new List<string>();
-        if (methods.HasFlag(SteadyMethod.DriftScatter))
-        {
-            names.Add("drift-scatter");
-        }
-        if (methods.HasFlag(SteadyMethod.RTest))
-        {
-            names.Add("r-test");
-        }
-        if (methods.HasFlag(SteadyMethod.Mser))
-        {
-            names.Add("mser");
-        }
-        if (methods.HasFlag(SteadyMethod.Settling))
-        {
-            names.Add("settling");
-        }
-        return names.Count == 0 ? "none" : string.Join('+', names);
-    }
+    public static string Methods(SteadyMethod methods) => ChoiceSpelling.Names(methods);
 
     private static object?[] Row(string id, string status, string origin, double startS, double endS, double stretchStartS, double stretchEndS,
         string methods, string reason, IReadOnlyList<ChannelCriteria> criteria, List<(string Channel, string Unit)> keys)

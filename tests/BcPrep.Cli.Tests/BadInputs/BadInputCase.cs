@@ -13,6 +13,8 @@ namespace BcPrep.Tests.Cli.BadInputs;
 /// each must occur exactly once), then <c>cells</c> and <c>lines</c> (1-based line numbers of the base file; a line may be generated as prefix + repeat × times + suffix), then
 /// <c>keep</c> (ranges of base lines to keep). A file may instead be <c>text</c>, <c>base64</c>, a <c>directory</c>,
 /// a <c>symlink</c> (to a path in the scratch folder) or carry a <c>mode</c> (octal, e.g. "000").
+/// A file name may lie in the output folder (<c>out/NAME</c>): it is built after the previous run's outputs are copied
+/// there, and is part of what the refusal must leave untouched.
 /// In <c>args</c>, <c>{name}</c> is the path of a built file, <c>{out}</c> the output folder and <c>{dir}</c> the scratch folder.
 /// </remarks>
 public sealed record BadInputCase(
@@ -99,6 +101,11 @@ public sealed record BadInputCase(
         {
             File.Delete(target);
         }
+        else if (Directory.Exists(target))
+        {
+            Directory.Delete(target, recursive: true);
+        }
+        Directory.CreateDirectory(Path.GetDirectoryName(target)!);
         if (spec.TryGetProperty("directory", out var isDirectory) && isDirectory.GetBoolean())
         {
             Directory.CreateDirectory(target);

@@ -66,8 +66,8 @@ public sealed class BadInputCorpusTests(BaseRunFixture baseRun, ITestOutputHelpe
             {
                 CopyTree(baseRun.PreviousOutputs, outDir);
             }
-            var before = Snapshot(outDir);
             var args = badCase.Materialize(scratch, outDir);
+            var before = Snapshot(outDir);
             var outside = OutsideSnapshot(scratch, outDir);
             var stdout = new StringWriter();
             var stderr = new StringWriter();

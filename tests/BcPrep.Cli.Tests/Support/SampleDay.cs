@@ -36,9 +36,13 @@ internal static class SampleDay
         return string.Join("\n", kept) + "\n";
     }
 
-    /// <summary>Relative path → content of every file under a folder, in ordinal path order.</summary>
+    /// <summary>
+    /// Relative path → content of every file under a folder, in ordinal path order; the lock file of a run (which a
+    /// run killed outright leaves behind, holding a dead process id) is not part of a result.
+    /// </summary>
     public static SortedDictionary<string, byte[]> Snapshot(string folder) =>
         new(Directory.EnumerateFiles(folder, "*", SearchOption.AllDirectories)
+            .Where(f => Path.GetRelativePath(folder, f) != BcPrep.Writing.ResultFolder.LockFileName)
             .ToDictionary(f => Path.GetRelativePath(folder, f).Replace('\\', '/'), File.ReadAllBytes), StringComparer.Ordinal);
 
     public static string Sha256(byte[] bytes) => Convert.ToHexStringLower(SHA256.HashData(bytes));

@@ -41,7 +41,7 @@ public class PointUncertaintyTests
     {
         foreach (var point in SampleDayResult.Gum.Points)
         {
-            var profile = point.Model.Outputs.Select((o, i) => (o, i)).Where(p => CovarianceTables.IsProfilePoint(p.o.Name)).ToList();
+            var profile = point.Model.Outputs.Select((o, i) => (o, i)).Where(p => p.o.Name.StartsWith(ProfileOutputs.VelocityPrefix, StringComparison.Ordinal)).ToList();
             Assert.Equal(point.Model.ProfileRadiiM.Length, profile.Count);
             Assert.True(profile.Count >= 10);
             foreach (var (_, i) in profile.Take(profile.Count - 1))
@@ -61,7 +61,7 @@ public class PointUncertaintyTests
         {
             var c = CovarianceTables.Of(point);
             Assert.True(c.Size >= 20);
-            Assert.DoesNotContain(c.Names, CovarianceTables.IsProfilePoint);
+            Assert.DoesNotContain(c.Names, ProfileOutputs.IsProfilePoint);
             for (var i = 0; i < c.Size; i++)
             {
                 Assert.Equal(point.Output(c.Names[i])!.StandardUncertainty, c.StandardUncertainty(i), 1e-12 * Math.Max(1, c.StandardUncertainty(i)));

@@ -40,13 +40,17 @@ internal sealed class SyntheticDay : IDisposable
         """;
 
     private readonly TempFiles _files = new();
-    private readonly List<(string Column, double Value, double Sigma)> _columns = [];
+    private readonly List<(string Column, Func<double, double> Value, double Sigma)> _columns = [];
     private readonly StringBuilder _rig = new(Header);
 
     public string Folder => _files.Root;
 
     /// <summary>Adds a direct-reading channel in SI units with its own TOML keys (measures, plane, ...).</summary>
-    public SyntheticDay Channel(string id, string keys, double value, double sigma, string uncertainty = "")
+    public SyntheticDay Channel(string id, string keys, double value, double sigma, string uncertainty = "") =>
+        Channel(id, keys, _ => value, sigma, uncertainty);
+
+    /// <summary>As <see cref="Channel(string, string, double, double, string)"/> with a value that varies with time (s).</summary>
+    public SyntheticDay Channel(string id, string keys, Func<double, double> value, double sigma, string uncertainty = "")
     {
         _rig.Append(CultureInfo.InvariantCulture, $"[[channel]]\nid = \"{id}\"\n{keys}\n");
         if (uncertainty.Length > 0)
@@ -77,7 +81,7 @@ internal sealed class SyntheticDay : IDisposable
             log.Append(t.ToString(CultureInfo.InvariantCulture));
             foreach (var (_, value, sigma) in _columns)
             {
-                log.Append(',').Append((value + (sigma * Gaussian(random))).ToString("R", CultureInfo.InvariantCulture));
+                log.Append(',').Append((value(t) + (sigma * Gaussian(random))).ToString("R", CultureInfo.InvariantCulture));
             }
             log.Append('\n');
         }

@@ -15,7 +15,7 @@ public class WindowStatisticsMessageTests
         var values = times.Select(_ => 1.0 + (0.01 * Random.Shared.NextDouble())).ToArray();
         var window = new TimeWindow("OP1", dayStart + 900, dayStart + 1099.5);
 
-        var failure = Assert.ThrowsAny<BcPrepFailure>(() =>
+        var failure = Assert.Throws<WindowLostFailure>(() =>
             WindowStatistics.Evaluate("t_in", window, times, values, new ConditioningSettings(MaxBridgeS: 2.0), new SensorFaultLimits(), dayStart));
 
         var message = Assert.Single(failure.Problems).Message;
