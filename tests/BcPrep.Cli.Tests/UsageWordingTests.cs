@@ -10,7 +10,7 @@ namespace BcPrep.Tests.Cli;
 /// </summary>
 public sealed class UsageWordingTests
 {
-    private const string Commands = "check, process, calibrate, budget, covariance, ensemble, windows";
+    private const string Commands = "check, process, calibrate, budget, covariance, ensemble, windows, follow";
 
     [Fact]
     public void Ensemble_help_screen_is_pinned_with_the_readme_placeholders()
