@@ -111,7 +111,9 @@ public static class FollowCommand
             }
             context.Out.Flush();
             diagnostics.Info($"end of the logs: reducing the day into {outDir}");
-            return BcPrepApp.Run(["process", rigPath, .. follower.Files, "--out", outDir], context);
+            // --force: a reduction of the day so far may have read a copy of the last file that already held all of it; the
+            // folder must name the logger's own files, as `process` on them would.
+            return BcPrepApp.Run(["process", rigPath, .. follower.Files, "--out", outDir, "--force"], context);
         });
         return command;
     }
