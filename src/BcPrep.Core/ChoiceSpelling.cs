@@ -16,19 +16,20 @@ public static class ChoiceSpelling
     /// <summary>The rig-file word of <paramref name="model"/> (auto, power_law, …), from the rig's own spelling table.</summary>
     public static string Name(VelocityProfileModel model) => model.RigName();
 
-    /// <summary>A steady-detection method: drift-scatter, r-test or mser.</summary>
+    /// <summary>A steady-detection method: drift-scatter, r-test, mser or settling.</summary>
     public static string Name(SteadyMethod method) => method switch
     {
         SteadyMethod.DriftScatter => "drift-scatter",
         SteadyMethod.RTest => "r-test",
         SteadyMethod.Mser => "mser",
+        SteadyMethod.Settling => "settling",
         _ => throw new ArgumentOutOfRangeException(nameof(method), method, "one method, not a combination"),
     };
 
     /// <summary>Method flags as words joined by '+', e.g. "drift-scatter+r-test+mser"; "none" when empty.</summary>
     public static string Names(SteadyMethod methods)
     {
-        var names = new[] { SteadyMethod.DriftScatter, SteadyMethod.RTest, SteadyMethod.Mser }.Where(m => methods.HasFlag(m)).Select(Name).ToList();
+        var names = new[] { SteadyMethod.DriftScatter, SteadyMethod.RTest, SteadyMethod.Mser, SteadyMethod.Settling }.Where(m => methods.HasFlag(m)).Select(Name).ToList();
         return names.Count == 0 ? "none" : string.Join('+', names);
     }
 
@@ -45,6 +46,7 @@ public static class ChoiceSpelling
         SteadyCriterion.Coverage => "coverage",
         SteadyCriterion.Duration => "duration",
         SteadyCriterion.Range => "range",
+        SteadyCriterion.Settling => "settling",
         _ => throw new ArgumentOutOfRangeException(nameof(criterion), criterion, null),
     };
 

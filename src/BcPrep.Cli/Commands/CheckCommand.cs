@@ -45,6 +45,10 @@ public static class CheckCommand
             }
             diagnostics.Info(string.Create(CultureInfo.InvariantCulture,
                 $"{description.SourceFile}: ok ({description.Channels.Count} channels, {description.Points.Count} pinned operating points)"));
+            foreach (var line in Pipeline.DetectionSettingsText.Lines(description))
+            {
+                diagnostics.Info(line);
+            }
             return ExitCodes.Success;
         });
         return command;

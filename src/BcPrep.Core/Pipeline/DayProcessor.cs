@@ -111,10 +111,16 @@ public static class DayProcessor
 
     /// <summary>
     /// Whether the detected windows are gathered during the read (<see cref="LiveDetection"/>): when detection runs
-    /// and one logger records every channel, so the rows kept back hold all of a window's channels.
+    /// and one logger records every channel, so the rows kept back hold all of a window's channels. Off for now:
+    /// the live scan still applies the sliding drift rule, while the day's windows come from
+    /// <see cref="PlateauDetector"/> (settled moment to plateau end), so its provisional windows never match and
+    /// their statistics would be computed in vain. The windows are read a second time, seeking by the block index.
     /// </summary>
     private static bool ReadsLive(RigDescription rig, DayPlan plan, IReadOnlyList<TimeWindow> pinned, ProcessOptions options) =>
-        options.SinglePass && plan.Loggers.Count == 1 && rig.Steady.Keys.Count > 0 && (rig.Steady.Detect || pinned.Count == 0);
+        LiveScanMatchesDetection && options.SinglePass && plan.Loggers.Count == 1 && rig.Steady.Keys.Count > 0 && (rig.Steady.Detect || pinned.Count == 0);
+
+    /// <summary>False until the live scan runs the same plateau detection as the day (see <see cref="ReadsLive"/>).</summary>
+    private static readonly bool LiveScanMatchesDetection = bool.Parse("false");
 
     /// <summary>
     /// Maps the items on the thread pool (each point's propagation is independent and pure) and returns the results

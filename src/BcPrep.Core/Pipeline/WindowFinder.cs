@@ -18,8 +18,11 @@ public sealed record DayWindows(double DayStartS, BlockSeries Blocks, SteadyDete
 /// </summary>
 public static class WindowFinder
 {
-    /// <summary>True when the rig file asks for detection (<c>[steady] detect</c>, default true) and names key channels.</summary>
-    public static bool IsEnabled(RigDescription rig) => rig.Steady.Detect && rig.Steady.Keys.Count > 0;
+    /// <summary>
+    /// True when the rig file asks for detection (<c>[steady] detect</c>, default true) and has key channels, written
+    /// or by default (<see cref="DetectionKeys.DefaultKeys"/>).
+    /// </summary>
+    public static bool IsEnabled(RigDescription rig) => rig.Steady.Detect && (rig.Steady.Keys.Count > 0 || DetectionKeys.DefaultKeys(rig).Count > 0);
 
     /// <summary>Reads the day once (block means only) and detects its steady windows.</summary>
     /// <exception cref="BcPrepFailure">Configuration when [steady] names no key channel; InputData for unreadable logs.</exception>
@@ -53,14 +56,14 @@ public static class WindowFinder
     {
         ArgumentNullException.ThrowIfNull(rig);
         ArgumentNullException.ThrowIfNull(series);
-        if (rig.Steady.Keys.Count == 0)
+        if (rig.Steady.Keys.Count == 0 && DetectionKeys.DefaultKeys(rig).Count == 0)
         {
             throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation(rig.SourceFile, Key: "steady.key"),
-                "no [[point]] windows are pinned and [steady] names no key channel to detect them with");
+                "no [[point]] windows are pinned, [steady] names no key channel, and the rig has no mass flow, outlet or wall temperature channel to detect them with by default");
         }
         RequireBlocks(rig, series);
         var times = series.TimesS.Select(t => t - dayStartS).ToArray();
-        return SteadyStateDetector.Detect(times, KeyChannels(rig, channel => series.Means[channel]), Settings(rig.Steady));
+        return PlateauDetector.Detect(times, DetectionKeys.For(rig, channel => series.Means[channel]), Settings(rig.Steady));
     }
 
     /// <summary>Refuses a day too short to look for a steady window in (fewer than three blocks).</summary>

@@ -15,6 +15,12 @@ public enum SteadyMethod
 
     /// <summary>MSER-5 truncation of the stretch falls inside its first half.</summary>
     Mser = 4,
+
+    /// <summary>
+    /// Every key channel's fitted first-order approach predicts a remaining change within its tolerance from the
+    /// window's start on (<see cref="SettlingEstimate"/>).
+    /// </summary>
+    Settling = 8,
 }
 
 /// <summary>Criterion that failed.</summary>
@@ -40,6 +46,9 @@ public enum SteadyCriterion
 
     /// <summary>Mean below the key channel's operating minimum (e.g. fan off: steady, but not an operating point).</summary>
     Range,
+
+    /// <summary>The predicted remaining change (|slope|·τ of the fitted approach) still beyond the channel's tolerance.</summary>
+    Settling,
 }
 
 /// <summary>
@@ -55,7 +64,27 @@ public enum SteadyCriterion
 /// off) is perfectly steady, yet it is not an operating point.
 /// </param>
 public sealed record KeyChannel(string Name, IReadOnlyList<double> Values, double DriftLimitPerS, double ScatterLimit, double StepThreshold,
-    double MinimumValue = double.NegativeInfinity);
+    double MinimumValue = double.NegativeInfinity)
+{
+    /// <summary>
+    /// The largest predicted remaining change (channel unit) that counts as settled, as a function of the channel's
+    /// level (a tolerance may be a percentage of reading); null: DriftLimitPerS × the test window.
+    /// </summary>
+    public Func<double, double>? Tolerance { get; init; }
+
+    /// <summary>
+    /// True for a channel that only marks set-point steps (a heater's voltage or current: it jumps the moment the
+    /// setting changes) and is not itself judged settled.
+    /// </summary>
+    public bool StepOnly { get; init; }
+
+    /// <summary>
+    /// Whether a change in this channel marks a set-point step (default true). A slow channel (a wall temperature)
+    /// changes for minutes after each step, and its mean difference crosses a threshold again and again on the
+    /// way; where fast channels (the flow, the heater) mark the steps, the slow ones are left out of the search.
+    /// </summary>
+    public bool MarksSteps { get; init; } = true;
+}
 
 /// <summary>
 /// Detector settings. Defaults (common practice): 300 s test window moved in 10 s steps; a steady stretch must last
@@ -98,7 +127,23 @@ public sealed record ChannelCriteria(
     double R,
     double RCritical,
     double MserTruncationS,
-    IReadOnlyList<CriterionFailure> Failures);
+    IReadOnlyList<CriterionFailure> Failures)
+{
+    /// <summary>Time constant τ (s) of the first-order approach fitted after the step; NaN when not fitted.</summary>
+    public double TauS { get; init; } = double.NaN;
+
+    /// <summary>
+    /// Predicted change still to come from the window's start to the plateau's end, by the fitted approach (about
+    /// |slope|·τ when the plateau is long; channel unit); NaN when not fitted.
+    /// </summary>
+    public double RemainingChange { get; init; } = double.NaN;
+
+    /// <summary>The remaining change that counts as settled (channel unit); NaN when not used.</summary>
+    public double Tolerance { get; init; } = double.NaN;
+
+    /// <summary>Time (s) from which this channel is settled (its remaining change within tolerance); NaN when not fitted.</summary>
+    public double SettledSinceS { get; init; } = double.NaN;
+}
 
 /// <summary>
 /// An accepted operating point: the averaging window [StartS, EndS] (the settled tail), the steady stretch it came from,

@@ -115,6 +115,10 @@ public static class DetectionEvidenceJson
             JsonFields.Number(json, "r", c.R);
             JsonFields.Number(json, "r_critical", c.RCritical);
             JsonFields.Number(json, "mser_truncation_s", c.MserTruncationS);
+            JsonFields.Number(json, "tau_s", c.TauS);
+            JsonFields.Number(json, "remaining_change", c.RemainingChange);
+            JsonFields.Number(json, "tolerance", c.Tolerance);
+            JsonFields.Number(json, "settled_since_s", c.SettledSinceS);
             json.WriteStartArray("failed");
             foreach (var f in c.Failures)
             {

@@ -19,7 +19,8 @@ public static class WindowTable
     {
         ArgumentNullException.ThrowIfNull(rig);
         ArgumentNullException.ThrowIfNull(day);
-        var keys = rig.Steady.Keys.Select(k => (k.Channel, Unit: Unit(rig, k.Channel))).ToList();
+        // The key channels in force: written in [steady], or the defaults (DetectionKeys); step markers are not judged.
+        var keys = DetectionKeys.For(rig, _ => []).Where(k => !k.StepOnly).Select(k => (Channel: k.Name, Unit: Unit(rig, k.Name))).ToList();
         var header = new List<string>
         {
             "point", "status", "origin", "start [s]", "end [s]", "duration [s]", "stretch start [s]", "stretch end [s]", "accepted by", "reason",
@@ -30,7 +31,8 @@ public static class WindowTable
             header.AddRange([
                 $"{channel} mean [{unit}]", $"{channel} slope [{rate}]", $"{channel} slope u [{rate}]", $"{channel} drift limit [{rate}]",
                 $"{channel} std dev [{unit}]", $"{channel} scatter limit [{unit}]", $"{channel} R [1]", $"{channel} R crit [1]",
-                $"{channel} MSER truncation [s]",
+                $"{channel} MSER truncation [s]", $"{channel} tau [s]", $"{channel} remaining change [{unit}]", $"{channel} tolerance [{unit}]",
+                $"{channel} settled since [s]",
             ]);
         }
         var table = new CsvTable(header);
@@ -68,8 +70,9 @@ public static class WindowTable
         {
             var c = criteria.FirstOrDefault(x => x.Channel == channel);
             cells.AddRange(c is null
-                ? Enumerable.Repeat<object?>(null, 9)
-                : [c.Mean, c.SlopePerS, c.SlopeUncertaintyPerS, c.DriftLimitPerS, c.StandardDeviation, c.ScatterLimit, c.R, c.RCritical, c.MserTruncationS]);
+                ? Enumerable.Repeat<object?>(null, 13)
+                : [c.Mean, c.SlopePerS, c.SlopeUncertaintyPerS, c.DriftLimitPerS, c.StandardDeviation, c.ScatterLimit, c.R, c.RCritical, c.MserTruncationS,
+                    c.TauS, c.RemainingChange, c.Tolerance, c.SettledSinceS]);
         }
         return [.. cells];
     }

@@ -20,7 +20,9 @@ public class SinglePassTests
         var twoPasses = DayProcessor.Process(rig, SampleDay(), new ProcessOptions { SinglePass = false });
 
         Assert.Equal(3, single.Points.Count);
-        Assert.Equal(0, single.WindowsReadAgain);
+        // The live scan is off while it applies another rule than the day's plateau detection (DayProcessor.ReadsLive):
+        // the windows are read again, with the same results.
+        Assert.Equal(3, single.WindowsReadAgain);
         Assert.Equal(3, twoPasses.WindowsReadAgain);
         AssertSamePoints(twoPasses, single);
     }
@@ -62,7 +64,7 @@ public class SinglePassTests
         var twoPasses = DayProcessor.Process(rig, SampleDay(), new ProcessOptions { SinglePass = false });
 
         Assert.Equal(3, single.Points.Count);
-        Assert.Equal(0, single.WindowsReadAgain);
+        Assert.Equal(3, single.WindowsReadAgain); // the live scan is off (DayProcessor.ReadsLive)
         AssertSamePoints(twoPasses, single);
     }
 
