@@ -50,7 +50,7 @@ public sealed class UsageWordingTests
     [Fact]
     public void No_option_help_shows_a_placeholder_made_from_its_own_name()
     {
-        foreach (var command in new[] { "check", "process", "calibrate", "budget", "covariance", "ensemble", "windows" })
+        foreach (var command in new[] { "check", "process", "calibrate", "budget", "covariance", "ensemble", "windows", "follow" })
         {
             var help = CliRunner.Run(command, "--help").Out;
 
