@@ -45,9 +45,9 @@ public sealed class ChoiceSpellingTests : IDisposable
         var manifest = texts.Single(t => t.Name == "manifest.json").Text;
         Assert.Contains("\"model_requested\": \"auto\"", manifest, StringComparison.Ordinal);
         Assert.Contains("\"model_used\": \"power_law\"", manifest, StringComparison.Ordinal);
-        Assert.Contains("\"criterion\": \"drift\"", manifest, StringComparison.Ordinal);
+        Assert.Contains("\"criterion\": \"range\"", manifest, StringComparison.Ordinal); // the fan-off start, below the flow minimum
         Assert.Contains("velocity model power_law;", File.ReadAllText(Path.Combine(outDir, "points", "OP1", "inlet-profile.csv")), StringComparison.Ordinal);
-        Assert.Contains("<td>drift-scatter+mser</td>", texts.Single(t => t.Name.EndsWith("index.html", StringComparison.Ordinal)).Text, StringComparison.Ordinal);
+        Assert.Contains("<td>drift-scatter+settling</td>", texts.Single(t => t.Name.EndsWith("index.html", StringComparison.Ordinal)).Text, StringComparison.Ordinal);
     }
 
     [Fact]
