@@ -10,7 +10,7 @@ namespace BcPrep.Tests.Cli;
 /// </summary>
 public sealed class UsageWordingTests
 {
-    private const string Commands = "check, process, calibrate, budget, covariance, ensemble, windows";
+    private const string Commands = "check, process, calibrate, budget, covariance, ensemble, windows, follow";
 
     [Fact]
     public void Ensemble_help_screen_is_pinned_with_the_readme_placeholders()
@@ -50,7 +50,7 @@ public sealed class UsageWordingTests
     [Fact]
     public void No_option_help_shows_a_placeholder_made_from_its_own_name()
     {
-        foreach (var command in new[] { "check", "process", "calibrate", "budget", "covariance", "ensemble", "windows" })
+        foreach (var command in new[] { "check", "process", "calibrate", "budget", "covariance", "ensemble", "windows", "follow" })
         {
             var help = CliRunner.Run(command, "--help").Out;
 

@@ -22,7 +22,7 @@ public static class FollowCommand
         var rig = RigArguments.Rig();
         var folder = new Argument<string>("FOLDER") { Description = "The folder the logger writes its files into." };
         var output = new Option<string>("--out", "-o") { Description = "Output folder: finished points are reduced into it as `process` would.", Required = true, HelpName = "DIR" };
-        var pattern = new Option<string>("--pattern") { Description = "File name pattern of the logger's files.", DefaultValueFactory = _ => "*.csv" };
+        var pattern = new Option<string>("--pattern") { Description = "File name pattern of the logger's files.", DefaultValueFactory = _ => "*.csv", HelpName = "PATTERN" };
         var interval = new Option<double>("--interval") { Description = "Seconds between two reports.", DefaultValueFactory = _ => 10.0, HelpName = "S" };
         var idle = new Option<double?>("--end-after-idle") { Description = "End when no new row has arrived for this many seconds (default: run until Ctrl-C).", HelpName = "S" };
         var json = new Option<bool>("--json") { Description = "Write each report as one JSON line to standard output (for a wrapper) instead of lines on standard error." };
@@ -111,7 +111,9 @@ public static class FollowCommand
             }
             context.Out.Flush();
             diagnostics.Info($"end of the logs: reducing the day into {outDir}");
-            return BcPrepApp.Run(["process", rigPath, .. follower.Files, "--out", outDir], context);
+            // --force: a reduction of the day so far may have read a copy of the last file that already held all of it; the
+            // folder must name the logger's own files, as `process` on them would.
+            return BcPrepApp.Run(["process", rigPath, .. follower.Files, "--out", outDir, "--force"], context);
         });
         return command;
     }
