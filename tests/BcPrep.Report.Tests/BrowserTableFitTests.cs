@@ -1,6 +1,4 @@
 using System.Globalization;
-using BcPrep.Report;
-using BcPrep.Writing;
 
 namespace BcPrep.Tests.Report;
 
@@ -36,42 +34,17 @@ public sealed class BrowserTableFitTests
     [SkippableFact]
     public void Every_table_of_the_sample_report_fits_a_1280_px_window()
     {
-        var root = Path.Combine(Path.GetTempPath(), "bcprep-report-fit-" + Guid.NewGuid().ToString("N"));
-        try
-        {
-            var report = DayReport.Build(SampleDays.Day);
-            var files = new OutputFileSet();
-            foreach (var (path, content) in report.Files(DayReport.Folder))
-            {
-                files.Add(path, content);
-            }
-            files.Commit(Path.Combine(root, "out"));
-            var page = Path.Combine(root, "out", "report", DayReport.PageName);
-            var probePage = Path.Combine(root, "out", "report", "probe.html");
-            File.WriteAllText(probePage, File.ReadAllText(page).Replace("</body>", Probe + "\n</body>", StringComparison.Ordinal));
-
-            var dom = HeadlessBrowser.DumpDom(probePage, Path.Combine(root, "profile"), WindowWidthPx);
-
-            var check = dom[(dom.IndexOf("<pre id=\"table-check\">", StringComparison.Ordinal) + 22)..];
-            var lines = check[..check.IndexOf("</pre>", StringComparison.Ordinal)].Split('\n');
-            var window = lines[0].Split(' ');
-            Assert.Equal(WindowWidthPx, int.Parse(window[1], CultureInfo.InvariantCulture));
-            var tables = lines.Skip(1).Select(l => l.Split(' ', 5)).ToList();
-            // The sample report has the operating points, the steady windows and, per point, checks and conditioning.
-            Assert.True(tables.Count >= 2 + (2 * SampleDays.Day.Points.Count), $"only {tables.Count} tables found");
-            var overflowing = tables
-                .Where(t => double.Parse(t[2], CultureInfo.InvariantCulture) > double.Parse(t[3], CultureInfo.InvariantCulture) + 0.5 || t[4].StartsWith("scrolls", StringComparison.Ordinal))
-                .Select(t => $"table {t[1]} (first header '{t[4][(t[4].IndexOf(' ', StringComparison.Ordinal) + 1)..]}') ends at {t[2]} px, the page's column at {t[3]} px")
-                .ToList();
-            Assert.True(overflowing.Count == 0, string.Join("; ", overflowing));
-            Assert.True(int.Parse(window[2], CultureInfo.InvariantCulture) <= WindowWidthPx, $"the page is {window[2]} px wide in a {WindowWidthPx} px window");
-        }
-        finally
-        {
-            if (Directory.Exists(root))
-            {
-                Directory.Delete(root, recursive: true);
-            }
-        }
+        var (_, lines) = ProbedSampleReport.Open(Probe, "table-check", WindowWidthPx);
+        var window = lines[0].Split(' ');
+        Assert.Equal(WindowWidthPx, int.Parse(window[1], CultureInfo.InvariantCulture));
+        var tables = lines.Skip(1).Select(l => l.Split(' ', 5)).ToList();
+        // The sample report has the operating points, the steady windows and, per point, checks and conditioning.
+        Assert.True(tables.Count >= 2 + (2 * SampleDays.Day.Points.Count), $"only {tables.Count} tables found");
+        var overflowing = tables
+            .Where(t => double.Parse(t[2], CultureInfo.InvariantCulture) > double.Parse(t[3], CultureInfo.InvariantCulture) + 0.5 || t[4].StartsWith("scrolls", StringComparison.Ordinal))
+            .Select(t => $"table {t[1]} (first header '{t[4][(t[4].IndexOf(' ', StringComparison.Ordinal) + 1)..]}') ends at {t[2]} px, the page's column at {t[3]} px")
+            .ToList();
+        Assert.True(overflowing.Count == 0, string.Join("; ", overflowing));
+        Assert.True(int.Parse(window[2], CultureInfo.InvariantCulture) <= WindowWidthPx, $"the page is {window[2]} px wide in a {WindowWidthPx} px window");
     }
 }
