@@ -15,7 +15,7 @@ internal static class SampleDays
     /// <summary>The sample day with t_in turned into a rake sensor on the axis and a second rake sensor (same column) at 20 mm.</summary>
     public static DayResult RakeDay => WithRake.Value;
 
-    private static string RigPath => Path.Combine(RepoRoot.Path, "sample-logs", "marten-rig.toml");
+    private static string RigPath => Path.Combine(RepoRoot.Path, "tests", "marten-rig-pinned.toml");
 
     private static string RakeRig()
     {

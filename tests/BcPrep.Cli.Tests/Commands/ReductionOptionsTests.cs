@@ -77,7 +77,7 @@ public sealed class ReductionOptionsTests : IDisposable
     {
         var outDir = Path.Combine(_dir, "ens");
 
-        var run = CliRunner.Run(["ensemble", Path.Combine(RepoRoot.Path, "sample-logs", "marten-rig.toml"), .. Logs, "--matrix", Matrix, "--point", "F30-H900", "--samples", "2", "--out", outDir]);
+        var run = CliRunner.Run(["ensemble", Path.Combine(RepoRoot.Path, "tests", "marten-rig-pinned.toml"), .. Logs, "--matrix", Matrix, "--point", "F30-H900", "--samples", "2", "--out", outDir]);
 
         Assert.True(run.ExitCode == 0, run.Error);
         Assert.True(File.Exists(Path.Combine(outDir, "members", "0002", "scalars.csv")));
@@ -86,7 +86,7 @@ public sealed class ReductionOptionsTests : IDisposable
     [Fact]
     public void Budget_with_the_test_matrix_names_its_rows_after_the_plan()
     {
-        var run = CliRunner.Run(["budget", Path.Combine(RepoRoot.Path, "sample-logs", "marten-rig.toml"), .. Logs, "--matrix", Matrix, "--quantity", "mass_flow"]);
+        var run = CliRunner.Run(["budget", Path.Combine(RepoRoot.Path, "tests", "marten-rig-pinned.toml"), .. Logs, "--matrix", Matrix, "--quantity", "mass_flow"]);
 
         Assert.True(run.ExitCode == 0, run.Error);
         var points = run.Out.Split('\n', StringSplitOptions.RemoveEmptyEntries).Skip(1).Select(l => l.Split(',')[0]).Distinct().ToList();
@@ -106,7 +106,7 @@ public sealed class ReductionOptionsTests : IDisposable
     private string ExpiredRig()
     {
         var path = Path.Combine(_dir, "rig.toml");
-        var text = File.ReadAllText(Path.Combine(RepoRoot.Path, "sample-logs", "marten-rig.toml"));
+        var text = File.ReadAllText(Path.Combine(RepoRoot.Path, "tests", "marten-rig-pinned.toml"));
         Assert.Contains("calibration_due = \"2027-03-10\"", text, StringComparison.Ordinal);
         File.WriteAllText(path, text.Replace("calibration_due = \"2027-03-10\"", "calibration_due = \"2026-11-01\"", StringComparison.Ordinal));
         return path;

@@ -13,10 +13,11 @@ public class SampleDayEndToEndTests
     [Fact]
     public void Process_writes_three_points_whose_values_match_the_generator_settings()
     {
+        // The bundled rig as README's main command uses it: no window pinned, the three points detected.
         using var temp = new TempFolder();
         var outDir = temp.File("out");
 
-        var run = CliRunner.Run(SampleDay.ProcessArgs(outDir));
+        var run = CliRunner.Run(["process", SampleDay.BundledRig, .. SampleDay.Logs, "--out", outDir]);
 
         Assert.Equal(0, run.ExitCode);
         Assert.Equal("", run.Out);
@@ -34,6 +35,19 @@ public class SampleDayEndToEndTests
             {
                 Assert.True(File.Exists(Path.Combine(outDir, "points", point, file)), $"{point}/{file}");
             }
+        }
+        // Each detected window lies on its plateau, after the step (tools/SampleDay: set points at 10, 60 and 110 min)
+        // and the wall's settling (τ about 8 min), and holds the former pinned 10-minute window's end or more.
+        using var manifest = JsonDocument.Parse(File.ReadAllBytes(Path.Combine(outDir, "manifest.json")));
+        var windows = manifest.RootElement.GetProperty("points").EnumerateArray()
+            .Select(p => (Start: p.GetProperty("window").GetProperty("start_s").GetDouble(), End: p.GetProperty("window").GetProperty("end_s").GetDouble())).ToList();
+        Assert.Equal(3, windows.Count);
+        double[] steps = [600, 3600, 6600];
+        double[] nextSteps = [3600, 6600, 9900];
+        for (var i = 0; i < 3; i++)
+        {
+            Assert.InRange(windows[i].Start, steps[i] + (2 * 480), nextSteps[i] - 300);
+            Assert.InRange(windows[i].End, nextSteps[i] - 60, nextSteps[i]);
         }
     }
 

@@ -6,7 +6,7 @@ namespace BcPrep.Tests.Cli.Commands;
 /// <summary>budget, covariance and ensemble run in-process on the bundled sample day.</summary>
 public class UncertaintyCommandsTests
 {
-    private static readonly string Rig = Path.Combine(RepoRoot.Path, "sample-logs", "marten-rig.toml");
+    private static readonly string Rig = Path.Combine(RepoRoot.Path, "tests", "marten-rig-pinned.toml");
 
     private static readonly string[] Logs = Directory.GetFiles(Path.Combine(RepoRoot.Path, "sample-logs"), "*.csv").Order(StringComparer.Ordinal).ToArray();
 

@@ -168,12 +168,13 @@ public class WindowsCommandTests
     }
 
     [Fact]
-    public void Process_with_the_sample_rig_keeps_its_three_pinned_points()
+    public void Process_with_the_pinned_copy_of_the_sample_rig_keeps_its_three_pinned_points()
     {
+        // tests/marten-rig-pinned.toml: the sample rig with the three windows it pinned before it relied on detection.
         using var scratch = new DetectionScratch();
         var outDir = Path.Combine(scratch.Root, "out");
 
-        var (exit, _, error) = CliRun.Run(Args("process", DetectionScratch.SampleRig, "--out", outDir));
+        var (exit, _, error) = CliRun.Run(Args("process", Path.Combine(RepoRoot.Path, "tests", "marten-rig-pinned.toml"), "--out", outDir));
 
         Assert.True(exit == 0, error);
         using var manifest = JsonDocument.Parse(File.ReadAllText(Path.Combine(outDir, "manifest.json")));

@@ -88,7 +88,7 @@ public sealed class LabPracticeCommandTests : IDisposable
     public void Process_with_the_matrix_names_folders_summary_and_manifest_after_the_plan()
     {
         var outDir = Path.Combine(_dir, "out");
-        var (code, _, error) = Run(["process", Sample("marten-rig.toml"), .. Logs, "--out", outDir, "--matrix", Path.Combine(RepoRoot.Path, "sample-logs", "plans", "marten-matrix.csv")]);
+        var (code, _, error) = Run(["process", Path.Combine(RepoRoot.Path, "tests", "marten-rig-pinned.toml"), .. Logs, "--out", outDir, "--matrix", Path.Combine(RepoRoot.Path, "sample-logs", "plans", "marten-matrix.csv")]);
         Assert.True(code == 0, error);
         Assert.Equal(["F20-H600", "F30-H900", "F40-H1200"], Directory.GetDirectories(Path.Combine(outDir, "points")).Select(Path.GetFileName).Order(StringComparer.Ordinal));
         var summaryIds = File.ReadAllLines(Path.Combine(outDir, "summary.csv")).Where(l => !l.StartsWith('#')).Skip(1).Select(l => l.Split(',')[0]);
@@ -108,7 +108,7 @@ public sealed class LabPracticeCommandTests : IDisposable
                                   "mid,0.030,0.001,900,45\n" +
                                   "max,0.050,0.001,1500,50\n");
         var outDir = Path.Combine(_dir, "out");
-        var (code, _, error) = Run(["process", Sample("marten-rig.toml"), .. Logs, "--out", outDir, "--matrix", matrix]);
+        var (code, _, error) = Run(["process", Path.Combine(RepoRoot.Path, "tests", "marten-rig-pinned.toml"), .. Logs, "--out", outDir, "--matrix", matrix]);
         Assert.True(code == 0, error);
         Assert.Contains("warning: point 'OP3' matches no row", error, StringComparison.Ordinal);
         Assert.Contains("warning: planned point 'max'", error, StringComparison.Ordinal);
@@ -126,7 +126,7 @@ public sealed class LabPracticeCommandTests : IDisposable
     {
         var matrix = Path.Combine(_dir, "plan.csv");
         File.WriteAllText(matrix, "point,heater_power [inH2O],tolerance_heater_power [W]\nlow,600,30\n");
-        var (code, _, error) = Run(["process", Sample("marten-rig.toml"), .. Logs, "--out", Path.Combine(_dir, "out"), "--matrix", matrix]);
+        var (code, _, error) = Run(["process", Path.Combine(RepoRoot.Path, "tests", "marten-rig-pinned.toml"), .. Logs, "--out", Path.Combine(_dir, "out"), "--matrix", matrix]);
         Assert.Equal(2, code);
         Assert.Contains($"{matrix}:1:7: heater_power [inH2O]: 'inH2O' in '1 inH2O' is not a unit of power", error, StringComparison.Ordinal);
     }
@@ -135,7 +135,7 @@ public sealed class LabPracticeCommandTests : IDisposable
     public void Changing_the_matrix_or_the_override_makes_the_run_out_of_date()
     {
         var outDir = Path.Combine(_dir, "out");
-        string[] plain = ["process", Sample("marten-rig.toml"), .. Logs, "--out", outDir];
+        string[] plain = ["process", Path.Combine(RepoRoot.Path, "tests", "marten-rig-pinned.toml"), .. Logs, "--out", outDir];
         Assert.Equal(0, Run(plain).Code);
         Assert.Contains("up to date", Run(plain).Error, StringComparison.Ordinal);
         var withMatrix = Run([.. plain, "--matrix", Path.Combine(RepoRoot.Path, "sample-logs", "plans", "marten-matrix.csv")]);

@@ -8,8 +8,8 @@ public class DetectionFeedTests
 {
     private static readonly string[] Logs = Directory.GetFiles(Path.Combine(RepoRoot.Path, "sample-logs"), "*.csv").Order(StringComparer.Ordinal).ToArray();
 
-    private static RigDescription SampleRig(string conditioning) =>
-        RigLoader.Load(File.ReadAllText(Tests.Rig.RigLoaderTests.SampleRigPath) + "\n[conditioning]\n" + conditioning + "\n", "rig.toml");
+    private static RigDescription SampleRig(string conditioning, bool pinned = false) =>
+        RigLoader.Load(File.ReadAllText(pinned ? Tests.Rig.RigLoaderTests.PinnedSampleRigPath : Tests.Rig.RigLoaderTests.SampleRigPath) + "\n[conditioning]\n" + conditioning + "\n", "rig.toml");
 
     [Fact]
     public void With_a_low_pass_set_the_block_means_come_from_conditioned_samples_and_lose_the_spikes()
@@ -33,10 +33,11 @@ public class DetectionFeedTests
     [Fact]
     public void Window_means_and_Type_A_ignore_the_low_pass()
     {
-        // The filters serve detection and plots only: a low-pass narrows the scatter and would understate Type A.
+        // The filters serve detection and plots only: a low-pass narrows the scatter and would understate Type A. The
+        // windows are pinned (the filtered block means may move a detected window by a few seconds).
         var logs = Logs.Select(LogInput.FromPath).ToList();
-        var plain = DayProcessor.Process(SampleRig("lowpass_cutoff = \"none\""), logs, new ProcessOptions());
-        var filtered = DayProcessor.Process(SampleRig("lowpass_cutoff = \"0.2 Hz\""), logs, new ProcessOptions());
+        var plain = DayProcessor.Process(SampleRig("lowpass_cutoff = \"none\"", pinned: true), logs, new ProcessOptions());
+        var filtered = DayProcessor.Process(SampleRig("lowpass_cutoff = \"0.2 Hz\"", pinned: true), logs, new ProcessOptions());
 
         var a = plain.Points.Single(p => p.Id == "OP2").Channels["t_out"];
         var b = filtered.Points.Single(p => p.Id == "OP2").Channels["t_out"];

@@ -45,7 +45,7 @@ internal sealed partial class GeneratedDay : IDisposable
     /// <summary>The sample rig in seconds, one window [start, end] s after the first sample, tares as asked.</summary>
     public static RigDescription Rig(double startS, double endS, string? tare = null)
     {
-        var text = File.ReadAllText(Path.Combine(RepoRoot.Path, "sample-logs", "marten-rig.toml"));
+        var text = File.ReadAllText(Path.Combine(RepoRoot.Path, "tests", "marten-rig-pinned.toml"));
         text = text.Replace("time_format = \"iso8601\"", "time_format = \"seconds\"", StringComparison.Ordinal);
         text = TareLine().Replace(text, tare is null ? "" : $"tare = {{ {tare} }}\n");
         var points = text.IndexOf("\n[[point]]", StringComparison.Ordinal) + 1;

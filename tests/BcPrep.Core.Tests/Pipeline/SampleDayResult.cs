@@ -18,7 +18,7 @@ internal static class SampleDayResult
 
     public static PointResult Point(string id) => Gum.Points.Single(p => p.Id == id);
 
-    private static string RigPath => Path.Combine(RepoRoot.Path, "sample-logs", "marten-rig.toml");
+    private static string RigPath => Path.Combine(RepoRoot.Path, "tests", "marten-rig-pinned.toml");
 
     private static List<LogInput> Logs() =>
         Directory.GetFiles(Path.Combine(RepoRoot.Path, "sample-logs"), "*.csv").Order(StringComparer.Ordinal).Select(LogInput.FromPath).ToList();

@@ -68,12 +68,12 @@ public class SinglePassTests
         AssertSamePoints(twoPasses, single);
     }
 
-    // The sample rig pins its three points, which replace the detected windows they overlap: nothing is gathered
+    // The pinned copy of the sample rig pins its three points, which replace the detected windows they overlap: nothing is gathered
     // ahead, nothing is read again, and the results are those of the two-pass path.
     [Fact]
     public void Pinned_points_are_unaffected()
     {
-        var rig = RigLoader.Load(File.ReadAllText(Tests.Rig.RigLoaderTests.SampleRigPath), Tests.Rig.RigLoaderTests.SampleRigPath);
+        var rig = RigLoader.Load(File.ReadAllText(Tests.Rig.RigLoaderTests.PinnedSampleRigPath), Tests.Rig.RigLoaderTests.PinnedSampleRigPath);
 
         var single = DayProcessor.Process(rig, SampleDay(), new ProcessOptions());
         var twoPasses = DayProcessor.Process(rig, SampleDay(), new ProcessOptions { SinglePass = false });

@@ -6,6 +6,9 @@ public class RigLoaderTests
 {
     internal static string SampleRigPath => Path.Combine(RepoRoot.Path, "sample-logs", "marten-rig.toml");
 
+    /// <summary>The sample rig with the three windows it pinned before it relied on detection (tests that compare those windows).</summary>
+    internal static string PinnedSampleRigPath => Path.Combine(RepoRoot.Path, "tests", "marten-rig-pinned.toml");
+
     [Fact]
     public void Sample_rig_loads_with_SI_values()
     {
@@ -20,10 +23,31 @@ public class RigLoaderTests
         var tc = Assert.IsType<ThermocoupleSensor>(rig.Channel("t_in")!.Sensor);
         Assert.Equal(1e-3, tc.RawToSi.Scale, 15); // mV -> V
         Assert.Equal("t_cj", tc.ColdJunctionChannel);
-        Assert.Equal(3, rig.Points.Count);
-        Assert.Equal(49.5 * 60.0, rig.Points[0].Start.Seconds, 12);
+        Assert.Empty(rig.Points); // the sample rig relies on detection; its pins are a commented example
         Assert.Equal(3, rig.Steady.Keys.Count);
         Assert.Equal(0.0004, rig.Steady.Keys[0].MaxChangeSi, 15);
+    }
+
+    [Fact]
+    public void The_pinned_copy_of_the_sample_rig_pins_its_three_windows()
+    {
+        // tests/marten-rig-pinned.toml: the windows the sample rig pinned before it relied on detection.
+        var rig = RigLoader.Load(File.ReadAllText(PinnedSampleRigPath), "marten-rig-pinned.toml");
+        Assert.Equal(["OP1", "OP2", "OP3"], rig.Points.Select(p => p.Id));
+        Assert.Equal([49.5 * 60.0, 97 * 60.0, 150 * 60.0], rig.Points.Select(p => p.Start.Seconds));
+        Assert.Equal([59.5 * 60.0, 107 * 60.0, 160 * 60.0], rig.Points.Select(p => p.End.Seconds));
+    }
+
+    [Fact]
+    public void The_commented_example_in_the_sample_rig_pins_the_same_windows_once_uncommented()
+    {
+        // The sample rig's second example: uncommenting its [[point]] lines gives the pinned copy's points.
+        var text = File.ReadAllText(SampleRigPath);
+        var uncommented = System.Text.RegularExpressions.Regex.Replace(text, @"^# (\[\[point\]\]|id = |start = |end = )", "$1",
+            System.Text.RegularExpressions.RegexOptions.Multiline);
+        var rig = RigLoader.Load(uncommented, "marten-rig.toml");
+        Assert.Equal(["OP1", "OP2", "OP3"], rig.Points.Select(p => p.Id));
+        Assert.Equal([49.5 * 60.0, 97 * 60.0, 150 * 60.0], rig.Points.Select(p => p.Start.Seconds));
     }
 
     [Fact]
@@ -72,7 +96,7 @@ public class RigLoaderTests
     [InlineData("cold_junction = \"t_cj\"\ntolerance_class = \"1\"\nkey = true", "cold_junction = \"t_cjj\"\ntolerance_class = \"1\"\nkey = true", "did you mean 't_cj'")]
     [InlineData("reference = \"p_baro\"\nsensor = \"linear\"                        # 0-10 V", "reference = \"p_bar\"\nsensor = \"linear\"                        # 0-10 V", "no channel with id 'p_bar'")]
     [InlineData("gain = 60.0", "gain = \"sixty\"", "expected a number")]
-    [InlineData("start = \"49.5 min\"", "start = \"49.5 mins\"", "not a unit of duration")]
+    [InlineData("window = \"5 min\"", "window = \"5 mins\"", "not a unit of duration")]
     public void Invalid_values_are_reported(string original, string replacement, string fragment)
     {
         var text = File.ReadAllText(SampleRigPath);
