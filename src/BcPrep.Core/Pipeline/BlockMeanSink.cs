@@ -26,7 +26,7 @@ public sealed class BlockMeanSink : IChannelSink, IBlockSink
 
     public void Accept(string channel, ReadOnlySpan<double> timeS, ReadOnlySpan<double> valueSi)
     {
-        FindRuns(timeS);
+        FindRuns(timeS, _originS, _blockS, _runs);
         AddRuns(Accumulator(channel), valueSi);
         NoteLatest(channel);
     }
@@ -41,7 +41,7 @@ public sealed class BlockMeanSink : IChannelSink, IBlockSink
     /// </summary>
     public void AcceptBlock(IReadOnlyList<string> channels, double[] timeS, IReadOnlyList<double[]> valuesSi, int count)
     {
-        FindRuns(timeS.AsSpan(0, count));
+        FindRuns(timeS.AsSpan(0, count), _originS, _blockS, _runs);
         for (var c = 0; c < channels.Count; c++)
         {
             AddRuns(Accumulator(channels[c]), valuesSi[c]);
@@ -97,20 +97,33 @@ public sealed class BlockMeanSink : IChannelSink, IBlockSink
     /// Times increase, so samples come in runs that share an averaging block. The run's first sample always belongs
     /// to it, even where rounding puts it on the block's end.
     /// </summary>
-    private void FindRuns(ReadOnlySpan<double> timeS)
+    internal static void FindRuns(ReadOnlySpan<double> timeS, double originS, double blockS, List<(int Index, int Start, int End)> runs)
     {
-        _runs.Clear();
+        runs.Clear();
         var i = 0;
         while (i < timeS.Length)
         {
-            var index = (int)Math.Floor((timeS[i] - _originS) / _blockS);
-            var blockEndS = _originS + ((index + 1) * _blockS);
+            var index = (int)Math.Floor((timeS[i] - originS) / blockS);
+            var blockEndS = originS + ((index + 1) * blockS);
             var start = i;
             for (var first = true; i < timeS.Length && (first || timeS[i] < blockEndS); i++, first = false)
             {
             }
-            _runs.Add((index, start, i));
+            runs.Add((index, start, i));
         }
+    }
+
+    /// <summary>
+    /// Adds the sum and count of finite samples that a feed of its own has already reduced to block
+    /// <paramref name="index"/> (<see cref="DespikedBlockFeed"/>), as <see cref="Accept"/> adds a run.
+    /// </summary>
+    internal void AddBlock(string channel, int index, double sum, int count) => Add(Accumulator(channel), index, sum, count);
+
+    /// <summary>Notes that <paramref name="channel"/> has had a sample in block <paramref name="index"/> (see <see cref="FinalBlocks"/>).</summary>
+    internal void NoteLatest(string channel, int index)
+    {
+        _latestBlock[channel] = index;
+        Accumulator(channel);
     }
 
     private (List<double> Sum, List<int> Count) Accumulator(string channel)

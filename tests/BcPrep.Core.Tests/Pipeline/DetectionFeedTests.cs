@@ -12,10 +12,12 @@ public class DetectionFeedTests
         RigLoader.Load(File.ReadAllText(pinned ? Tests.Rig.RigLoaderTests.PinnedSampleRigPath : Tests.Rig.RigLoaderTests.SampleRigPath) + "\n[conditioning]\n" + conditioning + "\n", "rig.toml");
 
     [Fact]
-    public void With_a_low_pass_set_the_block_means_come_from_conditioned_samples_and_lose_the_spikes()
+    public void Block_means_lose_the_spikes_with_or_without_a_low_pass()
     {
         // tools/SampleDay plants a +150 Pa spike on p_in at t = 2000 s (one sample of a 2 Hz log, so +75 Pa on that
-        // 1 s block mean); conditioning replaces it (Hampel) before the block means are formed.
+        // 1 s block mean if it were left in). Hampel replaces it before the block means are formed: without a filter
+        // on the raw samples (DespikedBlockFeed), with a low-pass in the conditioning chain. (Issue 18 asks for the
+        // first; before it, the block means without a filter kept the spike.)
         var plain = WindowFinder.Find(SampleRig("lowpass_cutoff = \"none\""), Logs.Select(LogInput.FromPath).ToList());
         var filtered = WindowFinder.Find(SampleRig("lowpass_cutoff = \"0.2 Hz\""), Logs.Select(LogInput.FromPath).ToList());
 
@@ -25,7 +27,7 @@ public class DetectionFeedTests
             return p[block] - (0.5 * (p[block - 3] + p[block + 3]));
         }
         var spikeBlock = 2000;
-        Assert.InRange(Jump(plain, spikeBlock), 50.0, 100.0);
+        Assert.InRange(Math.Abs(Jump(plain, spikeBlock)), 0.0, 2.0);
         Assert.InRange(Math.Abs(Jump(filtered, spikeBlock)), 0.0, 2.0);
         Assert.Equal(plain.Detection.Accepted.Count, filtered.Detection.Accepted.Count);
     }
