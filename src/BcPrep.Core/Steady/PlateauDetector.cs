@@ -212,11 +212,14 @@ public static class PlateauDetector
         var block = t.Length > 1 ? t[1] - t[0] : 1.0;
         var fit = SettlingEstimate.Fit(span, values, startS, block, Math.Max(4 * (t[last] - startS), 10 * block), withDrift: true);
         var endS = t[last] + (block / 2);
-        if (fit.TauAtBound && fit.TauS > block * 2)
+        if ((fit.TauAtBound || fit.TauS > endS - startS) && fit.TauS > block * 2)
         {
             // τ at the long end: the data show no approach, only (at most) a straight drift, which the exponential
             // and the drift term then share between them. A drift that stays within the tolerance over the
-            // plateau is settled from its start; a larger one is a ramp, never settled.
+            // plateau is settled from its start; a larger one is a ramp, never settled. So also when τ exceeds the
+            // plateau: less than one time constant is in view, the curve and the drift cannot be told apart, and
+            // on a settled plateau of autocorrelated noise the fit finds such a curve (τ twice the plateau) whose
+            // |slope|·τ is noise amplified by τ. A real approach that slow drifts beyond the tolerance: a ramp.
             var line = SettlingEstimate.Fit(span, values, startS, block, 2 * block, withDrift: true);
             var change = Math.Abs(line.DriftPerS) * (endS - startS);
             var straight = line with { Amplitude = 0.0 };

@@ -103,4 +103,29 @@ public class PlateauDetectorTests
         Assert.Single(result.Accepted);
         Assert.Contains(result.Rejected, r => r.Reason.Contains("wall: predicted remaining change", StringComparison.Ordinal));
     }
+
+    [Fact]
+    public void A_curve_slower_than_its_plateau_is_judged_by_its_drift_not_by_slope_times_tau()
+    {
+        // One plateau of 600 s (the day's first: no step before it) whose wall follows 0.35·(1 − exp(−t/1200 s)):
+        // it moves 0.14 over the plateau, within the tolerance 0.2, while |slope|·τ at its end reads 0.21. Less than
+        // one time constant is in view, so the curve cannot be told from a drift (on a settled plateau of
+        // autocorrelated noise the fit finds such curves): the drift rule decides, and the plateau is settled from
+        // its start. Before, the fit's 0.21 > 0.2 rejected a plateau that never left its tolerance band.
+        var n = 600;
+        var t = Enumerable.Range(0, n).Select(i => i + 0.5).ToArray();
+        var noise = SteadyTestData.Ar1(n, 0.7, 0.005, 31);
+        var wall = t.Select((x, i) => 60.0 + (0.35 * (1 - Math.Exp(-x / 1200.0))) + noise[i]).ToArray();
+        var flow = SteadyTestData.Ar1(n, 0.7, 0.002, 32).Select(v => 1.0 + v).ToArray();
+        var channels = new[]
+        {
+            new KeyChannel("flow", flow, double.PositiveInfinity, double.PositiveInfinity, double.Epsilon) { Tolerance = _ => 0.01 },
+            new KeyChannel("wall", wall, double.PositiveInfinity, double.PositiveInfinity, double.Epsilon) { Tolerance = _ => 0.2, MarksSteps = false },
+        };
+
+        var result = PlateauDetector.Detect(t, channels, Settings);
+
+        var window = Assert.Single(result.Accepted);
+        Assert.Equal(0.0, window.StartS, 6);
+    }
 }
