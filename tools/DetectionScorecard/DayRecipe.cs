@@ -12,7 +12,8 @@ public sealed record PlantedGap(double StartS, double DurationS, string? Column)
 /// outlet time constants 3–10 min, inlet about 1 min, pressures seconds; AR(1) noise with lag-1 correlation
 /// 0.5–0.95 per sample; spikes on 0.01–0.1 % of samples, 1–3 samples long, 25–1000 σ; gaps of 1–5 s in one
 /// channel and in all channels inside steady periods; 10 Hz to 1 kHz with mains hum at the higher rates; a slow
-/// zero drift on one pressure transducer.
+/// zero drift on one pressure transducer. The responses are first-order lags, two lags in series, or a lag with a
+/// slow creep, and the flow may overshoot (<see cref="DayShapes"/>).
 /// </summary>
 public sealed record DayRecipe(
     int Seed,
@@ -32,6 +33,9 @@ public sealed record DayRecipe(
     double PressureZeroDriftPaPerH,
     IReadOnlyList<PlantedGap> Gaps)
 {
+    /// <summary>The response shapes of the day (<see cref="DayShapes"/>); first-order lags unless drawn.</summary>
+    public DayShapes Shapes { get; init; } = DayShapes.FirstOrder;
+
     /// <summary>The rates a day may have; the high ones are few and short so the scorecard runs in minutes.</summary>
     private static readonly double[] Rates = [10, 10, 10, 10, 10, 10, 20, 20, 50, 50, 100, 200, 500, 1000];
 
@@ -74,7 +78,8 @@ public sealed record DayRecipe(
         var points = new List<PlannedPoint>();
         var recipe = new DayRecipe(seed, rate, 0, startsSettled, points, Uniform(random, 5, 20), Uniform(random, 45, 75), outletTau, walls,
             Uniform(random, -0.2, 0.2), Uniform(random, 0.5, 0.95), Uniform(random, 1e-4, 1e-3), fast ? Uniform(random, 1, 5) : 0.0,
-            random.NextDouble() < 0.5 ? "PT_IN_V" : "PT_OUT_V", Uniform(random, -3, 3), []);
+            random.NextDouble() < 0.5 ? "PT_IN_V" : "PT_OUT_V", Uniform(random, -3, 3), [])
+        { Shapes = DayShapes.Draw(seed) };
 
         // Place each step after the previous point has settled and stayed steady for a while (10–25 min; 8–10 min on
         // the fast days). The settling time comes from the noise-free model itself.

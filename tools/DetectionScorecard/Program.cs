@@ -66,7 +66,7 @@ internal static class Program
     private static string Shorten(string text) => text.Length > 200 ? text[..200] + "…" : text;
 
     private static string DayLine(DayScore s, DayTruth truth) => string.Create(CultureInfo.InvariantCulture,
-        $"seed {s.Seed,3} {s.RateHz,5} Hz: {s.Found.Count}/{s.Points} found, {s.Extra} extra, transient {s.MaxTransientS:F0} s, delays [{string.Join(" ", s.Found.Select(f => f.StartDelayS.ToString("F0", CultureInfo.InvariantCulture)))}] s, used [{string.Join(" ", s.Found.Select(f => f.FractionUsed.ToString("F2", CultureInfo.InvariantCulture)))}], steady [{string.Join(" ", truth.Windows.Select(w => w.SteadyS.ToString("F0", CultureInfo.InvariantCulture)))}] s{(s.Refusal is null ? "" : " REFUSED " + s.Refusal)}");
+        $"seed {s.Seed,3} {s.RateHz,5} Hz ({DayRecipe.Draw(s.Seed).Shapes.Describe()}): {s.Found.Count}/{s.Points} found, {s.Extra} extra, transient {s.MaxTransientS:F0} s, delays [{string.Join(" ", s.Found.Select(f => f.StartDelayS.ToString("F0", CultureInfo.InvariantCulture)))}] s, used [{string.Join(" ", s.Found.Select(f => f.FractionUsed.ToString("F2", CultureInfo.InvariantCulture)))}], steady [{string.Join(" ", truth.Windows.Select(w => w.SteadyS.ToString("F0", CultureInfo.InvariantCulture)))}] s{(s.Refusal is null ? "" : " REFUSED " + s.Refusal)}");
 
     private static string Card(List<DayScore> scores, string steady)
     {

@@ -3,9 +3,10 @@ using BcPrep.Tools.SampleDay;
 namespace BcPrep.Tools.Scorecard;
 
 /// <summary>
-/// The noise-free state of a generated day: every quantity is a first-order lag toward the target of the point in
-/// force, so within a point x(t) = T + (x(S) − T)·exp(−(t − S)/τ), exact at any sample rate. Temperatures are
-/// ambient plus a rise; ambient drifts linearly.
+/// The noise-free state of a generated day: every quantity follows its <see cref="Response"/> toward the target of
+/// the point in force (a first-order lag, x(t) = T + (x(S) − T)·exp(−(t − S)/τ), or the day's other shape for the
+/// outlet, the walls and the flow, <see cref="DayShapes"/>), exact at any sample rate. Temperatures are ambient plus a
+/// rise; ambient drifts linearly.
 /// </summary>
 public sealed class Trajectory
 {
@@ -17,22 +18,25 @@ public sealed class Trajectory
     private const int Walls = 4;
     private const int Count = 4 + Walls;
     private readonly DayRecipe _recipe;
-    private readonly double[] _tau;
+    private readonly Response[] _responses;
     private readonly double[][] _targets;
-    private readonly double[][] _startStates;
+    private readonly (double A, double B)[][] _startStates;
 
     public Trajectory(DayRecipe recipe)
     {
         ArgumentNullException.ThrowIfNull(recipe);
         _recipe = recipe;
-        _tau = [recipe.FlowTauS, 2.0, recipe.InletTauS, recipe.OutletTauS, .. recipe.WallTauS];
+        var shapes = recipe.Shapes;
+        _responses = [shapes.FlowResponse(recipe.FlowTauS), new FirstOrder(2.0), new FirstOrder(recipe.InletTauS), shapes.ThermalResponse(recipe.OutletTauS),
+            .. recipe.WallTauS.Select(shapes.ThermalResponse)];
         _targets = recipe.Points.Select(Targets).ToArray();
-        _startStates = new double[recipe.Points.Count][];
+        _startStates = new (double A, double B)[recipe.Points.Count][];
         for (var k = 0; k < recipe.Points.Count; k++)
         {
             if (k == 0)
             {
-                _startStates[0] = recipe.StartsSettled && recipe.Points[0].StartS == 0 ? (double[])_targets[0].Clone() : new double[Count];
+                var settled = recipe.StartsSettled && recipe.Points[0].StartS == 0;
+                _startStates[0] = [.. _responses.Select((r, q) => r.Rest(settled ? _targets[0][q] : 0.0))];
                 continue;
             }
             var span = recipe.Points[k].StartS - recipe.Points[k - 1].StartS;
@@ -48,14 +52,15 @@ public sealed class Trajectory
         {
             k--;
         }
-        var x = k < 0 ? new double[Count] : Advance(_startStates[k], _targets[k], timeS - _recipe.Points[k].StartS);
+        var x = k < 0 ? new double[Count] : Values(Advance(_startStates[k], _targets[k], timeS - _recipe.Points[k].StartS));
         var ambient = AmbientK + (_recipe.AmbientDriftKPerH * timeS / 3600.0);
         return new State(x[0], x[1], ambient + x[2], ambient + x[3], [.. x.Skip(4).Select(r => ambient + r)]);
     }
 
     /// <summary>
-    /// Seconds after point <paramref name="index"/>'s step until the flow, the outlet and every wall are within their
-    /// tolerance (<see cref="DayTruth"/>) of the point's targets: τ·ln(|departure| / tolerance), the largest.
+    /// Seconds after point <paramref name="index"/>'s step until the flow, the outlet and every wall stay within their
+    /// tolerance (<see cref="DayTruth"/>) of the point's targets: the last time, on a 1 s grid up to 15 of the
+    /// slowest time constants, that a key quantity is outside it (an overshoot may leave and re-enter the band).
     /// </summary>
     public static double SettlingSpanS(DayRecipe recipe, int index)
     {
@@ -66,11 +71,16 @@ public sealed class Trajectory
         var span = 0.0;
         foreach (var q in KeyQuantities)
         {
+            var response = trajectory._responses[q];
             var tolerance = q == 0 ? DayTruth.FlowToleranceKgS(target[0]) : DayTruth.TemperatureToleranceK(AmbientK + target[q]);
-            var departure = Math.Abs(start[q] - target[q]);
-            if (departure > tolerance)
+            var horizon = Math.Ceiling(15 * response.SlowestTauS);
+            for (var t = horizon; t >= 0; t--)
             {
-                span = Math.Max(span, trajectory._tau[q] * Math.Log(departure / tolerance));
+                if (Math.Abs(response.Value(response.Advance(start[q], target[q], t)) - target[q]) > tolerance)
+                {
+                    span = Math.Max(span, t + 1);
+                    break;
+                }
             }
         }
         return span;
@@ -79,15 +89,17 @@ public sealed class Trajectory
     /// <summary>The key quantities of the truth: mass flow, outlet bulk temperature and every wall thermocouple.</summary>
     private static readonly int[] KeyQuantities = [0, 3, 4, 5, 6, 7];
 
-    private double[] Advance(double[] from, double[] target, double spanS)
+    private (double A, double B)[] Advance((double A, double B)[] from, double[] target, double spanS)
     {
-        var x = new double[Count];
+        var x = new (double A, double B)[Count];
         for (var q = 0; q < Count; q++)
         {
-            x[q] = target[q] + ((from[q] - target[q]) * Math.Exp(-spanS / _tau[q]));
+            x[q] = _responses[q].Advance(from[q], target[q], spanS);
         }
         return x;
     }
+
+    private double[] Values((double A, double B)[] state) => [.. state.Select((s, q) => _responses[q].Value(s))];
 
     private static double[] Targets(PlannedPoint point)
     {

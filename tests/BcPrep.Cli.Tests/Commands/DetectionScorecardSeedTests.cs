@@ -12,10 +12,10 @@ namespace BcPrep.Tests.Cli.Commands;
 public class DetectionScorecardSeedTests
 {
     [Theory]
-    [InlineData(1)] // 10 Hz, 2 points, a 2.3 s gap in the barometer inside a window (the baseline refused this day)
-    [InlineData(3)] // 10 Hz, 4 points, a 3.8 s wall-thermocouple gap inside a window
-    [InlineData(5)] // 10 Hz, 2 points, a day that starts already running
-    [InlineData(9)] // 10 Hz, 3 points
+    [InlineData(1)] // 10 Hz, 2 points, a 2.3 s gap in the barometer inside a window (the baseline refused this day); walls with a slow creep, flow overshoot
+    [InlineData(3)] // 10 Hz, 4 points, a 3.8 s wall-thermocouple gap inside a window; first-order lags
+    [InlineData(5)] // 10 Hz, 2 points, a day that starts already running; flow overshoot
+    [InlineData(9)] // 10 Hz, 3 points; walls behind two lags in series
     public void Default_detection_finds_every_point_with_no_extra_window_and_no_transient(int seed)
     {
         using var temp = new TempFolder();
