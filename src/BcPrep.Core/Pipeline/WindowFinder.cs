@@ -2,6 +2,7 @@ using System.Globalization;
 using BcPrep.Reading;
 using BcPrep.Rig;
 using BcPrep.Steady;
+using BcPrep.Values;
 
 namespace BcPrep.Pipeline;
 
@@ -9,7 +10,7 @@ namespace BcPrep.Pipeline;
 /// The steady-window detection of a test day: block means of every channel, and the detector's accepted windows and
 /// rejected stretches. All detection times are seconds since the first sample of the day.
 /// </summary>
-public sealed record DayWindows(double DayStartS, BlockSeries Blocks, SteadyDetectionResult Detection);
+public sealed record DayWindows(DayStart Start, BlockSeries Blocks, SteadyDetectionResult Detection);
 
 /// <summary>
 /// Finds the operating-point windows of a day from the <c>[steady]</c> settings of the rig file: one streaming
@@ -35,7 +36,7 @@ public static class WindowFinder
         DayScan.Run(rig, plan, converters, [], feed.BlockSink);
         feed.Complete();
         var series = Series(rig, feed.Blocks);
-        return new DayWindows(plan.DayStartS, series, Detect(rig, series, plan.DayStartS));
+        return new DayWindows(plan.Start, series, Detect(rig, series, plan.DayStartS));
     }
 
     /// <summary>Block means of every rig channel on the common block grid (NaN where a block has no sample).</summary>

@@ -36,7 +36,7 @@ public static class BoundaryTables
             var row = new List<object?>
             {
                 point.Id, point.Origin == WindowOrigin.RigFile ? "rig file" : "detected",
-                point.Window.StartS - day.DayStartS, point.Window.EndS - day.DayStartS, point.Window.DurationS,
+                day.Start.Since(point.Window.Start).Value, day.Start.Since(point.Window.End).Value, point.Window.DurationS,
             };
             foreach (var quantity in SummaryQuantities)
             {
