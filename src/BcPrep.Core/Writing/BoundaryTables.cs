@@ -23,10 +23,23 @@ public static class BoundaryTables
         }.Select(o => o.Name),
     ];
 
+    /// <summary>Quantities that join the summary, after the outlet temperature, only when a point of the day has them (a rake's mixing-cup temperatures).</summary>
+    public static readonly string[] OptionalSummaryQuantities = [PointOutputs.InletMixingCupTemperature.Name, PointOutputs.OutletMixingCupTemperature.Name];
+
+    /// <summary>The summary's quantities for this day: <see cref="SummaryQuantities"/>, with the optional ones some point defines.</summary>
+    public static IReadOnlyList<string> SummaryQuantitiesOf(DayResult day)
+    {
+        var names = SummaryQuantities.ToList();
+        var present = OptionalSummaryQuantities.Where(q => day.Points.Any(p => p.Output(q) is not null)).ToList();
+        names.InsertRange(names.IndexOf(PointOutputs.OutletTemperature.Name) + 1, present);
+        return names;
+    }
+
     public static CsvTable Summary(DayResult day)
     {
         var header = new List<string> { "point", "origin", "start [s]", "end [s]", "duration [s]" };
-        foreach (var name in SummaryQuantities)
+        var quantities = SummaryQuantitiesOf(day);
+        foreach (var name in quantities)
         {
             var unit = UnitOf(day, name);
             header.AddRange([$"{name} [{unit}]", $"u({name}) [{unit}]", $"U({name}) [{unit}]", $"k({name})"]);
@@ -41,7 +54,7 @@ public static class BoundaryTables
                 point.Id, point.Origin == WindowOrigin.RigFile ? "rig file" : "detected",
                 point.Window.StartS - day.DayStartS, point.Window.EndS - day.DayStartS, point.Window.DurationS,
             };
-            foreach (var name in SummaryQuantities)
+            foreach (var name in quantities)
             {
                 var output = point.Output(name);
                 row.AddRange([output?.Estimate ?? double.NaN, output?.StandardUncertainty ?? double.NaN, output?.ExpandedUncertainty ?? double.NaN, output?.CoverageFactor ?? double.NaN]);
@@ -68,7 +81,7 @@ public static class BoundaryTables
                 ? "temperature uniform: the inlet bulk temperature"
                 : "temperature interpolated linearly from the radial rake, nearest rake value held beyond its ends" + (rake.ClampedPointCount > 0 ? $" ({rake.ClampedPointCount} points)" : ""))
             .Comment(InletTurbulence.ConventionDescription)
-            .Comment("u(...) is the standard uncertainty propagated from the measurements; the profile shape model and the turbulence correlations carry no model-form uncertainty here");
+            .Comment("u(...) is the standard uncertainty propagated from the measurements and the model-form terms of the budget: the power-law exponent (when the power law is used), the turbulence-intensity correlation (when no intensity is given) and the property models");
         var k = point.Output(PointOutputs.TurbulentKineticEnergy);
         var eps = point.Output(PointOutputs.DissipationRate);
         var omega = point.Output(PointOutputs.SpecificDissipationRate);
@@ -85,7 +98,41 @@ public static class BoundaryTables
     }
 
     public static CsvTable OutletPlane(PointResult point) =>
-        Scalars(point, [PointOutputs.OutletStaticPressure.Name, PointOutputs.OutletTemperature.Name], $"BcPrep outlet plane; point {point.Id}; absolute static pressure");
+        Scalars(point, [PointOutputs.OutletStaticPressure.Name, PointOutputs.OutletTemperature.Name, PointOutputs.OutletMixingCupTemperature.Name],
+            $"BcPrep outlet plane; point {point.Id}; absolute static pressure" + (point.Output(PointOutputs.OutletMixingCupTemperature) is null ? ""
+                : point.Model.HasPlainOutletTemperature ? "; outlet.temperature from the outlet channel, the rake's mixing-cup temperature beside it"
+                : "; outlet.temperature is the rake's mixing-cup temperature"));
+
+    /// <summary>
+    /// The temperature rakes of planes other than the inlet (the inlet's is in the inlet profile): per plane and radius
+    /// the temperature with its uncertainty and the mass flux ρu that weights it; null when the point has none.
+    /// </summary>
+    public static CsvTable? Rakes(PointResult point)
+    {
+        if (point.Model.RakePlanes.Count == 0)
+        {
+            return null;
+        }
+        var table = new CsvTable(["plane", "r [m]", "temperature [K]", "u(temperature) [K]", "U(temperature) [K]", "mass_flux [kg/(m2 s)]"])
+            .Comment($"BcPrep temperature rakes; point {point.Id}; temperature interpolated linearly between the rake sensors, nearest value held beyond the rake's ends")
+            .Comment("mass_flux = rho u of the velocity model at the plane's Reynolds number (viscosity at the rake's area mean), scaled to the measured mass flow; mixing-cup temperature = integral of rho u cp T dA over integral of rho u cp dA (trapezoid rule on this grid)");
+        foreach (var rake in point.Nominal.Rakes.Where(r => point.Model.RakePlanes.Contains(r.Plane)))
+        {
+            var cup = point.Output(PointOutputs.MixingCupTemperature(rake.Plane));
+            var exponent = double.IsNaN(rake.Velocity.PowerLawExponent) ? "" : string.Create(CultureInfo.InvariantCulture, $", n = {rake.Velocity.PowerLawExponent:R}");
+            var clamped = rake.Temperature.ClampedPointCount > 0 ? $"; {rake.Temperature.ClampedPointCount} points hold the nearest rake value" : "";
+            table.Comment(string.Create(CultureInfo.InvariantCulture,
+                $"{rake.Plane}: mixing-cup temperature {cup?.Estimate ?? rake.MixingCupK:R} K, u {cup?.StandardUncertainty ?? double.NaN:R} K, U {cup?.ExpandedUncertainty ?? double.NaN:R} K; area mean {rake.AreaMeanK:R} K; velocity model {ChoiceSpelling.Name(rake.Velocity.ModelUsed)}{exponent}{clamped}"));
+            var radii = rake.Temperature.Profile.RadiusM;
+            for (var i = 0; i < radii.Length; i++)
+            {
+                var t = point.Output(ProfileOutputs.PlaneTemperature(rake.Plane, i));
+                table.Add(rake.Plane, radii[i], t?.Estimate ?? rake.Temperature.Profile.Values[i], t?.StandardUncertainty ?? double.NaN, t?.ExpandedUncertainty ?? double.NaN,
+                    rake.MassFluxKgPerM2S.Values[i]);
+            }
+        }
+        return table;
+    }
 
     public static CsvTable Wall(PointResult point, DayResult day)
     {
