@@ -12,36 +12,33 @@ namespace BcPrep.Writing;
 /// </summary>
 public static class BoundaryTables
 {
-    /// <summary>Quantities repeated in the summary, in this order.</summary>
-    public static readonly string[] SummaryQuantities =
+    /// <summary>Quantities repeated in the summary, in this order: entries of the one quantity table, which gives each its name and unit.</summary>
+    public static readonly IReadOnlyList<ScalarOutput> SummaryQuantities =
     [
-        .. new[]
-        {
-            PointOutputs.MassFlow, PointOutputs.InletBulkVelocity, PointOutputs.Reynolds, PointOutputs.InletTemperature, PointOutputs.OutletTemperature,
-            PointOutputs.InletStaticPressure, PointOutputs.OutletStaticPressure, PointOutputs.HeaterPower, PointOutputs.WallHeatFlux,
-            PointOutputs.EnergyBalanceMismatch,
-        }.Select(o => o.Name),
+        PointOutputs.MassFlow, PointOutputs.InletBulkVelocity, PointOutputs.Reynolds, PointOutputs.InletTemperature, PointOutputs.OutletTemperature,
+        PointOutputs.InletStaticPressure, PointOutputs.OutletStaticPressure, PointOutputs.HeaterPower, PointOutputs.WallHeatFlux,
+        PointOutputs.EnergyBalanceMismatch,
     ];
 
     /// <summary>Quantities that join the summary, after the outlet temperature, only when a point of the day has them (a rake's mixing-cup temperatures).</summary>
-    public static readonly string[] OptionalSummaryQuantities = [PointOutputs.InletMixingCupTemperature.Name, PointOutputs.OutletMixingCupTemperature.Name];
+    public static readonly IReadOnlyList<ScalarOutput> OptionalSummaryQuantities = [PointOutputs.InletMixingCupTemperature, PointOutputs.OutletMixingCupTemperature];
 
     /// <summary>The summary's quantities for this day: <see cref="SummaryQuantities"/>, with the optional ones some point defines.</summary>
-    public static IReadOnlyList<string> SummaryQuantitiesOf(DayResult day)
+    public static IReadOnlyList<ScalarOutput> SummaryQuantitiesOf(DayResult day)
     {
-        var names = SummaryQuantities.ToList();
+        var quantities = SummaryQuantities.ToList();
         var present = OptionalSummaryQuantities.Where(q => day.Points.Any(p => p.Output(q) is not null)).ToList();
-        names.InsertRange(names.IndexOf(PointOutputs.OutletTemperature.Name) + 1, present);
-        return names;
+        quantities.InsertRange(quantities.IndexOf(PointOutputs.OutletTemperature) + 1, present);
+        return quantities;
     }
 
     public static CsvTable Summary(DayResult day)
     {
         var header = new List<string> { "point", "origin", "start [s]", "end [s]", "duration [s]" };
         var quantities = SummaryQuantitiesOf(day);
-        foreach (var name in quantities)
+        foreach (var quantity in quantities)
         {
-            var unit = UnitOf(day, name);
+            var (name, unit) = (quantity.Name, quantity.Unit);
             header.AddRange([$"{name} [{unit}]", $"u({name}) [{unit}]", $"U({name}) [{unit}]", $"k({name})"]);
         }
         header.AddRange(["checks", "warnings", "conditioning"]);
@@ -54,9 +51,9 @@ public static class BoundaryTables
                 point.Id, point.Origin == WindowOrigin.RigFile ? "rig file" : "detected",
                 point.Window.StartS - day.DayStartS, point.Window.EndS - day.DayStartS, point.Window.DurationS,
             };
-            foreach (var name in quantities)
+            foreach (var quantity in quantities)
             {
-                var output = point.Output(name);
+                var output = point.Output(quantity);
                 row.AddRange([output?.Estimate ?? double.NaN, output?.StandardUncertainty ?? double.NaN, output?.ExpandedUncertainty ?? double.NaN, output?.CoverageFactor ?? double.NaN]);
             }
             row.Add(string.Join("; ", point.Checks.Select(c => $"{c.Name}: {(c.Passed ? "pass" : "warn")}")));
@@ -98,7 +95,7 @@ public static class BoundaryTables
     }
 
     public static CsvTable OutletPlane(PointResult point) =>
-        Scalars(point, [PointOutputs.OutletStaticPressure.Name, PointOutputs.OutletTemperature.Name, PointOutputs.OutletMixingCupTemperature.Name],
+        Scalars(point, [PointOutputs.OutletStaticPressure, PointOutputs.OutletTemperature, PointOutputs.OutletMixingCupTemperature],
             $"BcPrep outlet plane; point {point.Id}; absolute static pressure" + (point.Output(PointOutputs.OutletMixingCupTemperature) is null ? ""
                 : point.Model.HasPlainOutletTemperature ? "; outlet.temperature from the outlet channel, the rake's mixing-cup temperature beside it"
                 : "; outlet.temperature is the rake's mixing-cup temperature"));
@@ -148,7 +145,7 @@ public static class BoundaryTables
         }
         for (var i = 0; i < point.Model.WallGridM.Length; i++)
         {
-            var t = point.Output($"{ProfileOutputs.WallGridPrefix}{i}");
+            var t = point.Output(ProfileOutputs.WallGrid(i));
             table.Add(point.Model.WallGridM[i], "interpolated", t?.Estimate ?? double.NaN, t?.StandardUncertainty ?? double.NaN, t?.ExpandedUncertainty ?? double.NaN,
                 flux?.Estimate ?? double.NaN, flux?.StandardUncertainty ?? double.NaN);
         }
@@ -156,14 +153,14 @@ public static class BoundaryTables
     }
 
     /// <summary>Every scalar output of a point (profile points excluded) with value and uncertainty.</summary>
-    public static CsvTable Scalars(PointResult point, IReadOnlyCollection<string>? only = null, string? comment = null)
+    public static CsvTable Scalars(PointResult point, IReadOnlyCollection<ScalarOutput>? only = null, string? comment = null)
     {
         var table = new CsvTable(["quantity", "unit", "value", "standard_uncertainty", "expanded_uncertainty", "coverage_factor", "degrees_of_freedom", "description"])
             .Comment(comment ?? $"BcPrep scalars; point {point.Id}");
         for (var i = 0; i < point.Model.Outputs.Count; i++)
         {
             var definition = point.Model.Outputs[i];
-            if (ProfileOutputs.IsProfilePoint(definition.Name) || (only is not null && !only.Contains(definition.Name)))
+            if (definition.Kind == QuantityKind.ProfilePoint || (only is not null && !only.Any(o => o.Name == definition.Name)))
             {
                 continue;
             }
@@ -184,7 +181,7 @@ public static class BoundaryTables
         for (var i = 0; i < point.Model.Outputs.Count; i++)
         {
             var definition = point.Model.Outputs[i];
-            if ((!includeProfile && ProfileOutputs.IsProfilePoint(definition.Name)) || (quantity is not null && !quantity(definition.Name)))
+            if ((!includeProfile && definition.Kind == QuantityKind.ProfilePoint) || (quantity is not null && !quantity(definition.Name)))
             {
                 continue;
             }
@@ -196,9 +193,6 @@ public static class BoundaryTables
         }
         return table;
     }
-
-    private static string UnitOf(DayResult day, string name) =>
-        day.Points.SelectMany(p => p.Model.Outputs).FirstOrDefault(o => o.Name == name)?.Unit ?? "";
 
     private static double Dof(double nu) => double.IsPositiveInfinity(nu) ? double.NaN : nu;
 }
