@@ -62,7 +62,7 @@ public sealed record CalibrationErrors(
     private static double Symmetric(Random random, double halfWidth) => halfWidth * ((2.0 * random.NextDouble()) - 1.0);
 
     /// <summary>Standard normal by Box–Muller (two uniforms, one normal kept).</summary>
-    internal static double Gaussian(Random random)
+    public static double Gaussian(Random random)
     {
         var u1 = 1.0 - random.NextDouble();
         var u2 = random.NextDouble();
