@@ -10,8 +10,8 @@ namespace BcPrep.Tools.Scorecard.Coverage;
 /// (<see cref="CalibrationErrors"/>) are put on the logged signals, the rig file states the drawn diameter and loss
 /// fraction, `process` runs with default detection, and every written value ± U (and every channel's window mean ±
 /// 2u_A) is compared with the generator's truth (<see cref="CoverageTruth"/>).
-/// Usage: DetectionScorecard coverage [--days 50] [--first-seed 1] [--draws 4] [--keep DIR]. The card (Markdown)
-/// goes to standard output, one line per run to standard error.
+/// Usage: DetectionScorecard coverage [--days 50] [--first-seed 1] [--draws 4] [--keep DIR] [--card FILE]. The card (Markdown)
+/// goes to standard output (and after every day to FILE), one line per run to standard error.
 /// </summary>
 public static class CoverageProgram
 {
@@ -30,6 +30,7 @@ public static class CoverageProgram
         var firstSeed = (int)(Option(args, "--first-seed") ?? 1);
         var draws = (int)(Option(args, "--draws") ?? 4);
         var keep = Text(args, "--keep");
+        var interim = Text(args, "--card");
         var root = keep ?? Path.Combine(Path.GetTempPath(), "bcprep-coverage-" + Environment.ProcessId.ToString(CultureInfo.InvariantCulture));
         Directory.CreateDirectory(root);
         var expanded = new CoverageTally();
@@ -90,6 +91,11 @@ public static class CoverageProgram
             if (keep is null)
             {
                 Directory.Delete(dir, recursive: true);
+            }
+            if (interim is not null)
+            {
+                // The card so far, so a long run that is stopped still leaves the days it finished.
+                File.WriteAllText(interim, Card(expanded, typeA, seed - firstSeed + 1, firstSeed, draws, rates, refusals));
             }
         }
         if (keep is null)
