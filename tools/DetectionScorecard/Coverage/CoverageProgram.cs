@@ -10,8 +10,10 @@ namespace BcPrep.Tools.Scorecard.Coverage;
 /// (<see cref="CalibrationErrors"/>) are put on the logged signals, the rig file states the drawn diameter and loss
 /// fraction, `process` runs with default detection, and every written value ± U (and every channel's window mean ±
 /// 2u_A) is compared with the generator's truth (<see cref="CoverageTruth"/>).
-/// Usage: DetectionScorecard coverage [--days 50] [--first-seed 1] [--draws 4] [--keep DIR] [--card FILE]. The card (Markdown)
-/// goes to standard output (and after every day to FILE), one line per run to standard error.
+/// Usage: DetectionScorecard coverage [--days 50] [--first-seed 1] [--draws 4] [--monte-carlo] [--no-drift] [--keep DIR]
+/// [--card FILE]. With --monte-carlo, `process` also propagates by JCGM 101 and its 95 % intervals are scored too;
+/// with --no-drift the days lose the generator's undeclared pressure zero drift.
+/// The card (Markdown) goes to standard output (and after every day to FILE), one line per run to standard error.
 /// </summary>
 public static class CoverageProgram
 {
@@ -31,15 +33,23 @@ public static class CoverageProgram
         var draws = (int)(Option(args, "--draws") ?? 4);
         var keep = Text(args, "--keep");
         var interim = Text(args, "--card");
+        var monteCarlo = args.Contains("--monte-carlo");
+        // Without the generator's undeclared pressure zero drift: how much of a pressure's misses the drift causes.
+        var noDrift = args.Contains("--no-drift");
         var root = keep ?? Path.Combine(Path.GetTempPath(), "bcprep-coverage-" + Environment.ProcessId.ToString(CultureInfo.InvariantCulture));
         Directory.CreateDirectory(root);
         var expanded = new CoverageTally();
         var typeA = new CoverageTally();
+        var jcgm101 = new CoverageTally();
         var refusals = new List<string>();
         var rates = new List<double>();
         for (var seed = firstSeed; seed < firstSeed + days; seed++)
         {
             var recipe = DayRecipe.Draw(seed);
+            if (noDrift)
+            {
+                recipe = recipe with { PressureZeroDriftPaPerH = 0.0 };
+            }
             rates.Add(recipe.RateHz);
             var dir = Path.Combine(root, "day-" + seed.ToString(CultureInfo.InvariantCulture));
             Directory.CreateDirectory(dir);
@@ -56,7 +66,7 @@ public static class CoverageProgram
                 File.WriteAllText(rig, RigTextWith(errors));
                 CalibratedLog.Write(cleanLog, log, errors);
                 var output = Path.Combine(runDir, "out");
-                var refusal = Process(rig, log, output);
+                var refusal = Process(rig, log, output, monteCarlo);
                 if (refusal is not null)
                 {
                     refusals.Add(string.Create(CultureInfo.InvariantCulture, $"seed {seed} draw {draw}: {refusal}"));
@@ -64,6 +74,7 @@ public static class CoverageProgram
                     continue;
                 }
                 var missed = new List<string>();
+                var intervals = MonteCarloInterval.FromManifest(Path.Combine(output, "manifest.json"));
                 foreach (var window in Scoring.FromManifest(Path.Combine(output, "manifest.json")))
                 {
                     var written = WrittenPoint.Read(Path.Combine(output, "points", window.Id));
@@ -80,6 +91,13 @@ public static class CoverageProgram
                     {
                         typeA.Add(trial);
                     }
+                    foreach (var interval in intervals.Where(i => i.Point == window.Id && Quantities.Contains(i.Quantity)))
+                    {
+                        if (truth.Physical.TryGetValue(interval.Quantity, out var t))
+                        {
+                            jcgm101.Add(interval.Against(t));
+                        }
+                    }
                 }
                 Console.Error.WriteLine(string.Create(CultureInfo.InvariantCulture,
                     $"seed {seed,3} draw {draw} {recipe.RateHz,5} Hz: missed {missed.Count}{(missed.Count == 0 ? "" : ": " + string.Join("; ", missed))}"));
@@ -95,14 +113,14 @@ public static class CoverageProgram
             if (interim is not null)
             {
                 // The card so far, so a long run that is stopped still leaves the days it finished.
-                File.WriteAllText(interim, Card(expanded, typeA, seed - firstSeed + 1, firstSeed, draws, rates, refusals));
+                File.WriteAllText(interim, Card(expanded, typeA, jcgm101, seed - firstSeed + 1, firstSeed, draws, rates, refusals));
             }
         }
         if (keep is null)
         {
             Directory.Delete(root, recursive: true);
         }
-        Console.Out.Write(Card(expanded, typeA, days, firstSeed, draws, rates, refusals));
+        Console.Out.Write(Card(expanded, typeA, jcgm101, days, firstSeed, draws, rates, refusals));
         return 0;
     }
 
@@ -150,11 +168,12 @@ public static class CoverageProgram
             .Replace(loss, string.Create(CultureInfo.InvariantCulture, $"heater_loss_fraction = \"{errors.StatedLossFraction * 100.0:F6} %\""), StringComparison.Ordinal);
     }
 
-    private static string? Process(string rig, string log, string output)
+    private static string? Process(string rig, string log, string output, bool monteCarlo)
     {
         var error = new StringWriter();
         var context = new CliContext(new StringWriter(), error, () => Stream.Null, false, Directory.GetCurrentDirectory());
-        var code = BcPrepApp.Run(["process", rig, log, "--out", output, "--quiet"], context);
+        string[] command = ["process", rig, log, "--out", output, "--quiet"];
+        var code = BcPrepApp.Run(monteCarlo ? [.. command, "--monte-carlo"] : command, context);
         if (File.Exists(Path.Combine(output, "manifest.json")))
         {
             return null;
@@ -163,10 +182,11 @@ public static class CoverageProgram
         return string.Create(CultureInfo.InvariantCulture, $"exit {code}: {(first.Length > 200 ? first[..200] + "…" : first)}");
     }
 
-    public static string Card(CoverageTally expanded, CoverageTally typeA, int days, int firstSeed, int draws, IReadOnlyList<double> rates, IReadOnlyList<string> refusals)
+    public static string Card(CoverageTally expanded, CoverageTally typeA, CoverageTally monteCarlo, int days, int firstSeed, int draws, IReadOnlyList<double> rates, IReadOnlyList<string> refusals)
     {
         ArgumentNullException.ThrowIfNull(expanded);
         ArgumentNullException.ThrowIfNull(typeA);
+        ArgumentNullException.ThrowIfNull(monteCarlo);
         ArgumentNullException.ThrowIfNull(rates);
         ArgumentNullException.ThrowIfNull(refusals);
         var c = CultureInfo.InvariantCulture;
@@ -179,6 +199,17 @@ public static class CoverageProgram
         foreach (var q in Quantities.Where(q => expanded.Count(q).Total > 0))
         {
             Row(text, expanded, q, expanded.Count(q), "≥ 90 %", q);
+        }
+        if (monteCarlo.Overall.Total > 0)
+        {
+            text.AppendLine();
+            text.AppendLine("| quantity (JCGM 101 Monte Carlo 95 % interval against the true value) | covered | coverage | mean (v − t)/u | rms (v − t)/u |");
+            text.AppendLine("|---|---|---|---|---|");
+            Row(text, monteCarlo, "**overall**", monteCarlo.Overall, null, null);
+            foreach (var q in Quantities.Where(q => monteCarlo.Count(q).Total > 0))
+            {
+                Row(text, monteCarlo, q, monteCarlo.Count(q), null, q);
+            }
         }
         text.AppendLine();
         text.AppendLine("| channel (window mean ± 2u_A against its noise-free mean) | covered | coverage | mean (v − t)/u_A | rms (v − t)/u_A |");
