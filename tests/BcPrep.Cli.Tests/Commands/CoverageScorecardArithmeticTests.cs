@@ -1,3 +1,4 @@
+using BcPrep.Tests.Cli.Support;
 using BcPrep.Tools.Scorecard;
 using BcPrep.Tools.Scorecard.Coverage;
 
@@ -113,5 +114,42 @@ public class CoverageScorecardArithmeticTests
         Assert.Equal(1.5 + junctionShift, after[RawSignals.FirstThermocouple + 2] - before[RawSignals.FirstThermocouple + 2], 0.01);
         Assert.Equal(-0.75 + junctionShift, after[RawSignals.FirstThermocouple + 5] - before[RawSignals.FirstThermocouple + 5], 0.01);
         Assert.Equal(junctionShift, after[RawSignals.FirstThermocouple] - before[RawSignals.FirstThermocouple], 0.01);
+    }
+
+    [Fact]
+    public void A_points_scalars_and_window_means_are_read_and_scored_against_the_truth()
+    {
+        // The layouts of points/ID/scalars.csv and budget.csv (README "Outputs"); a quoted input name with a comma
+        // must not shift the columns, and each channel's window mean is taken once however many quantities list it.
+        using var temp = new TempFolder();
+        File.WriteAllText(temp.File("scalars.csv"), """
+            # BcPrep scalars; point OP1
+            quantity,unit,value,standard_uncertainty,expanded_uncertainty,coverage_factor,degrees_of_freedom,description
+            mass_flow,kg/s,0.0201,0.0001,0.000196,1.96,100,mass flow through the duct
+            inlet.temperature,K,296.0,0.87,1.7,1.96,1000,"bulk temperature, inlet"
+            inlet.turbulence_intensity,1,0.04,0.01,0.02,1.96,100,turbulence intensity
+            """);
+        File.WriteAllText(temp.File("budget.csv"), """
+            point,quantity,unit,input,type,input_estimate,input_standard_uncertainty,input_degrees_of_freedom,sensitivity,contribution,variance_share,source
+            OP1,mass_flow,kg/s,mdot window mean,A,0.0201,3E-06,16.9,1,3E-06,0.001,"window mean, autocorrelation-corrected (Type A)"
+            OP1,mass_flow,kg/s,"mdot: certificate FM-2291, 95 % limits",B,0,0.0001,,1,0.0001,0.999,certificate
+            OP1,reynolds,1,mdot window mean,A,0.0201,3E-06,16.9,1.3E6,4,0.001,"window mean, autocorrelation-corrected (Type A)"
+            OP1,inlet.temperature,K,t_in window mean,A,295.99,0.004,20,1,0.004,0.001,"window mean, autocorrelation-corrected (Type A)"
+            """);
+        var written = WrittenPoint.Read(temp.Path);
+        var truth = new CoverageTruth(
+            new Dictionary<string, double> { ["mass_flow"] = 0.0200, ["inlet.temperature"] = 297.0 },
+            new Dictionary<string, double> { ["mdot"] = 0.020101, ["t_in"] = 296.0 });
+
+        var trials = CoverageProgram.Trials(written, truth).ToDictionary(t => t.Quantity);
+        var typeA = CoverageProgram.TypeATrials(written, truth).ToDictionary(t => t.Quantity);
+
+        Assert.Equal(["inlet.temperature", "mass_flow"], trials.Keys.Order());
+        Assert.True(trials["mass_flow"].Covered);         // 0.0001 off, U = 0.000196
+        Assert.True(trials["inlet.temperature"].Covered); // 1.0 K off, U = 1.7 K
+        Assert.Equal(["mdot", "t_in"], typeA.Keys.Order());
+        Assert.Equal(2 * 3e-6, typeA["mdot"].HalfWidth, 15);
+        Assert.True(typeA["mdot"].Covered);   // 1e-6 off, 2u_A = 6e-6
+        Assert.False(typeA["t_in"].Covered);  // 0.01 K off, 2u_A = 0.008 K
     }
 }
