@@ -176,7 +176,7 @@ public static class PlateauDetector
         return true;
     }
 
-    private static double StepThreshold(KeyChannel channel, double[] clean, double noise, int half)
+    internal static double StepThreshold(KeyChannel channel, double[] clean, double noise, int half)
     {
         var fromNoise = StepNoiseSigmas * noise * Math.Sqrt(2.0 / half);
         var level = MedianAbs(clean);
