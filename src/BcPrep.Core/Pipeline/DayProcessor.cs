@@ -92,7 +92,7 @@ public static class DayProcessor
         }
         else if (detection is not null)
         {
-            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, plan.DayStartS));
+            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, plan.Start));
         }
 
         var tareStats = TareStats(tareWindows, stats);
