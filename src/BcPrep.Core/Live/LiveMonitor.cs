@@ -2,6 +2,7 @@ using BcPrep.Calibration;
 using BcPrep.Pipeline;
 using BcPrep.Reading;
 using BcPrep.Rig;
+using BcPrep.Steady;
 using BcPrep.Uncertainty;
 
 namespace BcPrep.Live;
@@ -12,14 +13,24 @@ namespace BcPrep.Live;
 /// reports each key channel's approach and, once settled, the hold its target needs. No clock: time is the logs'.
 /// </summary>
 /// <remarks>
-/// A step is a change of more than a key's <c>step</c> between the means of two neighbouring runs of blocks, each
-/// <see cref="StepHalfWindowS"/> long ("common practice", as the detector's step finder). A stretch that was settled
-/// on every key channel for at least <c>min_duration</c> when the step came is a finished point.
+/// A step begins where the day's own step finder (<see cref="StepFinder"/>, with the thresholds of
+/// <see cref="PlateauDetector"/>) puts it, on the same channels (the keys and the heater's step markers): so the
+/// stretches followed live are the plateaus <c>process</c> finds. It runs on the last <see cref="TailHalves"/> half
+/// windows of block means and takes a step once <c>2h</c> blocks of its new level are in (20 s of 1 s blocks); the noise of each channel
+/// is re-estimated every <c>h</c> blocks from at most <see cref="NoiseHalves"/> half windows of the current stretch.
+/// A stretch that was settled on every key channel for at least <c>min_duration</c> when the step came is a
+/// finished point.
 /// </remarks>
 public sealed class LiveMonitor
 {
-    /// <summary>Length of each of the two runs of blocks compared to find a step, s.</summary>
-    public const double StepHalfWindowS = 10.0;
+    /// <summary>Length of each of the two runs of blocks compared to find a step, s (as the day's detection).</summary>
+    public const double StepHalfWindowS = PlateauDetector.StepHalfWindowS;
+
+    /// <summary>Blocks the step finder looks at, in half windows: 3 for the level before a step, 1 after, and room for its run.</summary>
+    public const int TailHalves = 8;
+
+    /// <summary>Most blocks a channel's noise is estimated from, in half windows.</summary>
+    public const int NoiseHalves = 60;
 
     private readonly RigDescription _rig;
     private readonly ISettlingEstimator _estimator;
@@ -35,6 +46,11 @@ public sealed class LiveMonitor
     private readonly double[] _blockSum;
     private readonly int[] _blockCount;
     private readonly int _half;
+    private readonly KeyChannel[] _markers;
+    private readonly int[] _markerTrack;
+    private readonly double[] _noise;
+    private readonly List<double> _steps = [];
+    private int _blocksSinceNoise;
     private double _t0 = double.NaN;
     private long _block = -1;
     private double _stretchStartS;
@@ -49,7 +65,13 @@ public sealed class LiveMonitor
             throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation(rig.SourceFile, null, null, "steady.key"),
                 "following a day needs key channels in [steady] (key = [{ channel = ..., max_change = ..., max_scatter = ... }])");
         }
-        _channels = _keys.Select(k => rig.Channels.Single(c => c.Id == k.Channel)).ToArray();
+        // The channels that mark steps in the day's detection: the keys and the heater's step markers, tracked
+        // after the keys (which alone are reported).
+        _markers = DetectionKeys.For(rig, _ => []).Where(k => k.MarksSteps).ToArray();
+        _channels = _keys.Select(k => k.Channel).Concat(_markers.Select(m => m.Name)).Distinct(StringComparer.Ordinal)
+            .Select(id => rig.Channels.Single(c => c.Id == id)).ToArray();
+        _markerTrack = _markers.Select(m => Array.FindIndex(_channels, c => c.Id == m.Name)).ToArray();
+        _noise = new double[_markers.Length];
         var columns = new List<string>();
         int ColumnOf(ChannelSpec c)
         {
@@ -92,6 +114,9 @@ public sealed class LiveMonitor
         _blockCount = new int[_channels.Length];
         _half = Math.Max(3, (int)Math.Round(StepHalfWindowS / rig.Steady.BlockS));
     }
+
+    /// <summary>Every step found so far, s since the day's first row.</summary>
+    public IReadOnlyList<double> StepsS => _steps;
 
     /// <summary>Time of the last row read, s since the day's first row (NaN before any).</summary>
     public double NowS { get; private set; } = double.NaN;
@@ -170,22 +195,13 @@ public sealed class LiveMonitor
             _blockSum[i] = 0;
             _blockCount[i] = 0;
         }
-        var n = _tracks[0].Count;
-        if (n < 2 * _half)
+        var onset = StepOnset();
+        if (onset < 0)
         {
             return null;
         }
-        var stepped = false;
-        for (var i = 0; i < _channels.Length; i++)
-        {
-            var change = Math.Abs(_tracks[i].MeanOf(n - _half, n) - _tracks[i].MeanOf(n - (2 * _half), n - _half));
-            stepped |= change > _keys[i].StepSi;
-        }
-        if (!stepped)
-        {
-            return null;
-        }
-        var stepS = _tracks[0].Times[n - _half] - (0.5 * _rig.Steady.BlockS);
+        var stepS = _tracks[0].Times[onset] - (0.5 * _rig.Steady.BlockS);
+        _steps.Add(stepS);
         var before = Report(stepS);
         FinishedStretch? finished = null;
         if (before.Settled && stepS - before.SettledFromS >= _rig.Steady.MinDurationS)
@@ -197,14 +213,56 @@ public sealed class LiveMonitor
             track.DropBefore(stepS);
         }
         _stretchStartS = stepS;
+        _blocksSinceNoise = 0;
         return finished;
+    }
+
+    /// <summary>
+    /// The block (index into the tracks) where a step begins that has <c>2h</c> blocks of its new level in, found by the
+    /// day's step finder on the recent blocks; −1 when none.
+    /// </summary>
+    private int StepOnset()
+    {
+        var n = _tracks[0].Count;
+        if (n < 4 * _half)
+        {
+            return -1;
+        }
+        if (_blocksSinceNoise++ % _half == 0)
+        {
+            for (var m = 0; m < _markers.Length; m++)
+            {
+                var track = _tracks[_markerTrack[m]];
+                var from = Math.Max(0, track.Count - (NoiseHalves * _half));
+                _noise[m] = StepFinder.Noise(BlockDespike.Apply(track.Values[from..].ToArray()));
+            }
+        }
+        var length = Math.Min(n, TailHalves * _half);
+        var series = new double[_markers.Length][];
+        var thresholds = new double[_markers.Length];
+        for (var m = 0; m < _markers.Length; m++)
+        {
+            var track = _tracks[_markerTrack[m]];
+            series[m] = BlockDespike.Apply(track.Values[(n - length)..].ToArray());
+            thresholds[m] = PlateauDetector.StepThreshold(_markers[m], PlateauDetector.MedianAbs(series[m]), _noise[m], _half);
+        }
+        foreach (var k in StepFinder.Find(series, thresholds, _noise, _half))
+        {
+            // Two half windows of the new level: the finder's peak (and so its onset) is final by then; with only one,
+            // a large step's run may have crossed the threshold blocks before the step and not yet reached its peak.
+            if (k >= 3 * _half && length - k >= 2 * _half)
+            {
+                return n - length + k;
+            }
+        }
+        return -1;
     }
 
     /// <summary>The current stretch as of <paramref name="nowS"/> (s since the day's first row), from the closed blocks.</summary>
     public StretchReport Report(double nowS)
     {
         var channels = new List<ChannelReport>();
-        for (var i = 0; i < _channels.Length; i++)
+        for (var i = 0; i < _keys.Length; i++)
         {
             channels.Add(ReportChannel(i, nowS));
         }
