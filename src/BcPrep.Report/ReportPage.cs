@@ -11,9 +11,12 @@ namespace BcPrep.Report;
 /// </summary>
 public static class ReportPage
 {
-    /// <summary>Quantities in the points table, with their unit for a person.</summary>
-    private static readonly string[] SummaryQuantities =
-        ["mass_flow", "inlet.bulk_velocity", "reynolds", "inlet.temperature", "outlet.temperature", "outlet.static_pressure", "heater_power", "wall.heat_flux"];
+    /// <summary>Quantities in the points table: entries of the one quantity table, which gives each its name and unit.</summary>
+    public static readonly IReadOnlyList<ScalarOutput> SummaryQuantities =
+    [
+        PointOutputs.MassFlow, PointOutputs.InletBulkVelocity, PointOutputs.Reynolds, PointOutputs.InletTemperature, PointOutputs.OutletTemperature,
+        PointOutputs.OutletStaticPressure, PointOutputs.HeaterPower, PointOutputs.WallHeatFlux,
+    ];
 
     /// <summary>
     /// The page. <paramref name="dayFigures"/> and <paramref name="pointFigures"/> (by point id) carry paths relative
@@ -66,7 +69,7 @@ public static class ReportPage
     {
         var present = SummaryQuantities.Where(q => day.Points.Any(p => p.Output(q) is not null)).ToList();
         var header = new List<string> { "point", "window [min]", "origin" };
-        header.AddRange(present.Select(q => $"{q} [{UnitOf(day, q)}]"));
+        header.AddRange(present.Select(q => $"{q.Name} [{q.Unit}]"));
         header.Add("checks");
         var rows = day.Points.Select(p =>
         {
@@ -136,9 +139,6 @@ public static class ReportPage
     private static string Minutes(double seconds) => (seconds / 60.0).ToString("0.0", CultureInfo.InvariantCulture);
 
     private static string Count(int n) => n.ToString(CultureInfo.InvariantCulture);
-
-    private static string UnitOf(DayResult day, string name) =>
-        day.Points.SelectMany(p => p.Model.Outputs).FirstOrDefault(o => o.Name == name)?.Unit ?? "";
 
     // Our own look: black on white, one grey for rules; readable printed in greyscale. No web fonts, no network.
     private const string Style = """

@@ -80,7 +80,12 @@ public sealed partial class PointModel
         x[_diameter], Math.Max(0.0, x[_loss]), x[_viscosityFactor], x[_cpFactor]), x);
 
     /// <summary>The model function: inputs → every output of <see cref="Outputs"/>, in that order.</summary>
-    public double[] Evaluate(double[] x) => Flatten(MeasurementsAt(x), PointPhysics.Evaluate(MeasurementsAt(x), _settings), includeAll: false);
+    public double[] Evaluate(double[] x)
+    {
+        // Once per call: the Jacobian and Monte Carlo call this thousands of times per point.
+        var measurements = MeasurementsAt(x);
+        return Flatten(measurements, PointPhysics.Evaluate(measurements, _settings), includeAll: false);
+    }
 
     public PointQuantities Physics(double[] x) => PointPhysics.Evaluate(MeasurementsAt(x), _settings);
 
@@ -327,11 +332,12 @@ public sealed partial class PointModel
     private void DefineOutputs()
     {
         var x = Estimates();
-        var nominal = PointPhysics.Evaluate(MeasurementsAt(x), _settings);
+        var measurements = MeasurementsAt(x);
+        var nominal = PointPhysics.Evaluate(measurements, _settings);
         ProfileRadiiM = nominal.Velocity.Profile.RadiusM;
         _runs = Runs(nominal.Velocity.Profile.RadiusM.Length, nominal.TemperatureProfile is null ? 0 : nominal.Velocity.Profile.RadiusM.Length);
         var all = _runs.SelectMany(r => r.Definitions).ToList();
-        var values = Flatten(MeasurementsAt(x), nominal, includeAll: true);
+        var values = Flatten(measurements, nominal, includeAll: true);
         _included = all.Select((d, i) => double.IsFinite(values[i])).ToArray();
         Outputs = all.Where((d, i) => _included[i]).ToList();
     }

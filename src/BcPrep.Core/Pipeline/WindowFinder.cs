@@ -13,7 +13,7 @@ public sealed record DayWindows(double DayStartS, BlockSeries Blocks, SteadyDete
 
 /// <summary>
 /// Finds the operating-point windows of a day from the <c>[steady]</c> settings of the rig file: one streaming
-/// block-mean pass, then <see cref="SteadyStateDetector"/> on the key channels. The same functions serve
+/// block-mean pass, then <see cref="PlateauDetector"/> on the key channels. The same functions serve
 /// <c>process</c> (through <see cref="DayProcessor"/>) and the <c>windows</c> command, so both see the same windows.
 /// </summary>
 public static class WindowFinder
@@ -63,7 +63,7 @@ public static class WindowFinder
         }
         RequireBlocks(rig, series);
         var times = series.TimesS.Select(t => t - dayStartS).ToArray();
-        return PlateauDetector.Detect(times, DetectionKeys.For(rig, channel => series.Means[channel]), Settings(rig.Steady));
+        return PlateauDetector.Detect(times, DetectionKeys.For(rig, channel => series.Means[channel]), Settings(rig.Steady), rig.Steady.BlockS);
     }
 
     /// <summary>Refuses a day too short to look for a steady window in (fewer than three blocks).</summary>

@@ -73,6 +73,13 @@ public sealed record KeyChannel(string Name, IReadOnlyList<double> Values, doubl
     public Func<double, double>? Tolerance { get; init; }
 
     /// <summary>
+    /// When set, the channel's operating minimum is this fraction of its largest level over the whole day (the 99th
+    /// percentile of its block means), applied once the day has ended (<see cref="PlateauScan"/>); null for none
+    /// beyond <see cref="MinimumValue"/>.
+    /// </summary>
+    public double? RestFractionOfLargest { get; init; }
+
+    /// <summary>
     /// True for a channel that only marks set-point steps (a heater's voltage or current: it jumps the moment the
     /// setting changes) and is not itself judged settled.
     /// </summary>

@@ -12,23 +12,20 @@ namespace BcPrep.Writing;
 /// </summary>
 public static class BoundaryTables
 {
-    /// <summary>Quantities repeated in the summary, in this order.</summary>
-    public static readonly string[] SummaryQuantities =
+    /// <summary>Quantities repeated in the summary, in this order: entries of the one quantity table, which gives each its name and unit.</summary>
+    public static readonly IReadOnlyList<ScalarOutput> SummaryQuantities =
     [
-        .. new[]
-        {
-            PointOutputs.MassFlow, PointOutputs.InletBulkVelocity, PointOutputs.Reynolds, PointOutputs.InletTemperature, PointOutputs.OutletTemperature,
-            PointOutputs.InletStaticPressure, PointOutputs.OutletStaticPressure, PointOutputs.HeaterPower, PointOutputs.WallHeatFlux,
-            PointOutputs.EnergyBalanceMismatch,
-        }.Select(o => o.Name),
+        PointOutputs.MassFlow, PointOutputs.InletBulkVelocity, PointOutputs.Reynolds, PointOutputs.InletTemperature, PointOutputs.OutletTemperature,
+        PointOutputs.InletStaticPressure, PointOutputs.OutletStaticPressure, PointOutputs.HeaterPower, PointOutputs.WallHeatFlux,
+        PointOutputs.EnergyBalanceMismatch,
     ];
 
     public static CsvTable Summary(DayResult day)
     {
         var header = new List<string> { "point", "origin", "start [s]", "end [s]", "duration [s]" };
-        foreach (var name in SummaryQuantities)
+        foreach (var quantity in SummaryQuantities)
         {
-            var unit = UnitOf(day, name);
+            var (name, unit) = (quantity.Name, quantity.Unit);
             header.AddRange([$"{name} [{unit}]", $"u({name}) [{unit}]", $"U({name}) [{unit}]", $"k({name})"]);
         }
         header.AddRange(["checks", "warnings", "conditioning"]);
@@ -41,9 +38,9 @@ public static class BoundaryTables
                 point.Id, point.Origin == WindowOrigin.RigFile ? "rig file" : "detected",
                 point.Window.StartS - day.DayStartS, point.Window.EndS - day.DayStartS, point.Window.DurationS,
             };
-            foreach (var name in SummaryQuantities)
+            foreach (var quantity in SummaryQuantities)
             {
-                var output = point.Output(name);
+                var output = point.Output(quantity);
                 row.AddRange([output?.Estimate ?? double.NaN, output?.StandardUncertainty ?? double.NaN, output?.ExpandedUncertainty ?? double.NaN, output?.CoverageFactor ?? double.NaN]);
             }
             row.Add(string.Join("; ", point.Checks.Select(c => $"{c.Name}: {(c.Passed ? "pass" : "warn")}")));
@@ -85,7 +82,7 @@ public static class BoundaryTables
     }
 
     public static CsvTable OutletPlane(PointResult point) =>
-        Scalars(point, [PointOutputs.OutletStaticPressure.Name, PointOutputs.OutletTemperature.Name], $"BcPrep outlet plane; point {point.Id}; absolute static pressure");
+        Scalars(point, [PointOutputs.OutletStaticPressure, PointOutputs.OutletTemperature], $"BcPrep outlet plane; point {point.Id}; absolute static pressure");
 
     public static CsvTable Wall(PointResult point, DayResult day)
     {
@@ -101,7 +98,7 @@ public static class BoundaryTables
         }
         for (var i = 0; i < point.Model.WallGridM.Length; i++)
         {
-            var t = point.Output($"{ProfileOutputs.WallGridPrefix}{i}");
+            var t = point.Output(ProfileOutputs.WallGrid(i));
             table.Add(point.Model.WallGridM[i], "interpolated", t?.Estimate ?? double.NaN, t?.StandardUncertainty ?? double.NaN, t?.ExpandedUncertainty ?? double.NaN,
                 flux?.Estimate ?? double.NaN, flux?.StandardUncertainty ?? double.NaN);
         }
@@ -109,14 +106,14 @@ public static class BoundaryTables
     }
 
     /// <summary>Every scalar output of a point (profile points excluded) with value and uncertainty.</summary>
-    public static CsvTable Scalars(PointResult point, IReadOnlyCollection<string>? only = null, string? comment = null)
+    public static CsvTable Scalars(PointResult point, IReadOnlyCollection<ScalarOutput>? only = null, string? comment = null)
     {
         var table = new CsvTable(["quantity", "unit", "value", "standard_uncertainty", "expanded_uncertainty", "coverage_factor", "degrees_of_freedom", "description"])
             .Comment(comment ?? $"BcPrep scalars; point {point.Id}");
         for (var i = 0; i < point.Model.Outputs.Count; i++)
         {
             var definition = point.Model.Outputs[i];
-            if (ProfileOutputs.IsProfilePoint(definition.Name) || (only is not null && !only.Contains(definition.Name)))
+            if (definition.Kind == QuantityKind.ProfilePoint || (only is not null && !only.Any(o => o.Name == definition.Name)))
             {
                 continue;
             }
@@ -137,7 +134,7 @@ public static class BoundaryTables
         for (var i = 0; i < point.Model.Outputs.Count; i++)
         {
             var definition = point.Model.Outputs[i];
-            if ((!includeProfile && ProfileOutputs.IsProfilePoint(definition.Name)) || (quantity is not null && !quantity(definition.Name)))
+            if ((!includeProfile && definition.Kind == QuantityKind.ProfilePoint) || (quantity is not null && !quantity(definition.Name)))
             {
                 continue;
             }
@@ -149,9 +146,6 @@ public static class BoundaryTables
         }
         return table;
     }
-
-    private static string UnitOf(DayResult day, string name) =>
-        day.Points.SelectMany(p => p.Model.Outputs).FirstOrDefault(o => o.Name == name)?.Unit ?? "";
 
     private static double Dof(double nu) => double.IsPositiveInfinity(nu) ? double.NaN : nu;
 }

@@ -169,7 +169,7 @@ public static class ManifestWriter
                 json.WriteBoolean("gum_validated", point.Validation![i].IsValidated);
                 json.WriteEndObject();
             }
-            if (!ProfileOutputs.IsProfilePoint(definition.Name))
+            if (definition.Kind != QuantityKind.ProfilePoint)
             {
                 json.WriteStartArray("budget");
                 foreach (var line in g.Budget.Where(b => b.VarianceShare > 0).OrderByDescending(b => b.VarianceShare))
