@@ -147,7 +147,7 @@ public sealed class DaySoFar
             WindowFinder.RequireBlocks(rig, series);
             detection = WindowFinder.Detect(rig, series, dayStartS);
         }
-        var windowPlan = PointWindows.Plan(pinned, detection, dayStartS);
+        var windowPlan = PointWindows.Plan(pinned, detection, _day.Start);
         if (windowPlan.Points.Count == 0)
         {
             throw new BcPrepFailure(FailureKind.NoSteadyPoint, WindowFinder.NoSteadyProblems(rig, detection!));
@@ -188,7 +188,7 @@ public sealed class DaySoFar
         }
         else if (detection is not null)
         {
-            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, dayStartS));
+            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, _day.Start));
         }
         var tareStats = DayProcessor.TareStats(tareWindows, stats);
         var endTares = DayProcessor.EndTares(tareWindows, stats);
