@@ -11,14 +11,15 @@ namespace BcPrep.Report;
 /// </summary>
 public static class BudgetFigure
 {
-    /// <summary>Quantities whose budgets the report draws, when the point has them.</summary>
-    public static readonly string[] Quantities = ["mass_flow", "inlet.temperature", "inlet.static_pressure", "outlet.static_pressure", "wall.heat_flux"];
+    /// <summary>Quantities whose budgets the report draws, when the point has them: entries of the one quantity table.</summary>
+    public static readonly IReadOnlyList<ScalarOutput> Quantities =
+        [PointOutputs.MassFlow, PointOutputs.InletTemperature, PointOutputs.InletStaticPressure, PointOutputs.OutletStaticPressure, PointOutputs.WallHeatFlux];
 
     /// <summary>Inputs shown by name; the rest are summed.</summary>
     public const int TopContributors = 6;
 
     /// <summary>The bars (label, share in %) of <paramref name="quantity"/>, largest first; empty when the point lacks the quantity or its uncertainty is zero.</summary>
-    public static IReadOnlyList<(string Label, double SharePercent)> Bars(PointResult point, string quantity)
+    public static IReadOnlyList<(string Label, double SharePercent)> Bars(PointResult point, ScalarOutput quantity)
     {
         if (point.Output(quantity) is not { StandardUncertainty: > 0 } output)
         {
@@ -39,7 +40,7 @@ public static class BudgetFigure
     }
 
     /// <summary>The figure; null when <see cref="Bars"/> is empty.</summary>
-    public static ReportFigure? Render(PointResult point, string quantity, string relativePath)
+    public static ReportFigure? Render(PointResult point, ScalarOutput quantity, string relativePath)
     {
         var bars = Bars(point, quantity);
         if (bars.Count == 0)
@@ -73,10 +74,10 @@ public static class BudgetFigure
         plot.Axes.SetLimitsX(min, 118);
         plot.Axes.SetLimitsY(-0.6, bars.Count - 0.4);
         var output = point.Output(quantity)!;
-        plot.Title($"{point.Id}: uncertainty budget of {quantity}");
+        plot.Title($"{point.Id}: uncertainty budget of {quantity.Name}");
         plot.XLabel("share of the variance u_c²(y) [%]");
         var caption = string.Create(CultureInfo.InvariantCulture,
-            $"{point.Id}: {quantity}, y ± u_c = {MeasurementText.WithUncertainty(output.Estimate, output.StandardUncertainty)}; share of each input in the variance, largest first.");
+            $"{point.Id}: {quantity.Name}, y ± u_c = {MeasurementText.WithUncertainty(output.Estimate, output.StandardUncertainty)}; share of each input in the variance, largest first.");
         return new ReportFigure(relativePath, caption, ReportStyle.BudgetWidthPx, ReportStyle.BudgetHeightPx, FigureRendering.Png(plot, ReportStyle.BudgetWidthPx, ReportStyle.BudgetHeightPx));
     }
 }

@@ -40,7 +40,7 @@ public static class DayReport
                 figures.Add(temperature);
             }
             figures.AddRange(BudgetFigure.Quantities
-                .Select(q => BudgetFigure.Render(point, q, folder + "budget-" + DayOutputs.SafeName(q) + ".png"))
+                .Select(q => BudgetFigure.Render(point, q, folder + "budget-" + DayOutputs.SafeName(q.Name) + ".png"))
                 .OfType<ReportFigure>());
             pointFigures[point.Id] = figures;
         }

@@ -16,7 +16,7 @@ public static class InletProfileFigures
     public static ReportFigure Velocity(DayResult day, PointResult point, string relativePath)
     {
         var radiusM = point.Nominal.Velocity.Profile.RadiusM;
-        var outputs = Enumerable.Range(0, radiusM.Length).Select(i => point.Output(ProfileOutputs.VelocityPrefix + i.ToString(CultureInfo.InvariantCulture))).ToList();
+        var outputs = Enumerable.Range(0, radiusM.Length).Select(i => point.Output(ProfileOutputs.Velocity(i))).ToList();
         var values = outputs.Select((o, i) => o?.Estimate ?? point.Nominal.Velocity.Profile.Values[i]).ToArray();
         var expanded = outputs.Select(o => o?.ExpandedUncertainty ?? double.NaN).ToArray();
         var plot = FigureRendering.NewPlot();
@@ -36,7 +36,7 @@ public static class InletProfileFigures
             return null;
         }
         var radiusM = point.Nominal.Velocity.Profile.RadiusM;
-        var outputs = Enumerable.Range(0, radiusM.Length).Select(i => point.Output(ProfileOutputs.TemperaturePrefix + i.ToString(CultureInfo.InvariantCulture))).ToList();
+        var outputs = Enumerable.Range(0, radiusM.Length).Select(i => point.Output(ProfileOutputs.Temperature(i))).ToList();
         var values = outputs.Select((o, i) => o?.Estimate ?? rake.Profile.Values[i]).ToArray();
         var expanded = outputs.Select(o => o?.ExpandedUncertainty ?? double.NaN).ToArray();
         var plot = FigureRendering.NewPlot();

@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using BcPrep.Pipeline;
 using BcPrep.Writing;
+using BcPrep.Values;
 
 namespace BcPrep.Report;
 
@@ -11,9 +12,12 @@ namespace BcPrep.Report;
 /// </summary>
 public static class ReportPage
 {
-    /// <summary>Quantities in the points table, with their unit for a person.</summary>
-    private static readonly string[] SummaryQuantities =
-        ["mass_flow", "inlet.bulk_velocity", "reynolds", "inlet.temperature", "outlet.temperature", "outlet.static_pressure", "heater_power", "wall.heat_flux"];
+    /// <summary>Quantities in the points table: entries of the one quantity table, which gives each its name and unit.</summary>
+    public static readonly IReadOnlyList<ScalarOutput> SummaryQuantities =
+    [
+        PointOutputs.MassFlow, PointOutputs.InletBulkVelocity, PointOutputs.Reynolds, PointOutputs.InletTemperature, PointOutputs.OutletTemperature,
+        PointOutputs.OutletStaticPressure, PointOutputs.HeaterPower, PointOutputs.WallHeatFlux,
+    ];
 
     /// <summary>
     /// The page. <paramref name="dayFigures"/> and <paramref name="pointFigures"/> (by point id) carry paths relative
@@ -55,9 +59,9 @@ public static class ReportPage
     private static string DayLine(DayResult day)
     {
         var start = day.Rig.Log.TimeFormat == Rig.TimeFormat.Iso8601
-            ? "first sample " + DateTimeOffset.FromUnixTimeMilliseconds((long)Math.Round(day.DayStartS * 1000.0)).ToString("yyyy-MM-dd HH:mm:ss 'UTC'", CultureInfo.InvariantCulture) + "; "
+            ? "first sample " + DateTimeOffset.FromUnixTimeMilliseconds((long)Math.Round(day.Start.FirstSample.Value * 1000.0)).ToString("yyyy-MM-dd HH:mm:ss 'UTC'", CultureInfo.InvariantCulture) + "; "
             : "";
-        var spanMin = day.Blocks.TimesS.Length == 0 ? 0.0 : (day.Blocks.TimesS[^1] - day.DayStartS) / 60.0;
+        var spanMin = day.Blocks.TimesS.Length == 0 ? 0.0 : day.Start.Since(new LoggerSeconds(day.Blocks.TimesS[^1])).Value / 60.0;
         return string.Create(CultureInfo.InvariantCulture,
             $"{start}{spanMin:0.#} min of logs; {day.Points.Count} operating point(s); times in minutes since the first sample; values SI, ± U = expanded uncertainty at p = {day.Rig.CoverageProbability}.");
     }
@@ -66,7 +70,7 @@ public static class ReportPage
     {
         var present = SummaryQuantities.Where(q => day.Points.Any(p => p.Output(q) is not null)).ToList();
         var header = new List<string> { "point", "window [min]", "origin" };
-        header.AddRange(present.Select(q => $"{q} [{UnitOf(day, q)}]"));
+        header.AddRange(present.Select(q => $"{q.Name} [{q.Unit}]"));
         header.Add("checks");
         var rows = day.Points.Select(p =>
         {
@@ -90,7 +94,7 @@ public static class ReportPage
         var rows = new List<(double StartS, IReadOnlyList<string> Cells)>();
         foreach (var window in detection.Accepted)
         {
-            var ids = day.Points.Where(p => p.Window.StartS - day.DayStartS < window.StretchEndS && p.Window.EndS - day.DayStartS > window.StretchStartS).Select(p => p.Id);
+            var ids = day.Points.Where(p => day.Start.Since(p.Window.Start).Value < window.StretchEndS && day.Start.Since(p.Window.End).Value > window.StretchStartS).Select(p => p.Id);
             rows.Add((window.StretchStartS, [
                 "accepted", string.Join(", ", ids), Minutes(window.StretchStartS) + "–" + Minutes(window.StretchEndS),
                 Minutes(window.StartS) + "–" + Minutes(window.EndS), ChoiceSpelling.Names(window.AcceptedBy), "",
@@ -131,14 +135,11 @@ public static class ReportPage
         html.Append("</section>\n");
     }
 
-    private static string WindowText(DayResult day, TimeWindow window) => Minutes(window.StartS - day.DayStartS) + "–" + Minutes(window.EndS - day.DayStartS);
+    private static string WindowText(DayResult day, TimeWindow window) => Minutes(day.Start.Since(window.Start).Value) + "–" + Minutes(day.Start.Since(window.End).Value);
 
     private static string Minutes(double seconds) => (seconds / 60.0).ToString("0.0", CultureInfo.InvariantCulture);
 
     private static string Count(int n) => n.ToString(CultureInfo.InvariantCulture);
-
-    private static string UnitOf(DayResult day, string name) =>
-        day.Points.SelectMany(p => p.Model.Outputs).FirstOrDefault(o => o.Name == name)?.Unit ?? "";
 
     // Our own look: black on white, one grey for rules; readable printed in greyscale. No web fonts, no network.
     private const string Style = """

@@ -1,3 +1,4 @@
+using BcPrep.Pipeline;
 using BcPrep.Report;
 
 namespace BcPrep.Tests.Report;
@@ -17,7 +18,7 @@ public sealed class BudgetBarsTests
         var point = SampleDays.Day.Points[0];
         var output = point.Output(quantity)!;
 
-        var bars = BudgetFigure.Bars(point, quantity);
+        var bars = BudgetFigure.Bars(point, PointOutputs.Scalars.Single(s => s.Name == quantity));
 
         var named = bars.Where(b => !b.Label.StartsWith("other", StringComparison.Ordinal) && b.Label != "input correlations").ToList();
         Assert.InRange(named.Count, 1, BudgetFigure.TopContributors);
@@ -33,7 +34,7 @@ public sealed class BudgetBarsTests
     public void Inlet_temperature_budget_is_led_by_the_thermocouple_class_term()
     {
         // README (budget command): on the sample day the IEC 60584-1 class 1 term holds about 98 % of the variance.
-        var bars = BudgetFigure.Bars(SampleDays.Day.Points[0], "inlet.temperature");
+        var bars = BudgetFigure.Bars(SampleDays.Day.Points[0], PointOutputs.InletTemperature);
 
         Assert.InRange(bars[0].SharePercent, 95.0, 99.5);
     }
@@ -42,8 +43,9 @@ public sealed class BudgetBarsTests
     public void A_quantity_the_point_lacks_gives_no_bars_and_no_figure()
     {
         var point = SampleDays.Day.Points[0];
+        var absent = new ScalarOutput("no.such.quantity", "1", "an output no point model defines", (_, _) => 0.0);
 
-        Assert.Empty(BudgetFigure.Bars(point, "no.such.quantity"));
-        Assert.Null(BudgetFigure.Render(point, "no.such.quantity", "x.png"));
+        Assert.Empty(BudgetFigure.Bars(point, absent));
+        Assert.Null(BudgetFigure.Render(point, absent, "x.png"));
     }
 }

@@ -31,7 +31,7 @@ public static class BudgetCommand
             if (only is not null && !points.Any(p => p.OutputIndex(only) >= 0))
             {
                 throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation("(command line)", Key: "--quantity"),
-                    $"no quantity '{only}'; the scalars are: {string.Join(", ", points[0].Model.Outputs.Select(o => o.Name).Where(n => !ProfileOutputs.IsProfilePoint(n)))}, and inlet.velocity.0 … inlet.velocity.{points[0].Model.ProfileRadiiM.Length - 1}");
+                    $"no quantity '{only}'; the scalars are: {string.Join(", ", points[0].Model.Outputs.Where(o => o.Kind != QuantityKind.ProfilePoint).Select(o => o.Name))}, and {ProfileOutputs.Velocity(0)} … {ProfileOutputs.Velocity(points[0].Model.ProfileRadiiM.Length - 1)}");
             }
 
             Func<string, bool>? filter = only is null ? null : name => name == only;

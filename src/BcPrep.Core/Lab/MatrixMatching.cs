@@ -116,5 +116,7 @@ public static class MatrixMatching
         return string.Create(CultureInfo.InvariantCulture, $" (nearest '{nearest.Row.Name}', line {nearest.Row.Location.Line}, off by {nearest.Worst:0.##} tolerances: {string.Join(", ", quantities)}, SI units)");
     }
 
-    private static string Format(double? value) => value is { } v ? v.ToString("G6", CultureInfo.InvariantCulture) : "not measured";
+    // A message for a person: four significant digits (as the report writes numbers without an uncertainty), through
+    // the one formatter of numbers for people.
+    private static string Format(double? value) => value is { } v ? MeasurementText.Number(v) : "not measured";
 }

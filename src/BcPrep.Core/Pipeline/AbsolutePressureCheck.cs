@@ -1,4 +1,3 @@
-using System.Globalization;
 using BcPrep.Rig;
 
 namespace BcPrep.Pipeline;
@@ -59,5 +58,6 @@ public static class AbsolutePressureCheck
         return tares.TryGetValue(channel, out var tare) ? stats.Mean - tare.Mean : stats.Mean;
     }
 
-    private static string Format(double pa) => pa.ToString("G6", CultureInfo.InvariantCulture);
+    // A message for a person: six significant digits through the one formatter of numbers for people.
+    private static string Format(double pa) => MeasurementText.Number(pa, 6);
 }

@@ -37,7 +37,8 @@ public static class DayProcessor
         var feed = DetectionFeed.For(rig, blocks);
         var index = new ScanIndex();
         var liveBook = new WindowStatsBook();
-        var live = ReadsLive(rig, plan, pinned, options)
+        var detects = WindowFinder.IsEnabled(rig) || pinned.Count == 0;
+        var live = ReadsLive(rig, plan, detects, options)
             ? new LiveDetection(rig, plan.DayStartS, feed.BlockSink, blocks, pinned, (w, c, t, v) => Collect(rig, plan.DayStartS, liveBook, w, c, t, v), options.KeptRowsS)
             : null;
         DayScan.Run(rig, plan, converters, [firstPass, extent], (IBlockSink?)live ?? feed.BlockSink, options.Progress, index);
@@ -48,36 +49,40 @@ public static class DayProcessor
 
         var series = WindowFinder.Series(rig, blocks);
         SteadyDetectionResult? detection = null;
-        if (live is not null)
+        if (detects)
         {
-            // The scan that ran during the read is the day's detection.
-            WindowFinder.RequireBlocks(rig, series);
-            detection = live.Finish();
+            // One detection per day: the scan that ran during the read, or, without it, the same scan over the block means.
+            if (live is not null)
+            {
+                WindowFinder.RequireBlocks(rig, series);
+                detection = live.Finish();
+            }
+            else
+            {
+                detection = WindowFinder.Detect(rig, series, plan.DayStartS);
+            }
         }
-        else if (WindowFinder.IsEnabled(rig) || pinned.Count == 0)
-        {
-            detection = WindowFinder.Detect(rig, series, plan.DayStartS);
-        }
-        // Detection always runs when configured; a window pinned by hand replaces the detected ones it overlaps.
-        var windowPlan = PointWindows.Plan(pinned, detection, plan.DayStartS);
+        // Point ids are given here, once: a window pinned by hand replaces the detected ones it overlaps.
+        var windowPlan = PointWindows.Plan(pinned, detection, plan.Start);
         if (windowPlan.Points.Count == 0)
         {
             throw new BcPrepFailure(FailureKind.NoSteadyPoint, WindowFinder.NoSteadyProblems(rig, detection!));
         }
-        var detected = windowPlan.Points.Where(p => p.Origin == WindowOrigin.Detected).Select(p => p.Window).ToList();
-        // Each detected window goes to the first source that can serve it: the rows kept back, else a second read.
+        // Each detected window's samples come from the rows kept back during the read, else from a second read.
         var secondRead = new SeekingSecondRead(rig, plan, converters, index, options.Progress, (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v));
-        IReadOnlyList<IWindowSource> sources = live is null ? [secondRead] : [live, secondRead];
-        var fromKeptRows = new HashSet<TimeWindow>();
-        foreach (var window in detected)
+        var fromKeptRows = new Dictionary<TimeWindow, TimeWindow>();
+        foreach (var window in windowPlan.Points.Where(p => p.Origin == WindowOrigin.Detected).Select(p => p.Window))
         {
-            var source = sources.First(s => s.TryGather(window));
-            if (ReferenceEquals(source, live))
+            if (live is not null && live.TryGather(window))
             {
-                fromKeptRows.Add(window);
+                fromKeptRows[LiveDetection.Interval(window.StartS, window.EndS)] = window;
+            }
+            else
+            {
+                secondRead.TryGather(window);
             }
         }
-        liveBook.DrainInto(stats, fromKeptRows.Contains, lost);
+        liveBook.DrainInto(stats, lost, fromKeptRows);
         secondRead.Complete();
         book.DrainInto(stats, lost: lost);
         var dayWarnings = new List<string>();
@@ -87,7 +92,7 @@ public static class DayProcessor
         }
         else if (detection is not null)
         {
-            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, plan.DayStartS));
+            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, plan.Start));
         }
 
         var tareStats = TareStats(tareWindows, stats);
@@ -106,27 +111,23 @@ public static class DayProcessor
         {
             (points, matrix) = MatrixNaming.Apply(options.Matrix, points);
         }
-        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = secondRead.Count };
+        return new DayResult(rig, plan.Start, points, series, detection, dayWarnings) { FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = secondRead.Count };
     }
 
     /// <summary>
-    /// Whether the detected windows are gathered during the read (<see cref="LiveDetection"/>): when detection runs
-    /// and one logger records every channel, so the rows kept back hold all of a window's channels. Off for now:
-    /// the live scan still applies the sliding drift rule, while the day's windows come from
-    /// <see cref="PlateauDetector"/> (settled moment to plateau end), so its provisional windows never match and
-    /// their statistics would be computed in vain. The windows are read a second time, seeking by the block index.
+    /// Whether the day's detection runs during the read (<see cref="LiveDetection"/>), its windows gathered from the
+    /// rows kept back: when detection runs and one logger records every channel, so the kept rows hold all of a
+    /// window's channels. Otherwise the detection runs over the block means after the read, and its windows are read
+    /// a second time, seeking by the block index.
     /// </summary>
-    private static bool ReadsLive(RigDescription rig, DayPlan plan, IReadOnlyList<TimeWindow> pinned, ProcessOptions options) =>
-        LiveScanMatchesDetection && options.SinglePass && plan.Loggers.Count == 1 && rig.Steady.Keys.Count > 0 && (rig.Steady.Detect || pinned.Count == 0);
-
-    /// <summary>False until the live scan runs the same plateau detection as the day (see <see cref="ReadsLive"/>).</summary>
-    private static readonly bool LiveScanMatchesDetection = bool.Parse("false");
+    private static bool ReadsLive(RigDescription rig, DayPlan plan, bool detects, ProcessOptions options) =>
+        detects && options.SinglePass && plan.Loggers.Count == 1 && (rig.Steady.Keys.Count > 0 || DetectionKeys.DefaultKeys(rig).Count > 0);
 
     /// <summary>
     /// Maps the items on the thread pool (each point's propagation is independent and pure) and returns the results
     /// in item order; the failure of the first failing item, in that order, is the one thrown, whatever the scheduling.
     /// </summary>
-    private static List<TResult> InOrder<TItem, TResult>(IReadOnlyList<TItem> items, Func<TItem, TResult> map)
+    internal static List<TResult> InOrder<TItem, TResult>(IReadOnlyList<TItem> items, Func<TItem, TResult> map)
     {
         var results = new TResult[items.Count];
         var failures = new ExceptionDispatchInfo?[items.Count];
@@ -152,14 +153,14 @@ public static class DayProcessor
 
     private const string EndTarePrefix = "tare-end:";
 
-    private static List<TimeWindow> TareWindows(RigDescription rig, double dayStartS) =>
+    internal static List<TimeWindow> TareWindows(RigDescription rig, double dayStartS) =>
         [.. rig.Channels.Where(c => c.Tare is not null)
             .Select(c => TimeWindow.Tare(c.Id, Resolve(c.Tare!.Start, dayStartS), Resolve(c.Tare.End, dayStartS))),
          .. rig.Channels.Where(c => c.Tare is not null && c.TareEnd is not null)
             .Select(c => new TimeWindow(EndTarePrefix + c.Id, Resolve(c.TareEnd!.Start, dayStartS), Resolve(c.TareEnd.End, dayStartS)) { TareOf = c.Id })];
 
     /// <summary>Channels tared at both ends of the day: the end tare's statistics and both tare mid-times.</summary>
-    private static Dictionary<string, EndTare> EndTares(IReadOnlyList<TimeWindow> tareWindows, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
+    internal static Dictionary<string, EndTare> EndTares(IReadOnlyList<TimeWindow> tareWindows, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
     {
         var result = new Dictionary<string, EndTare>(StringComparer.Ordinal);
         foreach (var end in tareWindows.Where(w => w.Id.StartsWith(EndTarePrefix, StringComparison.Ordinal)))
@@ -173,23 +174,23 @@ public static class DayProcessor
         return result;
     }
 
-    private static void Collect(RigDescription rig, double dayStartS, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,
+    internal static void Collect(RigDescription rig, double dayStartS, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,
         SourceLocation? pinnedAt = null)
     {
         if (pinnedAt is null)
         {
-            // A detected window may be gathered before the day's detection confirms it, so even its emptiness is
-            // reported only when its statistics are collected.
-            book.Add(window, channel, () =>
+            // A detected window is gathered before its point id is given, so even its emptiness is reported only
+            // when its statistics are filed under that id.
+            book.Add(window, channel, named =>
             {
-                RequireSamples(window, channel, times, dayStartS, null);
-                return FaultPolicy.Evaluate(rig, channel, window, times, values, dayStartS);
+                RequireSamples(named, channel, times, dayStartS, null);
+                return FaultPolicy.Evaluate(rig, channel, named, times, values, dayStartS);
             });
             return;
         }
         RequireSamples(window, channel, times, dayStartS, pinnedAt);
         WindowCoverage.Require(window, channel, times, rig.Conditioning.MaxBridgeS, pinnedAt);
-        book.Add(window, channel, () =>
+        book.Add(window, channel, _ =>
         {
             try
             {
@@ -219,7 +220,7 @@ public static class DayProcessor
     }
 
     /// <summary>Where a window pinned in the rig file (operating point or tare) is written; null for a detected one.</summary>
-    private static SourceLocation? PinnedLocation(RigDescription rig, TimeWindow window)
+    internal static SourceLocation? PinnedLocation(RigDescription rig, TimeWindow window)
     {
         if (window.TareOf is { } channel)
         {
@@ -229,7 +230,7 @@ public static class DayProcessor
         return rig.Points.FirstOrDefault(p => p.Id == window.Id)?.Location;
     }
 
-    private static Dictionary<string, ChannelWindowStats> TareStats(IReadOnlyList<TimeWindow> tareWindows, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
+    internal static Dictionary<string, ChannelWindowStats> TareStats(IReadOnlyList<TimeWindow> tareWindows, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
     {
         var result = new Dictionary<string, ChannelWindowStats>(StringComparer.Ordinal);
         foreach (var window in tareWindows.Where(w => !w.Id.StartsWith(EndTarePrefix, StringComparison.Ordinal)))
@@ -242,7 +243,7 @@ public static class DayProcessor
         return result;
     }
 
-    private static PointResult EvaluatePoint(RigDescription rig, TimeWindow window, WindowOrigin origin,
+    internal static PointResult EvaluatePoint(RigDescription rig, TimeWindow window, WindowOrigin origin,
         IReadOnlyDictionary<string, ChannelWindowStats> channels, IReadOnlyDictionary<string, ChannelWindowStats> tares,
         IReadOnlyDictionary<string, EndTare> endTares, ProcessOptions options)
     {

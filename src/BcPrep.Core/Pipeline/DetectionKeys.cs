@@ -81,12 +81,11 @@ public static class DetectionKeys
             var fastMarkers = StepMarkers(rig).Count > 0 || DefaultKeys(rig).Any(c => c.Role is ChannelRole.MassFlow or ChannelRole.DifferentialPressure);
             foreach (var channel in DefaultKeys(rig))
             {
-                var values = blockMeans(channel.Id);
-                var minimum = channel.Role is ChannelRole.MassFlow or ChannelRole.DifferentialPressure
-                    ? RestFractionOfLargestFlow * Percentile99(values)
-                    : double.NegativeInfinity;
-                result.Add(new KeyChannel(channel.Id, values, double.PositiveInfinity, double.PositiveInfinity, double.Epsilon, minimum)
+                var flow = channel.Role is ChannelRole.MassFlow or ChannelRole.DifferentialPressure;
+                result.Add(new KeyChannel(channel.Id, blockMeans(channel.Id), double.PositiveInfinity, double.PositiveInfinity, double.Epsilon)
                 {
+                    // Known only at the day's end: the detector applies it to the final windows then.
+                    RestFractionOfLargest = flow ? RestFractionOfLargestFlow : null,
                     Tolerance = ToleranceFromUncertainty(channel),
                     MarksSteps = !fastMarkers || channel.Role is ChannelRole.MassFlow or ChannelRole.DifferentialPressure,
                 });
@@ -96,11 +95,5 @@ public static class DetectionKeys
         result.AddRange(StepMarkers(rig).Where(c => !keyIds.Contains(c.Id))
             .Select(c => new KeyChannel(c.Id, blockMeans(c.Id), double.PositiveInfinity, double.PositiveInfinity, double.Epsilon) { StepOnly = true }));
         return result;
-    }
-
-    private static double Percentile99(IReadOnlyList<double> values)
-    {
-        var finite = values.Where(double.IsFinite).Select(Math.Abs).Order().ToArray();
-        return finite.Length == 0 ? 0.0 : finite[(int)Math.Floor(0.99 * (finite.Length - 1))];
     }
 }

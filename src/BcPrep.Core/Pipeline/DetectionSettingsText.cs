@@ -31,8 +31,8 @@ public static class DetectionSettingsText
                 ? string.Create(c, $"remaining change ≤ {key.DriftLimitPerS * steady.WindowS:G4} {unit} (max_change), scatter ≤ {key.ScatterLimit:G4} {unit}, step ≥ {key.StepThreshold:G4} {unit}")
                 : string.Create(c, $"remaining change ≤ {DetectionKeys.ToleranceFractionOfU:0.##} × its declared standard uncertainty (default), step from its noise");
             var minimum = double.IsFinite(key.MinimumValue) ? string.Create(c, $", operating minimum {key.MinimumValue:G4} {unit}")
-                : !written && rig.Channel(key.Name)?.Role is ChannelRole.MassFlow or ChannelRole.DifferentialPressure
-                    ? string.Create(c, $", operating minimum {DetectionKeys.RestFractionOfLargestFlow:P0} of the day's largest flow (default)") : "";
+                : key.RestFractionOfLargest is { } fraction
+                    ? string.Create(c, $", operating minimum {fraction:P0} of the day's largest flow (default)") : "";
             lines.Add($"  key {key.Name}{(written ? "" : " (default)")}: {tolerance}{minimum}");
         }
         return lines;

@@ -46,6 +46,9 @@ public sealed partial class PointModel
 
     public PointSettings Settings => _settings;
 
+    /// <summary>True when an outlet channel without a radius gives outlet.temperature (else the outlet rake's mixing cup, else the inlet temperature).</summary>
+    public bool HasPlainOutletTemperature { get; private set; }
+
     public static PointModel Build(
         RigDescription rig,
         IReadOnlyDictionary<string, ChannelWindowStats> window,
@@ -58,6 +61,7 @@ public sealed partial class PointModel
         model.AddEndTares(rig, endTares, pointMidS);
         model.AddModelInputs(rig, window);
         model.ResolveRoles(rig);
+        model.AddProfileShapeInput();
         model.DefineOutputs();
         return model;
     }
@@ -80,7 +84,12 @@ public sealed partial class PointModel
         x[_diameter], Math.Max(0.0, x[_loss]), x[_viscosityFactor], x[_cpFactor]), x);
 
     /// <summary>The model function: inputs → every output of <see cref="Outputs"/>, in that order.</summary>
-    public double[] Evaluate(double[] x) => Flatten(MeasurementsAt(x), PointPhysics.Evaluate(MeasurementsAt(x), _settings), includeAll: false);
+    public double[] Evaluate(double[] x)
+    {
+        // Once per call: the Jacobian and Monte Carlo call this thousands of times per point.
+        var measurements = MeasurementsAt(x);
+        return Flatten(measurements, PointPhysics.Evaluate(measurements, _settings), includeAll: false);
+    }
 
     public PointQuantities Physics(double[] x) => PointPhysics.Evaluate(MeasurementsAt(x), _settings);
 
@@ -260,7 +269,9 @@ public sealed partial class PointModel
         ResolveProfileInputs(rig);
         _inletTemperature = Optional(rig, ChannelRole.BulkTemperature, "inlet") ?? RakeMeanTemperature()
             ?? Required(rig, ChannelRole.BulkTemperature, "inlet", problems, absolute: false);
-        _outletTemperature = Optional(rig, ChannelRole.BulkTemperature, "outlet") ?? _inletTemperature;
+        var plainOutlet = Optional(rig, ChannelRole.BulkTemperature, "outlet");
+        HasPlainOutletTemperature = plainOutlet is not null;
+        _outletTemperature = plainOutlet ?? OutletMixingCupTemperature() ?? _inletTemperature;
         _massFlow = Optional(rig, ChannelRole.MassFlow, null) ?? (problems.Count == 0 ? FlowMeterMassFlow(rig) : null)
             ?? Required(rig, ChannelRole.MassFlow, null, problems, absolute: false);
         _heaterPower = HeaterPower(rig);
@@ -327,11 +338,12 @@ public sealed partial class PointModel
     private void DefineOutputs()
     {
         var x = Estimates();
-        var nominal = PointPhysics.Evaluate(MeasurementsAt(x), _settings);
+        var measurements = MeasurementsAt(x);
+        var nominal = PointPhysics.Evaluate(measurements, _settings);
         ProfileRadiiM = nominal.Velocity.Profile.RadiusM;
         _runs = Runs(nominal.Velocity.Profile.RadiusM.Length, nominal.TemperatureProfile is null ? 0 : nominal.Velocity.Profile.RadiusM.Length);
         var all = _runs.SelectMany(r => r.Definitions).ToList();
-        var values = Flatten(MeasurementsAt(x), nominal, includeAll: true);
+        var values = Flatten(measurements, nominal, includeAll: true);
         _included = all.Select((d, i) => double.IsFinite(values[i])).ToArray();
         Outputs = all.Where((d, i) => _included[i]).ToList();
     }
@@ -361,6 +373,18 @@ public sealed partial class PointModel
         runs.Add(new([.. Enumerable.Range(0, temperatureProfilePoints).Select(i => new QuantityDefinition(ProfileOutputs.Temperature(i), "K",
                 "inlet temperature from the rake at profile point " + i) { Kind = QuantityKind.ProfilePoint })],
             (_, q, into) => into.AddRange(q.TemperatureProfile?.Profile.Values ?? [])));
+        foreach (var plane in RakePlanes)
+        {
+            // The outlet's mixing-cup temperature is an entry of the scalar table; other planes' follow here.
+            if (plane != "outlet")
+            {
+                var scalar = PointOutputs.MixingCupTemperature(plane);
+                runs.Add(new([scalar.Definition], (m, q, into) => into.Add(scalar.Value(m, q))));
+            }
+            runs.Add(new([.. Enumerable.Range(0, profilePoints).Select(i => new QuantityDefinition(ProfileOutputs.PlaneTemperature(plane, i), "K",
+                    $"{plane} temperature from the rake at profile point {i}") { Kind = QuantityKind.ProfilePoint })],
+                (_, q, into) => into.AddRange(q.Rakes.First(r => r.Plane == plane).Temperature.Profile.Values)));
+        }
         return runs;
     }
 

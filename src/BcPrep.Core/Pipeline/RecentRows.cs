@@ -2,11 +2,18 @@ namespace BcPrep.Pipeline;
 
 /// <summary>
 /// Keeps copies of the latest calibrated row blocks of one logger, so that a window found after its rows have
-/// streamed past can still be gathered without reading the log again. Memory is what the kept span of time holds;
-/// blocks dropped by <see cref="DropBefore"/> are reused for the next rows.
+/// streamed past can still be gathered without reading the log again. Memory is what the kept span of time holds,
+/// at most <see cref="MaxKeptValues"/> values (the oldest blocks go first); blocks dropped are reused for the next rows.
 /// </summary>
 internal sealed class RecentRows
 {
+    /// <summary>
+    /// Values (times and samples) kept at most: 12 M doubles, 96 MB, e.g. 45 min of 13 channels at 200 Hz or 11 min
+    /// of 17 channels at 1 kHz. A window that starts before what is left is read again instead.
+    /// </summary>
+    public const long MaxKeptValues = 12_000_000;
+
+    private long _keptValues;
     private readonly Queue<Kept> _kept = new();
     private readonly Stack<Kept> _free = new();
     private IReadOnlyList<string> _channels = [];
@@ -34,7 +41,22 @@ internal sealed class RecentRows
             Array.Copy(valuesSi[c], kept.ValuesSi[c], count);
         }
         _kept.Enqueue(kept);
+        _keptValues += Values(kept);
         _newestS = timeS[count - 1];
+        while (_keptValues > MaxKeptValues && _kept.Count > 1)
+        {
+            DropOldest();
+        }
+    }
+
+    private long Values(Kept kept) => (long)kept.Count * (_channels.Count + 1);
+
+    private void DropOldest()
+    {
+        var dropped = _kept.Dequeue();
+        _keptValues -= Values(dropped);
+        _droppedThroughS = dropped.LastS;
+        _free.Push(dropped);
     }
 
     /// <summary>True when every row from <paramref name="window"/>'s start to past its end is kept.</summary>
@@ -48,9 +70,7 @@ internal sealed class RecentRows
     {
         while (_kept.Count > 0 && _kept.Peek().LastS < timeS)
         {
-            var dropped = _kept.Dequeue();
-            _droppedThroughS = dropped.LastS;
-            _free.Push(dropped);
+            DropOldest();
         }
     }
 

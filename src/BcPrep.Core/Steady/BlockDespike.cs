@@ -9,43 +9,56 @@ namespace BcPrep.Steady;
 public static class BlockDespike
 {
     /// <summary>The same numbers as the window statistics' Hampel rule, on blocks: 10 neighbours each side, 4 σ.</summary>
-    public static double[] Apply(IReadOnlyList<double> values, int halfWindow = 10, double sigmas = 4.0)
+    public static double[] Apply(IReadOnlyList<double> values, int halfWindow = DefaultHalfWindow, double sigmas = DefaultSigmas)
     {
         ArgumentNullException.ThrowIfNull(values);
-        var n = values.Count;
-        var result = new double[n];
-        var window = new List<double>(2 * halfWindow + 1);
-        var deviations = new List<double>(2 * halfWindow + 1);
-        for (var i = 0; i < n; i++)
+        var all = values as double[] ?? [.. values];
+        var result = new double[all.Length];
+        var scratch = new List<double>(2 * halfWindow + 1);
+        for (var i = 0; i < all.Length; i++)
         {
-            var v = values[i];
-            result[i] = v;
-            if (!double.IsFinite(v))
-            {
-                continue;
-            }
-            window.Clear();
-            for (var j = Math.Max(0, i - halfWindow); j <= Math.Min(n - 1, i + halfWindow); j++)
-            {
-                if (double.IsFinite(values[j]))
-                {
-                    window.Add(values[j]);
-                }
-            }
-            if (window.Count < 5)
-            {
-                continue;
-            }
-            var median = Median(window);
-            deviations.Clear();
-            deviations.AddRange(window.Select(w => Math.Abs(w - median)));
-            var scale = 1.4826 * Median(deviations);
-            if (scale > 0 && Math.Abs(v - median) > sigmas * scale)
-            {
-                result[i] = median;
-            }
+            result[i] = At(all, all.Length, i, scratch, halfWindow, sigmas);
         }
         return result;
+    }
+
+    /// <summary>Neighbours on each side of a block.</summary>
+    public const int DefaultHalfWindow = 10;
+
+    /// <summary>Robust standard deviations beyond which a block is replaced.</summary>
+    public const double DefaultSigmas = 4.0;
+
+    /// <summary>
+    /// The de-spiked value of block <paramref name="i"/> of the first <paramref name="count"/> blocks. It depends on
+    /// the blocks up to <paramref name="halfWindow"/> after it only, so a streaming scan gets the same value as soon
+    /// as those have arrived.
+    /// </summary>
+    internal static double At(double[] values, int count, int i, List<double> scratch, int halfWindow = DefaultHalfWindow, double sigmas = DefaultSigmas)
+    {
+        var v = values[i];
+        if (!double.IsFinite(v))
+        {
+            return v;
+        }
+        scratch.Clear();
+        for (var j = Math.Max(0, i - halfWindow); j <= Math.Min(count - 1, i + halfWindow); j++)
+        {
+            if (double.IsFinite(values[j]))
+            {
+                scratch.Add(values[j]);
+            }
+        }
+        if (scratch.Count < 5)
+        {
+            return v;
+        }
+        var median = Median(scratch);
+        for (var j = 0; j < scratch.Count; j++)
+        {
+            scratch[j] = Math.Abs(scratch[j] - median);
+        }
+        var scale = 1.4826 * Median(scratch);
+        return scale > 0 && Math.Abs(v - median) > sigmas * scale ? median : v;
     }
 
     internal static double Median(List<double> values)

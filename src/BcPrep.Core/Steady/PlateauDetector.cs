@@ -1,4 +1,4 @@
-using static BcPrep.Steady.SteadyStateDetector;
+using static BcPrep.Steady.WindowCriteria;
 
 namespace BcPrep.Steady;
 
@@ -46,125 +46,115 @@ public static class PlateauDetector
     /// <summary>The approach is fitted again from where the first fit leaves this many tolerances to go.</summary>
     public const double RefitFactor = 20.0;
 
-    public static SteadyDetectionResult Detect(IReadOnlyList<double> timesS, IReadOnlyList<KeyChannel> channels, SteadySettings settings)
+    /// <summary>Detects the operating points of a whole day of block means (times in s, one block apart).</summary>
+    /// <param name="timesS">Block centre times, s.</param>
+    /// <param name="channels">Key and step-marker channels with their block means.</param>
+    /// <param name="settings">Detection settings.</param>
+    /// <param name="blockS">Block width, s; null to take it from the first two times (at least two blocks).</param>
+    public static SteadyDetectionResult Detect(IReadOnlyList<double> timesS, IReadOnlyList<KeyChannel> channels, SteadySettings settings, double? blockS = null)
     {
         ArgumentNullException.ThrowIfNull(timesS);
         ArgumentNullException.ThrowIfNull(channels);
         ArgumentNullException.ThrowIfNull(settings);
-        ValidateLimits(channels, settings);
-        var n = timesS.Count;
-        var t = timesS.ToArray();
-        var block = n > 1 ? (t[^1] - t[0]) / (n - 1) : 1.0;
-        var half = Math.Max(3, (int)Math.Round(StepHalfWindowS / block));
-        var clean = channels.Select(c => BlockDespike.Apply(c.Values)).ToArray();
-        var noise = clean.Select(StepFinder.Noise).ToArray();
-        var thresholds = channels.Select((c, i) => StepThreshold(c, clean[i], noise[i], half)).ToArray();
-        var markers = Enumerable.Range(0, channels.Count).Where(i => channels[i].MarksSteps).ToArray();
-        var steps = StepFinder.Find(markers.Select(i => clean[i]).ToArray(), markers.Select(i => thresholds[i]).ToArray(), markers.Select(i => noise[i]).ToArray(), half);
-        var keys = Enumerable.Range(0, channels.Count).Where(i => !channels[i].StepOnly).ToArray();
-        var keyClean = keys.Select(i => clean[i]).ToArray();
-
-        var accepted = new List<(SteadyWindow Window, int Plateau, bool Immediate)>();
-        var rejected = new List<RejectedStretch>();
-        var bounds = new List<int> { 0 };
-        bounds.AddRange(steps.Where(k => k > 0 && k < n));
-        bounds.Add(n);
-        for (var p = 0; p + 1 < bounds.Count; p++)
+        foreach (var channel in channels)
         {
-            var first = bounds[p];
-            // The block before a step may already hold its first samples: it is left out.
-            var last = p + 2 < bounds.Count ? bounds[p + 1] - 2 : n - 1;
-            if (last - first < 4)
+            if (channel.Values.Count != timesS.Count)
             {
-                continue;
+                throw new ArgumentException(Format($"channel '{channel.Name}' has {channel.Values.Count} values for {timesS.Count} times."), nameof(channels));
             }
-            var startS = t[first] - (block / 2);
-            var endS = t[last] + (block / 2);
-            var criteria = new List<ChannelCriteria>();
-            var settledS = startS;
-            var notSettled = new List<string>();
-            foreach (var c in keys)
-            {
-                var (since, fitted, remainingAtEnd, tolerance) = Settle(t, clean[c], channels[c], settings, noise[c], first, last, startS);
-                settledS = Math.Max(settledS, since);
-                if (remainingAtEnd > tolerance)
-                {
-                    notSettled.Add(Format($"{channels[c].Name}: predicted remaining change {remainingAtEnd:G3} > tolerance {tolerance:G3} at the plateau's end (τ = {fitted?.TauS ?? double.NaN:F0} s)"));
-                }
-                criteria.Add(new ChannelCriteria(channels[c].Name, double.NaN, double.NaN, double.NaN, double.NaN, channels[c].DriftLimitPerS, double.NaN,
-                    channels[c].ScatterLimit, double.NaN, double.NaN, double.NaN, [])
-                {
-                    TauS = fitted?.TauS ?? double.NaN, Tolerance = tolerance, SettledSinceS = since,
-                    // What the fitted curve still travels from the settled moment to the plateau's end: the quantity
-                    // the tolerance is held against (with a drift, not quite the distance to the asymptote).
-                    RemainingChange = fitted is null || !double.IsFinite(since) ? double.NaN
-                        : Math.Abs(fitted.ValueAt(Math.Max(since, startS)) - fitted.ValueAt(endS)),
-                });
-            }
-            var from = first;
-            while (from <= last && t[from] - (block / 2) < settledS - 1e-9)
-            {
-                from++;
-            }
-            var to = from < last ? TrimTrailingDeparture(t, keyClean, from, last, settings) : last;
-            var settledFor = from > last ? 0 : t[to] + (block / 2) - (t[from] - (block / 2));
-            if (notSettled.Count > 0 || from > last || endS - startS < settings.MinStretchS || settledFor < settings.WindowS)
-            {
-                var reason = notSettled.Count > 0
-                    ? "still settling: " + string.Join("; ", notSettled)
-                    : endS - startS < settings.MinStretchS
-                        ? Format($"{SteadyCriterion.Duration}: plateau of {endS - startS:F0} s, shorter than the minimum {settings.MinStretchS} s")
-                        : Format($"{SteadyCriterion.Duration}: settled for {settledFor:F0} s (from {settledS:F0} s), shorter than the test window {settings.WindowS} s");
-                rejected.Add(new RejectedStretch(startS, endS, Math.Min(settledS, endS), endS, reason, criteria));
-                continue;
-            }
-            var winStart = t[from] - (block / 2);
-            var winEnd = t[to] + (block / 2);
-            var evaluated = new List<ChannelCriteria>();
-            var failures = new List<CriterionFailure>();
-            for (var k = 0; k < keys.Length; k++)
-            {
-                var c = keys[k];
-                var (dc, _) = DriftScatter(t, clean[c], channels[c], settings, from, to);
-                // The drift rule is replaced by the settling estimate; scatter, range and coverage still apply.
-                var kept = dc.Failures.Where(f => f.Criterion is SteadyCriterion.Scatter or SteadyCriterion.Range or SteadyCriterion.Coverage).ToList();
-                failures.AddRange(kept);
-                var fit = criteria[k];
-                evaluated.Add(dc with
-                {
-                    Failures = kept, TauS = fit.TauS, Tolerance = fit.Tolerance, SettledSinceS = fit.SettledSinceS,
-                    RemainingChange = fit.RemainingChange,
-                });
-            }
-            if (failures.Count > 0)
-            {
-                rejected.Add(new RejectedStretch(startS, endS, winStart, winEnd, "closest window still failed: " + string.Join("; ", failures.Select(f => f.Description)), evaluated));
-                continue;
-            }
-            var window = new SteadyWindow(winStart, winEnd, startS, endS, SteadyMethod.DriftScatter | SteadyMethod.Settling, evaluated);
-            accepted.Add((window, p, from == first));
         }
-        return new SteadyDetectionResult(Merge(accepted, keys, thresholds), rejected);
+        var scan = new PlateauScan(channels, settings, blockS ?? (timesS.Count > 1 ? timesS[1] - timesS[0] : 1.0));
+        var row = new double[channels.Count];
+        for (var i = 0; i < timesS.Count; i++)
+        {
+            for (var c = 0; c < channels.Count; c++)
+            {
+                row[c] = channels[c].Values[i];
+            }
+            scan.Append(timesS[i], row);
+        }
+        return scan.Finish();
     }
 
-    /// <summary>Joins a window to the previous plateau's when no approach separates them and the means agree.</summary>
-    private static List<SteadyWindow> Merge(List<(SteadyWindow Window, int Plateau, bool Immediate)> accepted, int[] keys, double[] thresholds)
+    /// <summary>What became of one plateau: its window (and whether it was settled from its first block), or why not.</summary>
+    internal sealed record PlateauOutcome(SteadyWindow? Accepted, bool Immediate, RejectedStretch? Rejected);
+
+    /// <summary>
+    /// Judges the plateau of blocks [first, last]: settling fit of each key channel, the window from the last
+    /// settled moment to the plateau's end (less a trailing departure), then duration, scatter, range and coverage.
+    /// Reads the blocks of the plateau only, and <paramref name="noise"/> (per channel, of the day up to the plateau's end).
+    /// </summary>
+    internal static PlateauOutcome Judge(double[] t, double[][] clean, IReadOnlyList<KeyChannel> channels, int[] keys, SteadySettings settings, double block,
+        double[] noise, int first, int last)
     {
-        var result = new List<(SteadyWindow Window, int Plateau)>();
-        foreach (var (window, plateau, immediate) in accepted)
+        var startS = t[first] - (block / 2);
+        var endS = t[last] + (block / 2);
+        var criteria = new List<ChannelCriteria>();
+        var settledS = startS;
+        var notSettled = new List<string>();
+        foreach (var c in keys)
         {
-            if (result.Count > 0 && immediate && result[^1].Plateau == plateau - 1 && SameLevel(result[^1].Window, window, keys, thresholds))
+            var (since, fitted, remainingAtEnd, tolerance) = Settle(t, clean[c], channels[c], settings, noise[c], first, last, startS, block);
+            settledS = Math.Max(settledS, since);
+            if (remainingAtEnd > tolerance)
             {
-                var previous = result[^1].Window;
-                result[^1] = (previous with { EndS = window.EndS, StretchEndS = window.StretchEndS }, plateau);
-                continue;
+                notSettled.Add(Format($"{channels[c].Name}: predicted remaining change {remainingAtEnd:G3} > tolerance {tolerance:G3} at the plateau's end (τ = {fitted?.TauS ?? double.NaN:F0} s)"));
             }
-            result.Add((window, plateau));
+            criteria.Add(new ChannelCriteria(channels[c].Name, double.NaN, double.NaN, double.NaN, double.NaN, channels[c].DriftLimitPerS, double.NaN,
+                channels[c].ScatterLimit, double.NaN, double.NaN, double.NaN, [])
+            {
+                TauS = fitted?.TauS ?? double.NaN, Tolerance = tolerance, SettledSinceS = since,
+                // What the fitted curve still travels from the settled moment to the plateau's end: the quantity
+                // the tolerance is held against (with a drift, not quite the distance to the asymptote).
+                RemainingChange = fitted is null || !double.IsFinite(since) ? double.NaN
+                    : Math.Abs(fitted.ValueAt(Math.Max(since, startS)) - fitted.ValueAt(endS)),
+            });
         }
-        return result.Select(r => r.Window).ToList();
+        var from = first;
+        while (from <= last && t[from] - (block / 2) < settledS - 1e-9)
+        {
+            from++;
+        }
+        var keyClean = keys.Select(c => clean[c]).ToArray();
+        var to = from < last ? TrimTrailingDeparture(t, keyClean, from, last, settings) : last;
+        var settledFor = from > last ? 0 : t[to] + (block / 2) - (t[from] - (block / 2));
+        if (notSettled.Count > 0 || from > last || endS - startS < settings.MinStretchS || settledFor < settings.WindowS)
+        {
+            var reason = notSettled.Count > 0
+                ? "still settling: " + string.Join("; ", notSettled)
+                : endS - startS < settings.MinStretchS
+                    ? Format($"{SteadyCriterion.Duration}: plateau of {endS - startS:F0} s, shorter than the minimum {settings.MinStretchS} s")
+                    : Format($"{SteadyCriterion.Duration}: settled for {settledFor:F0} s (from {settledS:F0} s), shorter than the test window {settings.WindowS} s");
+            return new PlateauOutcome(null, false, new RejectedStretch(startS, endS, Math.Min(settledS, endS), endS, reason, criteria));
+        }
+        var winStart = t[from] - (block / 2);
+        var winEnd = t[to] + (block / 2);
+        var evaluated = new List<ChannelCriteria>();
+        var failures = new List<CriterionFailure>();
+        for (var k = 0; k < keys.Length; k++)
+        {
+            var c = keys[k];
+            var (dc, _) = DriftScatter(t, clean[c], channels[c], settings, from, to);
+            // The drift rule is replaced by the settling estimate; scatter, range and coverage still apply.
+            var kept = dc.Failures.Where(f => f.Criterion is SteadyCriterion.Scatter or SteadyCriterion.Range or SteadyCriterion.Coverage).ToList();
+            failures.AddRange(kept);
+            var fit = criteria[k];
+            evaluated.Add(dc with
+            {
+                Failures = kept, TauS = fit.TauS, Tolerance = fit.Tolerance, SettledSinceS = fit.SettledSinceS,
+                RemainingChange = fit.RemainingChange,
+            });
+        }
+        if (failures.Count > 0)
+        {
+            return new PlateauOutcome(null, false, new RejectedStretch(startS, endS, winStart, winEnd,
+                "closest window still failed: " + string.Join("; ", failures.Select(f => f.Description)), evaluated));
+        }
+        return new PlateauOutcome(new SteadyWindow(winStart, winEnd, startS, endS, SteadyMethod.DriftScatter | SteadyMethod.Settling, evaluated), from == first, null);
     }
 
-    private static bool SameLevel(SteadyWindow a, SteadyWindow b, int[] keys, double[] thresholds)
+    /// <summary>Whether every key channel's means of two windows agree within its step threshold.</summary>
+    internal static bool SameLevel(SteadyWindow a, SteadyWindow b, int[] keys, double[] thresholds)
     {
         for (var k = 0; k < keys.Length; k++)
         {
@@ -176,10 +166,13 @@ public static class PlateauDetector
         return true;
     }
 
-    private static double StepThreshold(KeyChannel channel, double[] clean, double noise, int half)
+    /// <summary>
+    /// A channel's step threshold: the larger of 16 noise standard deviations of a mean difference, twice a key's
+    /// tolerance at its level (a hundredth of the level on a step marker), and the threshold written in the rig file.
+    /// </summary>
+    internal static double StepThreshold(KeyChannel channel, double level, double noise, int half)
     {
         var fromNoise = StepNoiseSigmas * noise * Math.Sqrt(2.0 / half);
-        var level = MedianAbs(clean);
         var floor = channel.StepOnly ? 0.01 * level : channel.Tolerance is { } tolerance ? 2.0 * tolerance(level) : 0.0;
         var threshold = Math.Max(fromNoise, floor);
         if (double.IsFinite(channel.StepThreshold))
@@ -190,7 +183,7 @@ public static class PlateauDetector
     }
 
     private static (double SettledS, SettlingFit? Fit, double RemainingAtEnd, double Tolerance) Settle(double[] t, double[] y, KeyChannel channel, SteadySettings settings,
-        double noise, int first, int last, double startS)
+        double noise, int first, int last, double startS, double block)
     {
         var span = t.AsSpan(first, last - first + 1);
         var values = y.AsSpan(first, last - first + 1);
@@ -209,7 +202,6 @@ public static class PlateauDetector
         {
             return (double.PositiveInfinity, null, double.PositiveInfinity, tolerance);
         }
-        var block = t.Length > 1 ? t[1] - t[0] : 1.0;
         var fit = SettlingEstimate.Fit(span, values, startS, block, Math.Max(4 * (t[last] - startS), 10 * block), withDrift: true);
         var endS = t[last] + (block / 2);
         if ((fit.TauAtBound || fit.TauS > endS - startS) && fit.TauS > block * 2)
@@ -283,9 +275,17 @@ public static class PlateauDetector
         return filled;
     }
 
-    private static double MedianAbs(double[] values)
+    /// <summary>Median of the absolute finite values: a channel's level.</summary>
+    internal static double MedianAbs(IReadOnlyList<double> values)
     {
         var finite = values.Where(double.IsFinite).Select(Math.Abs).ToList();
         return finite.Count == 0 ? 0.0 : BlockDespike.Median(finite);
+    }
+
+    /// <summary>The 99th percentile of the absolute finite values: a channel's largest level, robust to a stray block.</summary>
+    internal static double Percentile99(IReadOnlyList<double> values)
+    {
+        var finite = values.Where(double.IsFinite).Select(Math.Abs).Order().ToArray();
+        return finite.Length == 0 ? 0.0 : finite[(int)Math.Floor(0.99 * (finite.Length - 1))];
     }
 }

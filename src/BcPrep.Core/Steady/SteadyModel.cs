@@ -1,3 +1,5 @@
+using BcPrep.Values;
+
 namespace BcPrep.Steady;
 
 /// <summary>Methods that can accept a steady window (flags: an accepted window lists all that passed).</summary>
@@ -71,6 +73,13 @@ public sealed record KeyChannel(string Name, IReadOnlyList<double> Values, doubl
     /// level (a tolerance may be a percentage of reading); null: DriftLimitPerS × the test window.
     /// </summary>
     public Func<double, double>? Tolerance { get; init; }
+
+    /// <summary>
+    /// When set, the channel's operating minimum is this fraction of its largest level over the whole day (the 99th
+    /// percentile of its block means), applied once the day has ended (<see cref="PlateauScan"/>); null for none
+    /// beyond <see cref="MinimumValue"/>.
+    /// </summary>
+    public double? RestFractionOfLargest { get; init; }
 
     /// <summary>
     /// True for a channel that only marks set-point steps (a heater's voltage or current: it jumps the moment the
@@ -149,7 +158,20 @@ public sealed record ChannelCriteria(
 /// An accepted operating point: the averaging window [StartS, EndS] (the settled tail), the steady stretch it came from,
 /// the methods that passed, and per-channel criterion values on the averaging window.
 /// </summary>
-public sealed record SteadyWindow(double StartS, double EndS, double StretchStartS, double StretchEndS, SteadyMethod AcceptedBy, IReadOnlyList<ChannelCriteria> Channels);
+public sealed record SteadyWindow(double StartS, double EndS, double StretchStartS, double StretchEndS, SteadyMethod AcceptedBy, IReadOnlyList<ChannelCriteria> Channels)
+{
+    /// <summary>The averaging window's start, typed: detection counts from the day's first sample.</summary>
+    public DaySeconds Start => new(StartS);
+
+    /// <summary>The averaging window's end, typed.</summary>
+    public DaySeconds End => new(EndS);
+
+    /// <summary>The steady stretch's start, typed.</summary>
+    public DaySeconds StretchStart => new(StretchStartS);
+
+    /// <summary>The steady stretch's end, typed.</summary>
+    public DaySeconds StretchEnd => new(StretchEndS);
+}
 
 /// <summary>
 /// A stretch that was not accepted, with the reason per channel. For a run of failing test windows the criteria

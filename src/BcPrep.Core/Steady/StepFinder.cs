@@ -73,7 +73,7 @@ public static class StepFinder
     }
 
     /// <summary>The first block in [peak − h, peak] that left the level of the blocks before it (their median).</summary>
-    private static int Onset(double[] y, int peak, double noise, int half)
+    internal static int Onset(double[] y, int peak, double noise, int half)
     {
         var before = new List<double>();
         for (var i = Math.Max(0, peak - (3 * half)); i < peak - half; i++)
@@ -98,11 +98,14 @@ public static class StepFinder
         return peak;
     }
 
-    private static double Mean(double[] y, int from, int to)
+    private static double Mean(double[] y, int from, int to) => Mean(y, y.Length, from, to);
+
+    /// <summary>Mean of the finite blocks in [from, to) of the first <paramref name="length"/>; NaN when fewer than half are finite.</summary>
+    internal static double Mean(double[] y, int length, int from, int to)
     {
         var sum = 0.0;
         var count = 0;
-        for (var i = Math.Max(0, from); i < Math.Min(y.Length, to); i++)
+        for (var i = Math.Max(0, from); i < Math.Min(length, to); i++)
         {
             if (double.IsFinite(y[i]))
             {

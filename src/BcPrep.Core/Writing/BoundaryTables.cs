@@ -12,23 +12,33 @@ namespace BcPrep.Writing;
 /// </summary>
 public static class BoundaryTables
 {
-    /// <summary>Quantities repeated in the summary, in this order.</summary>
-    public static readonly string[] SummaryQuantities =
+    /// <summary>Quantities repeated in the summary, in this order: entries of the one quantity table, which gives each its name and unit.</summary>
+    public static readonly IReadOnlyList<ScalarOutput> SummaryQuantities =
     [
-        .. new[]
-        {
-            PointOutputs.MassFlow, PointOutputs.InletBulkVelocity, PointOutputs.Reynolds, PointOutputs.InletTemperature, PointOutputs.OutletTemperature,
-            PointOutputs.InletStaticPressure, PointOutputs.OutletStaticPressure, PointOutputs.HeaterPower, PointOutputs.WallHeatFlux,
-            PointOutputs.EnergyBalanceMismatch,
-        }.Select(o => o.Name),
+        PointOutputs.MassFlow, PointOutputs.InletBulkVelocity, PointOutputs.Reynolds, PointOutputs.InletTemperature, PointOutputs.OutletTemperature,
+        PointOutputs.InletStaticPressure, PointOutputs.OutletStaticPressure, PointOutputs.HeaterPower, PointOutputs.WallHeatFlux,
+        PointOutputs.EnergyBalanceMismatch,
     ];
+
+    /// <summary>Quantities that join the summary, after the outlet temperature, only when a point of the day has them (a rake's mixing-cup temperatures).</summary>
+    public static readonly IReadOnlyList<ScalarOutput> OptionalSummaryQuantities = [PointOutputs.InletMixingCupTemperature, PointOutputs.OutletMixingCupTemperature];
+
+    /// <summary>The summary's quantities for this day: <see cref="SummaryQuantities"/>, with the optional ones some point defines.</summary>
+    public static IReadOnlyList<ScalarOutput> SummaryQuantitiesOf(DayResult day)
+    {
+        var quantities = SummaryQuantities.ToList();
+        var present = OptionalSummaryQuantities.Where(q => day.Points.Any(p => p.Output(q) is not null)).ToList();
+        quantities.InsertRange(quantities.IndexOf(PointOutputs.OutletTemperature) + 1, present);
+        return quantities;
+    }
 
     public static CsvTable Summary(DayResult day)
     {
         var header = new List<string> { "point", "origin", "start [s]", "end [s]", "duration [s]" };
-        foreach (var name in SummaryQuantities)
+        var quantities = SummaryQuantitiesOf(day);
+        foreach (var quantity in quantities)
         {
-            var unit = UnitOf(day, name);
+            var (name, unit) = (quantity.Name, quantity.Unit);
             header.AddRange([$"{name} [{unit}]", $"u({name}) [{unit}]", $"U({name}) [{unit}]", $"k({name})"]);
         }
         header.AddRange(["checks", "warnings", "conditioning"]);
@@ -39,11 +49,11 @@ public static class BoundaryTables
             var row = new List<object?>
             {
                 point.Id, point.Origin == WindowOrigin.RigFile ? "rig file" : "detected",
-                point.Window.StartS - day.DayStartS, point.Window.EndS - day.DayStartS, point.Window.DurationS,
+                day.Start.Since(point.Window.Start).Value, day.Start.Since(point.Window.End).Value, point.Window.DurationS,
             };
-            foreach (var name in SummaryQuantities)
+            foreach (var quantity in quantities)
             {
-                var output = point.Output(name);
+                var output = point.Output(quantity);
                 row.AddRange([output?.Estimate ?? double.NaN, output?.StandardUncertainty ?? double.NaN, output?.ExpandedUncertainty ?? double.NaN, output?.CoverageFactor ?? double.NaN]);
             }
             row.Add(string.Join("; ", point.Checks.Select(c => $"{c.Name}: {(c.Passed ? "pass" : "warn")}")));
@@ -68,7 +78,7 @@ public static class BoundaryTables
                 ? "temperature uniform: the inlet bulk temperature"
                 : "temperature interpolated linearly from the radial rake, nearest rake value held beyond its ends" + (rake.ClampedPointCount > 0 ? $" ({rake.ClampedPointCount} points)" : ""))
             .Comment(InletTurbulence.ConventionDescription)
-            .Comment("u(...) is the standard uncertainty propagated from the measurements; the profile shape model and the turbulence correlations carry no model-form uncertainty here");
+            .Comment("u(...) is the standard uncertainty propagated from the measurements and the model-form terms of the budget: the power-law exponent (when the power law is used), the turbulence-intensity correlation (when no intensity is given) and the property models");
         var k = point.Output(PointOutputs.TurbulentKineticEnergy);
         var eps = point.Output(PointOutputs.DissipationRate);
         var omega = point.Output(PointOutputs.SpecificDissipationRate);
@@ -85,7 +95,41 @@ public static class BoundaryTables
     }
 
     public static CsvTable OutletPlane(PointResult point) =>
-        Scalars(point, [PointOutputs.OutletStaticPressure.Name, PointOutputs.OutletTemperature.Name], $"BcPrep outlet plane; point {point.Id}; absolute static pressure");
+        Scalars(point, [PointOutputs.OutletStaticPressure, PointOutputs.OutletTemperature, PointOutputs.OutletMixingCupTemperature],
+            $"BcPrep outlet plane; point {point.Id}; absolute static pressure" + (point.Output(PointOutputs.OutletMixingCupTemperature) is null ? ""
+                : point.Model.HasPlainOutletTemperature ? "; outlet.temperature from the outlet channel, the rake's mixing-cup temperature beside it"
+                : "; outlet.temperature is the rake's mixing-cup temperature"));
+
+    /// <summary>
+    /// The temperature rakes of planes other than the inlet (the inlet's is in the inlet profile): per plane and radius
+    /// the temperature with its uncertainty and the mass flux ρu that weights it; null when the point has none.
+    /// </summary>
+    public static CsvTable? Rakes(PointResult point)
+    {
+        if (point.Model.RakePlanes.Count == 0)
+        {
+            return null;
+        }
+        var table = new CsvTable(["plane", "r [m]", "temperature [K]", "u(temperature) [K]", "U(temperature) [K]", "mass_flux [kg/(m2 s)]"])
+            .Comment($"BcPrep temperature rakes; point {point.Id}; temperature interpolated linearly between the rake sensors, nearest value held beyond the rake's ends")
+            .Comment("mass_flux = rho u of the velocity model at the plane's Reynolds number (viscosity at the rake's area mean), scaled to the measured mass flow; mixing-cup temperature = integral of rho u cp T dA over integral of rho u cp dA (trapezoid rule on this grid)");
+        foreach (var rake in point.Nominal.Rakes.Where(r => point.Model.RakePlanes.Contains(r.Plane)))
+        {
+            var cup = point.Output(PointOutputs.MixingCupTemperature(rake.Plane));
+            var exponent = double.IsNaN(rake.Velocity.PowerLawExponent) ? "" : string.Create(CultureInfo.InvariantCulture, $", n = {rake.Velocity.PowerLawExponent:R}");
+            var clamped = rake.Temperature.ClampedPointCount > 0 ? $"; {rake.Temperature.ClampedPointCount} points hold the nearest rake value" : "";
+            table.Comment(string.Create(CultureInfo.InvariantCulture,
+                $"{rake.Plane}: mixing-cup temperature {cup?.Estimate ?? rake.MixingCupK:R} K, u {cup?.StandardUncertainty ?? double.NaN:R} K, U {cup?.ExpandedUncertainty ?? double.NaN:R} K; area mean {rake.AreaMeanK:R} K; velocity model {ChoiceSpelling.Name(rake.Velocity.ModelUsed)}{exponent}{clamped}"));
+            var radii = rake.Temperature.Profile.RadiusM;
+            for (var i = 0; i < radii.Length; i++)
+            {
+                var t = point.Output(ProfileOutputs.PlaneTemperature(rake.Plane, i));
+                table.Add(rake.Plane, radii[i], t?.Estimate ?? rake.Temperature.Profile.Values[i], t?.StandardUncertainty ?? double.NaN, t?.ExpandedUncertainty ?? double.NaN,
+                    rake.MassFluxKgPerM2S.Values[i]);
+            }
+        }
+        return table;
+    }
 
     public static CsvTable Wall(PointResult point, DayResult day)
     {
@@ -101,7 +145,7 @@ public static class BoundaryTables
         }
         for (var i = 0; i < point.Model.WallGridM.Length; i++)
         {
-            var t = point.Output($"{ProfileOutputs.WallGridPrefix}{i}");
+            var t = point.Output(ProfileOutputs.WallGrid(i));
             table.Add(point.Model.WallGridM[i], "interpolated", t?.Estimate ?? double.NaN, t?.StandardUncertainty ?? double.NaN, t?.ExpandedUncertainty ?? double.NaN,
                 flux?.Estimate ?? double.NaN, flux?.StandardUncertainty ?? double.NaN);
         }
@@ -109,14 +153,14 @@ public static class BoundaryTables
     }
 
     /// <summary>Every scalar output of a point (profile points excluded) with value and uncertainty.</summary>
-    public static CsvTable Scalars(PointResult point, IReadOnlyCollection<string>? only = null, string? comment = null)
+    public static CsvTable Scalars(PointResult point, IReadOnlyCollection<ScalarOutput>? only = null, string? comment = null)
     {
         var table = new CsvTable(["quantity", "unit", "value", "standard_uncertainty", "expanded_uncertainty", "coverage_factor", "degrees_of_freedom", "description"])
             .Comment(comment ?? $"BcPrep scalars; point {point.Id}");
         for (var i = 0; i < point.Model.Outputs.Count; i++)
         {
             var definition = point.Model.Outputs[i];
-            if (ProfileOutputs.IsProfilePoint(definition.Name) || (only is not null && !only.Contains(definition.Name)))
+            if (definition.Kind == QuantityKind.ProfilePoint || (only is not null && !only.Any(o => o.Name == definition.Name)))
             {
                 continue;
             }
@@ -137,7 +181,7 @@ public static class BoundaryTables
         for (var i = 0; i < point.Model.Outputs.Count; i++)
         {
             var definition = point.Model.Outputs[i];
-            if ((!includeProfile && ProfileOutputs.IsProfilePoint(definition.Name)) || (quantity is not null && !quantity(definition.Name)))
+            if ((!includeProfile && definition.Kind == QuantityKind.ProfilePoint) || (quantity is not null && !quantity(definition.Name)))
             {
                 continue;
             }
@@ -149,9 +193,6 @@ public static class BoundaryTables
         }
         return table;
     }
-
-    private static string UnitOf(DayResult day, string name) =>
-        day.Points.SelectMany(p => p.Model.Outputs).FirstOrDefault(o => o.Name == name)?.Unit ?? "";
 
     private static double Dof(double nu) => double.IsPositiveInfinity(nu) ? double.NaN : nu;
 }

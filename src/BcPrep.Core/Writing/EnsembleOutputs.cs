@@ -29,7 +29,7 @@ public static class EnsembleOutputs
         ArgumentNullException.ThrowIfNull(day);
         ArgumentNullException.ThrowIfNull(point);
         ArgumentNullException.ThrowIfNull(request);
-        var scalars = Enumerable.Range(0, point.Model.Outputs.Count).Where(i => !ProfileOutputs.IsProfilePoint(point.Model.Outputs[i].Name)).ToArray();
+        var scalars = Enumerable.Range(0, point.Model.Outputs.Count).Where(i => point.Model.Outputs[i].Kind != QuantityKind.ProfilePoint).ToArray();
         var index = IndexTable(point, request, scalars);
         var inputs = InputsTable(point);
         var written = 0;

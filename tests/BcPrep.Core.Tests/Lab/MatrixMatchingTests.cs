@@ -45,6 +45,21 @@ public class MatrixMatchingTests
     }
 
     [Fact]
+    public void Values_in_the_nearest_row_message_are_written_for_a_person_never_in_e_notation()
+    {
+        // MeasurementText (common practice): four significant digits, a power of ten beyond six decimals, never "E-05";
+        // five-digit integers grouped by U+202F (SI Brochure 5.4.4).
+        var plan = Plan with { Rows = [Row("tiny", 8, (0.00002, 0.000001), (12000, 30))] };
+
+        var report = MatrixMatching.Match(plan, [Point("OP1", 0.0000215, 12345.67)]);
+
+        var warning = Assert.Single(report.Warnings, w => w.Contains("'OP1'", StringComparison.Ordinal));
+        Assert.Contains("mass_flow = 2.15 × 10⁻⁵ (planned 2 × 10⁻⁵ ± 1 × 10⁻⁶)", warning, StringComparison.Ordinal);
+        Assert.Contains("heater_power = 12\u202F350 (planned 12\u202F000 ± 30)", warning, StringComparison.Ordinal);
+        Assert.DoesNotContain("E-", warning, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Edge_of_the_tolerance_band_still_matches()
     {
         var report = MatrixMatching.Match(Plan, [Point("OP1", 0.020, 630)]);

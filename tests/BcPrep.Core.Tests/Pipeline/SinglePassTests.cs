@@ -20,15 +20,15 @@ public class SinglePassTests
         var twoPasses = DayProcessor.Process(rig, SampleDay(), new ProcessOptions { SinglePass = false });
 
         Assert.Equal(3, single.Points.Count);
-        // The live scan is off while it applies another rule than the day's plateau detection (DayProcessor.ReadsLive):
-        // the windows are read again, with the same results.
-        Assert.Equal(3, single.WindowsReadAgain);
+        // The plateau detection ran during the read and every window came from the kept rows: none is read again.
+        Assert.Equal(0, single.WindowsReadAgain);
+        Assert.Equal(0, single.SecondPassSeeks);
         Assert.Equal(3, twoPasses.WindowsReadAgain);
         AssertSamePoints(twoPasses, single);
     }
 
     // Reference: the two-pass reduction again. Rows are kept in whole read blocks (8192 rows, 819 s at 10 Hz); with
-    // no span asked beyond that, a window whose first block was dropped before its stretch was judged is read again.
+    // no span asked beyond that, a window whose first block was dropped before it was final is read again.
     [Fact]
     public void Windows_the_kept_rows_no_longer_cover_are_read_again()
     {
@@ -64,7 +64,7 @@ public class SinglePassTests
         var twoPasses = DayProcessor.Process(rig, SampleDay(), new ProcessOptions { SinglePass = false });
 
         Assert.Equal(3, single.Points.Count);
-        Assert.Equal(3, single.WindowsReadAgain); // the live scan is off (DayProcessor.ReadsLive)
+        Assert.Equal(0, single.WindowsReadAgain);
         AssertSamePoints(twoPasses, single);
     }
 
