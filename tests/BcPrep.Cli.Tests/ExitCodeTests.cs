@@ -53,7 +53,7 @@ public sealed class ExitCodeTests
     {
         using var temp = new TempFolder();
         var rig = temp.File("rig.toml");
-        File.WriteAllText(rig, File.ReadAllText(SampleDay.Rig).Replace("inner_diameter = \"52.5 mm\"", "inner_diameter = \"52.5 mn\"", StringComparison.Ordinal));
+        File.WriteAllText(rig, File.ReadAllText(SampleDay.BundledRig).Replace("inner_diameter = \"52.5 mm\"", "inner_diameter = \"52.5 mn\"", StringComparison.Ordinal));
 
         var check = CliRunner.Run("check", rig);
         var process = CliRunner.Run("process", rig, SampleDay.Morning, "--out", temp.File("out"));

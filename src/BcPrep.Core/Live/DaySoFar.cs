@@ -137,6 +137,7 @@ public sealed class DaySoFar
         var dayStartS = _day.DayStartS;
         _book.DrainInto(_stats, lost: _lost);
         var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, _extent.FirstS, _extent.LastS), _options.AllowExpired);
+        _day.Feed.Settle(); // the blocks the de-spiking holds back belong to the day so far
         var series = WindowFinder.Series(rig, _day.Blocks);
         // The pinned windows the logs have passed: their samples were handed over whole during the scan.
         var pinned = _day.Pinned.Where(w => _stats.ContainsKey(w.Id) || _lost.ContainsKey(w.Id)).ToList();

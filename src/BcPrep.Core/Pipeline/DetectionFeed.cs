@@ -33,6 +33,13 @@ internal sealed class DetectionFeed
             : new DetectionFeed(blocks, null, new DespikedBlockFeed(rig, blocks));
     }
 
+    /// <summary>
+    /// Averages the blocks the de-spiking still holds back, so that the block means so far are complete, and lets the
+    /// scan go on (a block that continues is then added to in parts); for <c>follow</c>'s day so far. The conditioning
+    /// chain's chunk is left as it is.
+    /// </summary>
+    public void Settle() => _despiked?.Complete();
+
     /// <summary>Flushes the rows and blocks still held back by the chunking; call after the scan.</summary>
     public void Complete()
     {
