@@ -142,12 +142,12 @@ public sealed class DaySoFar
         var pinned = _day.Pinned.Where(w => _stats.ContainsKey(w.Id) || _lost.ContainsKey(w.Id)).ToList();
         var tareWindows = _day.TareWindows.Where(w => _stats.ContainsKey(w.Id)).ToList();
         SteadyDetectionResult? detection = null;
-        if (WindowFinder.IsEnabled(rig) || pinned.Count == 0)
+        if (WindowFinder.IsEnabled(rig) || _day.Pinned.Count == 0)
         {
             WindowFinder.RequireBlocks(rig, series);
             detection = WindowFinder.Detect(rig, series, dayStartS);
         }
-        var windowPlan = PointWindows.Plan(pinned, detection, dayStartS);
+        var windowPlan = PointWindows.Plan(pinned, detection, _day.Start);
         if (windowPlan.Points.Count == 0)
         {
             throw new BcPrepFailure(FailureKind.NoSteadyPoint, WindowFinder.NoSteadyProblems(rig, detection!));
@@ -188,7 +188,7 @@ public sealed class DaySoFar
         }
         else if (detection is not null)
         {
-            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, dayStartS));
+            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, _day.Start));
         }
         var tareStats = DayProcessor.TareStats(tareWindows, stats);
         var endTares = DayProcessor.EndTares(tareWindows, stats);

@@ -79,7 +79,7 @@ public static class DetectionEvidenceJson
             return;
         }
         var pinned = day.Rig.Points.Select(p => new TimeWindow(p.Id, day.Start.Resolve(p.Start).Value, day.Start.Resolve(p.End).Value)).ToList();
-        var planned = PointWindows.Plan(pinned, day.Detection, day.Start.FirstSample.Value).Points.FirstOrDefault(p => p.Window.Id == point.Id);
+        var planned = PointWindows.Plan(pinned, day.Detection, day.Start).Points.FirstOrDefault(p => p.Window.Id == point.Id);
         json.WriteStartObject("detection");
         json.WriteString("relation", point.Origin == WindowOrigin.Detected ? "this window" : "detected windows replaced by the pinned window");
         json.WriteStartArray("windows");
