@@ -68,6 +68,7 @@ public static class FollowCommand
                 stop.Cancel();
             };
             Console.CancelKeyPress += onCancel;
+            var reportedAtS = double.NaN;
             try
             {
                 var clock = Stopwatch.StartNew();
@@ -77,10 +78,6 @@ public static class FollowCommand
                 while (!stop.IsCancellationRequested)
                 {
                     var lines = follower.Poll();
-                    if (lines.Count > 0)
-                    {
-                        lastRow = clock.Elapsed;
-                    }
                     foreach (var line in lines)
                     {
                         if (monitor.Feed(line) is { } finished)
@@ -89,16 +86,25 @@ public static class FollowCommand
                             reducer.ReduceSoFar();
                         }
                     }
+                    if (lines.Count > 0)
+                    {
+                        // Idle time counts from the end of the work on the last rows: a long reduction is no idle logger.
+                        lastRow = clock.Elapsed;
+                    }
                     if (!double.IsNaN(monitor.NowS) && (clock.Elapsed - lastReport).TotalSeconds >= intervalS)
                     {
                         lastReport = clock.Elapsed;
+                        reportedAtS = monitor.NowS;
                         Report(context, writeJson, description, monitor.Report(monitor.NowS));
                     }
                     if (idleS is { } limit && (clock.Elapsed - lastRow).TotalSeconds >= limit)
                     {
                         break;
                     }
-                    stop.Token.WaitHandle.WaitOne(pollEvery);
+                    if (!follower.HasMore)
+                    {
+                        stop.Token.WaitHandle.WaitOne(pollEvery);
+                    }
                 }
             }
             finally
@@ -115,8 +121,9 @@ public static class FollowCommand
                 diagnostics.Info($"{logFolder}: no log file matching '{parse.GetValue(pattern)}' appeared; nothing to reduce");
                 return ExitCodes.Success;
             }
-            if (!double.IsNaN(monitor.NowS))
+            if (!double.IsNaN(monitor.NowS) && monitor.NowS != reportedAtS)
             {
+                // The state at the last row, unless the loop's last report already gave it.
                 Report(context, writeJson, description, monitor.Report(monitor.NowS));
             }
             context.Out.Flush();

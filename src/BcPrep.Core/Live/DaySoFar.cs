@@ -139,7 +139,7 @@ public sealed class DaySoFar
         var pinned = _day.Pinned.Where(w => _stats.ContainsKey(w.Id) || _lost.ContainsKey(w.Id)).ToList();
         var tareWindows = _day.TareWindows.Where(w => _stats.ContainsKey(w.Id)).ToList();
         SteadyDetectionResult? detection = null;
-        if (WindowFinder.IsEnabled(rig) || pinned.Count == 0)
+        if (WindowFinder.IsEnabled(rig) || _day.Pinned.Count == 0)
         {
             WindowFinder.RequireBlocks(rig, series);
             detection = WindowFinder.Detect(rig, series, dayStart);

@@ -13,11 +13,11 @@ namespace BcPrep.Live;
 /// reports each key channel's approach and, once settled, the hold its target needs. No clock: time is the logs'.
 /// </summary>
 /// <remarks>
-/// A step begins where the day's own step finder (<see cref="StepFinder"/>, with the thresholds of
-/// <see cref="PlateauDetector"/>) puts it, on the same channels (the keys and the heater's step markers): so the
-/// stretches followed live are the plateaus <c>process</c> finds. It runs on the last <see cref="TailHalves"/> half
-/// windows of block means and takes a step once <c>2h</c> blocks of its new level are in (20 s of 1 s blocks); the noise of each channel
-/// is re-estimated every <c>h</c> blocks from at most <see cref="NoiseHalves"/> half windows of the current stretch.
+/// A step begins where the day's own detection puts it: the block means of the detection's channels (the keys and
+/// the heater's step markers, <see cref="DetectionKeys"/>) are fed to the same incremental plateau detection that
+/// <c>process</c> runs during its read (<see cref="PlateauScan"/>), and a new plateau there is a new stretch here. So
+/// the stretches followed live are the plateaus <c>process</c> finds, step for step. A step is known once the
+/// detection is certain of it: when its step finder's run has ended, some 20–40 s after the step on 1 s blocks.
 /// A stretch that was settled on every key channel for at least <c>min_duration</c> when the step came is a
 /// finished point.
 /// </remarks>
@@ -25,12 +25,6 @@ public sealed class LiveMonitor
 {
     /// <summary>Length of each of the two runs of blocks compared to find a step, s (as the day's detection).</summary>
     public const double StepHalfWindowS = PlateauDetector.StepHalfWindowS;
-
-    /// <summary>Blocks the step finder looks at, in half windows: 3 for the level before a step, 1 after, and room for its run.</summary>
-    public const int TailHalves = 8;
-
-    /// <summary>Most blocks a channel's noise is estimated from, in half windows.</summary>
-    public const int NoiseHalves = 60;
 
     private readonly RigDescription _rig;
     private readonly ISettlingEstimator _estimator;
@@ -46,11 +40,10 @@ public sealed class LiveMonitor
     private readonly double[] _blockSum;
     private readonly int[] _blockCount;
     private readonly int _half;
-    private readonly KeyChannel[] _markers;
-    private readonly int[] _markerTrack;
-    private readonly double[] _noise;
+    private readonly PlateauScan _scan;
+    private readonly int[] _detectionTrack;
+    private readonly double[] _detectionMeans;
     private readonly List<double> _steps = [];
-    private int _blocksSinceNoise;
     private double _t0 = double.NaN;
     private long _block = -1;
     private double _stretchStartS;
@@ -67,11 +60,12 @@ public sealed class LiveMonitor
         }
         // The channels that mark steps in the day's detection: the keys and the heater's step markers, tracked
         // after the keys (which alone are reported).
-        _markers = DetectionKeys.For(rig, _ => []).Where(k => k.MarksSteps).ToArray();
-        _channels = _keys.Select(k => k.Channel).Concat(_markers.Select(m => m.Name)).Distinct(StringComparer.Ordinal)
+        var detection = DetectionKeys.For(rig, _ => []);
+        _channels = _keys.Select(k => k.Channel).Concat(detection.Select(m => m.Name)).Distinct(StringComparer.Ordinal)
             .Select(id => rig.Channels.Single(c => c.Id == id)).ToArray();
-        _markerTrack = _markers.Select(m => Array.FindIndex(_channels, c => c.Id == m.Name)).ToArray();
-        _noise = new double[_markers.Length];
+        _detectionTrack = detection.Select(m => Array.FindIndex(_channels, c => c.Id == m.Name)).ToArray();
+        _detectionMeans = new double[detection.Count];
+        _scan = new PlateauScan(detection, WindowFinder.Settings(rig.Steady), rig.Steady.BlockS);
         var columns = new List<string>();
         int ColumnOf(ChannelSpec c)
         {
@@ -195,12 +189,16 @@ public sealed class LiveMonitor
             _blockSum[i] = 0;
             _blockCount[i] = 0;
         }
-        var onset = StepOnset();
-        if (onset < 0)
+        for (var d = 0; d < _detectionTrack.Length; d++)
+        {
+            _detectionMeans[d] = _tracks[_detectionTrack[d]].Values[^1];
+        }
+        _scan.Add(blockTime, _detectionMeans);
+        var stepS = _scan.PlateauStartS;
+        if (!(stepS > _stretchStartS + (0.5 * _rig.Steady.BlockS)))
         {
             return null;
         }
-        var stepS = _tracks[0].Times[onset] - (0.5 * _rig.Steady.BlockS);
         _steps.Add(stepS);
         var before = Report(stepS);
         FinishedStretch? finished = null;
@@ -213,49 +211,7 @@ public sealed class LiveMonitor
             track.DropBefore(stepS);
         }
         _stretchStartS = stepS;
-        _blocksSinceNoise = 0;
         return finished;
-    }
-
-    /// <summary>
-    /// The block (index into the tracks) where a step begins that has <c>2h</c> blocks of its new level in, found by the
-    /// day's step finder on the recent blocks; −1 when none.
-    /// </summary>
-    private int StepOnset()
-    {
-        var n = _tracks[0].Count;
-        if (n < 4 * _half)
-        {
-            return -1;
-        }
-        if (_blocksSinceNoise++ % _half == 0)
-        {
-            for (var m = 0; m < _markers.Length; m++)
-            {
-                var track = _tracks[_markerTrack[m]];
-                var from = Math.Max(0, track.Count - (NoiseHalves * _half));
-                _noise[m] = StepFinder.Noise(BlockDespike.Apply(track.Values[from..].ToArray()));
-            }
-        }
-        var length = Math.Min(n, TailHalves * _half);
-        var series = new double[_markers.Length][];
-        var thresholds = new double[_markers.Length];
-        for (var m = 0; m < _markers.Length; m++)
-        {
-            var track = _tracks[_markerTrack[m]];
-            series[m] = BlockDespike.Apply(track.Values[(n - length)..].ToArray());
-            thresholds[m] = PlateauDetector.StepThreshold(_markers[m], PlateauDetector.MedianAbs(series[m]), _noise[m], _half);
-        }
-        foreach (var k in StepFinder.Find(series, thresholds, _noise, _half))
-        {
-            // Two half windows of the new level: the finder's peak (and so its onset) is final by then; with only one,
-            // a large step's run may have crossed the threshold blocks before the step and not yet reached its peak.
-            if (k >= 3 * _half && length - k >= 2 * _half)
-            {
-                return n - length + k;
-            }
-        }
-        return -1;
     }
 
     /// <summary>The current stretch as of <paramref name="nowS"/> (s since the day's first row), from the closed blocks.</summary>
@@ -273,8 +229,10 @@ public sealed class LiveMonitor
     {
         var track = _tracks[i];
         var key = _keys[i];
-        var last = track.Count > 0 ? track.MeanOf(Math.Max(0, track.Count - _half), track.Count) : double.NaN;
-        var view = track.Count >= 2 * _half ? _estimator.Estimate(track.Times, track.Values, _stretchStartS, nowS, key.MaxChangeSi) : null;
+        // The blocks before nowS only: a stretch is judged at its step, when blocks of the next level are already in.
+        var n = track.CountBefore(nowS);
+        var last = n > 0 ? track.MeanOf(Math.Max(0, n - _half), n) : double.NaN;
+        var view = n >= 2 * _half ? _estimator.Estimate(track.Times[..n], track.Values[..n], _stretchStartS, nowS, key.MaxChangeSi) : null;
         if (view is null)
         {
             return new ChannelReport(_channels[i].Id, ChannelState.Moving, last, double.NaN, double.NaN, double.NaN, double.NaN, null);
@@ -284,7 +242,7 @@ public sealed class LiveMonitor
             return new ChannelReport(_channels[i].Id, ChannelState.Approaching, last, view.TauS, view.RemainingChange, view.SettledFromS, view.SettledFromS - nowS, null);
         }
         var settledSince = Math.Max(view.SettledFromS, _stretchStartS);
-        var held = track.FiniteValuesFrom(settledSince);
+        var held = track.FiniteValuesFrom(settledSince, nowS);
         var mean = held.Length > 0 ? held.Average() : last;
         return new ChannelReport(_channels[i].Id, ChannelState.Settled, mean, view.TauS, view.RemainingChange, settledSince, 0.0, Hold(i, held, nowS - settledSince));
     }

@@ -92,6 +92,9 @@ public sealed class PlateauScan
     /// </summary>
     public double OpenSinceS => _count == 0 ? double.NegativeInfinity : _t[_bound] - (_blockS / 2);
 
+    /// <summary>Start (s, the scan's clock) of the plateau under way: the last step the scan is certain of, or its first block's start.</summary>
+    public double PlateauStartS => _count == 0 ? double.NegativeInfinity : _t[_bound] - (_blockS / 2);
+
     /// <summary>Blocks added so far.</summary>
     public int Count => _count;
 
