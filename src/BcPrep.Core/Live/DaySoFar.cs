@@ -41,10 +41,7 @@ public sealed class DaySoFar
     /// <summary>What is known once the first rows are in: the logger's channels, the day's start and the sinks.</summary>
     private sealed record Started(
         IReadOnlyList<ChannelSpec> Channels, DayStart Start, BlockMeanSink Blocks, DetectionFeed Feed, WindowCollector FirstPass,
-        IReadOnlyList<TimeWindow> Pinned, IReadOnlyList<TimeWindow> TareWindows)
-    {
-        public double DayStartS => Start.FirstSample.Value;
-    }
+        IReadOnlyList<TimeWindow> Pinned, IReadOnlyList<TimeWindow> TareWindows);
 
     public DaySoFar(RigDescription rig, ProcessOptions options)
     {
@@ -113,13 +110,13 @@ public sealed class DaySoFar
             throw new InvalidOperationException("one followed file makes one logger");
         }
         // Fail at once when a sensor was already out of calibration on the first sample's date, as process does.
-        CalibrationCheck.Evaluate(_rig, TestDates.FromLogs(_rig.Log, plan.DayStartS, plan.DayStartS), _options.AllowExpired);
-        var blocks = new BlockMeanSink(plan.DayStartS, _rig.Steady.BlockS);
+        CalibrationCheck.Evaluate(_rig, TestDates.FromLogs(_rig.Log, plan.Start.FirstSample.Value, plan.Start.FirstSample.Value), _options.AllowExpired);
+        var blocks = new BlockMeanSink(plan.Start.FirstSample.Value, _rig.Steady.BlockS);
         var feed = DetectionFeed.For(_rig, blocks);
-        var tareWindows = DayProcessor.TareWindows(_rig, plan.DayStartS);
-        var pinned = _rig.Points.Select(p => new TimeWindow(p.Id, DayProcessor.Resolve(p.Start, plan.DayStartS), DayProcessor.Resolve(p.End, plan.DayStartS))).ToList();
+        var tareWindows = DayProcessor.TareWindows(_rig, plan.Start);
+        var pinned = _rig.Points.Select(p => new TimeWindow(p.Id, plan.Start.Resolve(p.Start).Value, plan.Start.Resolve(p.End).Value)).ToList();
         var firstPass = new WindowCollector([.. pinned, .. tareWindows],
-            (w, c, t, v) => DayProcessor.Collect(_rig, plan.DayStartS, _book, w, c, t, v, DayProcessor.PinnedLocation(_rig, w)),
+            (w, c, t, v) => DayProcessor.Collect(_rig, plan.Start, _book, w, c, t, v, DayProcessor.PinnedLocation(_rig, w)),
             collects: (w, c) => w.Serves(c));
         return new Started(plan.Loggers[0].Channels, plan.Start, blocks, feed, firstPass, pinned, tareWindows);
     }
@@ -134,7 +131,7 @@ public sealed class DaySoFar
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)"), "no complete row has been logged yet");
         }
         var rig = _rig;
-        var dayStartS = _day.DayStartS;
+        var dayStart = _day.Start;
         _book.DrainInto(_stats, lost: _lost);
         var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, _extent.FirstS, _extent.LastS), _options.AllowExpired);
         var series = WindowFinder.Series(rig, _day.Blocks);
@@ -145,9 +142,9 @@ public sealed class DaySoFar
         if (WindowFinder.IsEnabled(rig) || _day.Pinned.Count == 0)
         {
             WindowFinder.RequireBlocks(rig, series);
-            detection = WindowFinder.Detect(rig, series, dayStartS);
+            detection = WindowFinder.Detect(rig, series, dayStart);
         }
-        var windowPlan = PointWindows.Plan(pinned, detection, _day.Start);
+        var windowPlan = PointWindows.Plan(pinned, detection, dayStart);
         if (windowPlan.Points.Count == 0)
         {
             throw new BcPrepFailure(FailureKind.NoSteadyPoint, WindowFinder.NoSteadyProblems(rig, detection!));
@@ -157,7 +154,7 @@ public sealed class DaySoFar
         var detected = windowPlan.Points.Where(p => p.Origin == WindowOrigin.Detected).Select(p => p.Window).ToList();
         var book = new WindowStatsBook();
         var plan = new DayPlan([new LoggerFiles(_day.Channels, ReadPlan())], _day.Start);
-        var secondRead = new SeekingSecondRead(rig, plan, _converters, _index, null, (w, c, t, v) => DayProcessor.Collect(rig, dayStartS, book, w, c, t, v));
+        var secondRead = new SeekingSecondRead(rig, plan, _converters, _index, null, (w, c, t, v) => DayProcessor.Collect(rig, dayStart, book, w, c, t, v));
         foreach (var window in detected.Where(w => !_detectedStats.ContainsKey(w)))
         {
             secondRead.TryGather(window);
@@ -188,7 +185,7 @@ public sealed class DaySoFar
         }
         else if (detection is not null)
         {
-            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, _day.Start));
+            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, dayStart));
         }
         var tareStats = DayProcessor.TareStats(tareWindows, stats);
         var endTares = DayProcessor.EndTares(tareWindows, stats);
