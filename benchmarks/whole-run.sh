@@ -24,10 +24,13 @@ mkdir -p "$data"
 # aborts at start, so they are removed before and after.
 bin="$data/bin"
 rid_obj=src/BcPrep.Cli/obj/Release/net10.0/linux-x64
-rm -rf "$rid_obj"
-dotnet publish src/BcPrep.Cli -c Release -r linux-x64 --self-contained true -p:PublishReadyToRun=true -p:PublishReadyToRunComposite=true \
-  -o "$bin/bcprep" -nologo -v q >/dev/null
-rm -rf "$rid_obj"
+# PUBLISH=0 reuses the build of an earlier run with the same BENCH_DATA (the publish takes minutes on a loaded machine).
+if [ "${PUBLISH:-1}" = 1 ] || [ ! -x "$bin/bcprep/bcprep" ]; then
+  rm -rf "$rid_obj"
+  dotnet publish src/BcPrep.Cli -c Release -r linux-x64 --self-contained true -p:PublishReadyToRun=true -p:PublishReadyToRunComposite=true \
+    -o "$bin/bcprep" -nologo -v q >/dev/null
+  rm -rf "$rid_obj"
+fi
 for p in benchmarks/ParseBaseline tools/SampleDay; do dotnet build -c Release "$p" -nologo -v q >/dev/null; done
 cli=$bin/bcprep/bcprep
 base=benchmarks/ParseBaseline/bin/Release/net10.0/ParseBaseline

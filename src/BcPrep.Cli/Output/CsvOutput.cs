@@ -1,12 +1,21 @@
 using System.Globalization;
-using System.Text;
 
 namespace BcPrep.Cli.Output;
 
 /// <summary>CSV rows (RFC 4180 quoting, '\n' line ends); see <see cref="TabularOutput"/>.</summary>
+/// <remarks>
+/// `calibrate` writes tens of millions of numbers a day, so a number is formatted straight into one reusable character
+/// buffer (<see cref="double.TryFormat(Span{char}, out int, ReadOnlySpan{char}, IFormatProvider?)"/>, "R", invariant
+/// culture: the same characters as <c>ToString("R", CultureInfo.InvariantCulture)</c>, without a string per number),
+/// and the buffer goes to the writer once per block of rows.
+/// </remarks>
 public sealed class CsvOutput(TextWriter output) : TabularOutput
 {
-    private readonly StringBuilder _text = new(1 << 16);
+    /// <summary>Room for any double in "R" form ("-1.7976931348623157E+308" is 24 characters) and its separator.</summary>
+    private const int NumberRoom = 32;
+
+    private char[] _text = new char[1 << 16];
+    private int _length;
     private int _columns;
     private int _cell;
 
@@ -25,7 +34,12 @@ public sealed class CsvOutput(TextWriter output) : TabularOutput
         Separator();
         if (double.IsFinite(value))
         {
-            _text.Append(value.ToString("R", CultureInfo.InvariantCulture));
+            Reserve(NumberRoom);
+            if (!value.TryFormat(_text.AsSpan(_length), out var written, "R", CultureInfo.InvariantCulture))
+            {
+                throw new InvalidOperationException($"no room to format {value.ToString("R", CultureInfo.InvariantCulture)}");
+            }
+            _length += written;
         }
     }
 
@@ -34,11 +48,13 @@ public sealed class CsvOutput(TextWriter output) : TabularOutput
         Separator();
         if (value.AsSpan().IndexOfAny(",\"\r\n") >= 0)
         {
-            _text.Append('"').Append(value.Replace("\"", "\"\"", StringComparison.Ordinal)).Append('"');
+            Append("\"");
+            Append(value.Replace("\"", "\"\"", StringComparison.Ordinal));
+            Append("\"");
         }
         else
         {
-            _text.Append(value);
+            Append(value);
         }
     }
 
@@ -50,21 +66,38 @@ public sealed class CsvOutput(TextWriter output) : TabularOutput
         {
             throw new InvalidOperationException($"a row has {_cell} cells but the header has {_columns}");
         }
-        _text.Append('\n');
+        Append("\n");
         _cell = 0;
     }
 
     public override void Flush()
     {
-        output.Write(_text);
-        _text.Clear();
+        output.Write(_text, 0, _length);
+        _length = 0;
     }
 
     private void Separator()
     {
         if (_cell++ > 0)
         {
-            _text.Append(',');
+            Reserve(1);
+            _text[_length++] = ',';
+        }
+    }
+
+    private void Append(ReadOnlySpan<char> chars)
+    {
+        Reserve(chars.Length);
+        chars.CopyTo(_text.AsSpan(_length));
+        _length += chars.Length;
+    }
+
+    /// <summary>Grows the buffer (never shrinks it) so that <paramref name="room"/> more characters fit.</summary>
+    private void Reserve(int room)
+    {
+        if (_length + room > _text.Length)
+        {
+            Array.Resize(ref _text, Math.Max(2 * _text.Length, _length + room));
         }
     }
 }

@@ -1,4 +1,4 @@
-using System.Globalization;
+using System.Runtime.InteropServices;
 
 namespace BcPrep.Conditioning;
 
@@ -16,6 +16,7 @@ public sealed class StreamingConditioner
     public const double SeamResidual = 1e-14;
 
     private readonly ConditioningSettings _settings;
+    private readonly int _coreOverlaps;
     private int _coreLength;
     private readonly List<double> _t = [];
     private readonly List<double> _x = [];
@@ -23,15 +24,22 @@ public sealed class StreamingConditioner
 
     /// <param name="settings">Conditioning settings (validated when the first chunk is conditioned).</param>
     /// <param name="coreLength">Samples emitted per chunk (≥ 16; raised to the overlap when that is longer).</param>
-    public StreamingConditioner(ConditioningSettings settings, int coreLength = 65536)
+    /// <param name="coreOverlaps">
+    /// The chunk's core is also at least this many overlaps long (≥ 1). Every chunk filters its overlap on both sides
+    /// again, so a core of k overlaps costs (k + 2) / k times the samples it emits: 3 for k = 1, 1.5 for k = 4.
+    /// Memory grows with k; the output does not change beyond rounding (the seams move).
+    /// </param>
+    public StreamingConditioner(ConditioningSettings settings, int coreLength = 65536, int coreOverlaps = 1)
     {
         ArgumentNullException.ThrowIfNull(settings);
         if (coreLength < 16)
         {
             throw new ArgumentOutOfRangeException(nameof(coreLength), coreLength, "A chunk holds at least 16 samples.");
         }
+        ArgumentOutOfRangeException.ThrowIfLessThan(coreOverlaps, 1);
         _settings = settings;
         _coreLength = coreLength;
+        _coreOverlaps = coreOverlaps;
     }
 
     /// <summary>Context samples on each side of a chunk; 0 until the sample interval is known (first chunk).</summary>
@@ -59,15 +67,13 @@ public sealed class StreamingConditioner
         {
             throw new ArgumentException("Times and values must have the same length.", nameof(values));
         }
-        for (var i = 0; i < timesS.Length; i++)
-        {
-            _t.Add(timesS[i]);
-            _x.Add(values[i]);
-        }
+        _t.AddRange(timesS);
+        _x.AddRange(values);
         if (Overlap == 0 && _t.Count >= 64)
         {
             Overlap = OverlapFor(_t);
-            _coreLength = Math.Max(_coreLength, Overlap); // the kept context must lie inside what was emitted
+            // The kept context must lie inside what was emitted, and a long core amortises the repeated overlaps.
+            _coreLength = Math.Max(_coreLength, _coreOverlaps * Overlap);
         }
         while (Overlap > 0 && _t.Count - _history >= _coreLength + Overlap)
         {
@@ -98,8 +104,8 @@ public sealed class StreamingConditioner
 
     private void ConditionChunk(int end, double emitBeforeS)
     {
-        var times = _t.GetRange(0, end).ToArray();
-        var result = ChannelConditioner.Condition(times, _x.GetRange(0, end).ToArray(), _settings);
+        var times = CollectionsMarshal.AsSpan(_t)[..end].ToArray();
+        var result = ChannelConditioner.Condition(times, CollectionsMarshal.AsSpan(_x)[..end].ToArray(), _settings);
         NotchFrequenciesHz = result.Report.NotchFrequenciesHz;
         var emitFromS = _history > 0 ? _t[_history] : double.NegativeInfinity;
         var spikes = new HashSet<double>(result.Report.SpikeTimesS);

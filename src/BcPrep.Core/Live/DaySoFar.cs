@@ -4,6 +4,7 @@ using BcPrep.Pipeline;
 using BcPrep.Reading;
 using BcPrep.Rig;
 using BcPrep.Steady;
+using BcPrep.Values;
 
 namespace BcPrep.Live;
 
@@ -41,8 +42,11 @@ public sealed class DaySoFar
 
     /// <summary>What is known once the first rows are in: the logger's channels, the day's start and the sinks.</summary>
     private sealed record Started(
-        IReadOnlyList<ChannelSpec> Channels, double DayStartS, BlockMeanSink Blocks, DetectionFeed Feed, WindowCollector FirstPass,
-        IReadOnlyList<TimeWindow> Pinned, IReadOnlyList<TimeWindow> TareWindows);
+        IReadOnlyList<ChannelSpec> Channels, DayStart Start, BlockMeanSink Blocks, DetectionFeed Feed, WindowCollector FirstPass,
+        IReadOnlyList<TimeWindow> Pinned, IReadOnlyList<TimeWindow> TareWindows)
+    {
+        public double DayStartS => Start.FirstSample.Value;
+    }
 
     public DaySoFar(RigDescription rig, ProcessOptions options)
     {
@@ -85,7 +89,7 @@ public sealed class DaySoFar
                 return;
             }
             _day ??= Start(inputs[0]);
-            var plan = new DayPlan([new LoggerFiles(_day.Channels, inputs)], _day.DayStartS);
+            var plan = new DayPlan([new LoggerFiles(_day.Channels, inputs)], _day.Start);
             DayScan.Run(_rig, plan, _converters, [new KeptOpen(_day.FirstPass), _extent], _day.Feed.BlockSink, index: _index,
                 onFileRead: (file, _, line) => _resume[file.Path] = (file.LengthLimit!.Value, NextLine(file.Path, line)));
             _files.Clear();
@@ -119,7 +123,7 @@ public sealed class DaySoFar
         var firstPass = new WindowCollector([.. pinned, .. tareWindows],
             (w, c, t, v) => DayProcessor.Collect(_rig, plan.DayStartS, _book, w, c, t, v, DayProcessor.PinnedLocation(_rig, w)),
             collects: (w, c) => w.Serves(c));
-        return new Started(plan.Loggers[0].Channels, plan.DayStartS, blocks, feed, firstPass, pinned, tareWindows);
+        return new Started(plan.Loggers[0].Channels, plan.Start, blocks, feed, firstPass, pinned, tareWindows);
     }
 
     /// <summary>What <c>process</c> gives on the rows scanned so far (pinned windows not yet passed left out).</summary>
@@ -154,7 +158,7 @@ public sealed class DaySoFar
         var lost = new Dictionary<string, Problem>(_lost, StringComparer.Ordinal);
         var detected = windowPlan.Points.Where(p => p.Origin == WindowOrigin.Detected).Select(p => p.Window).ToList();
         var book = new WindowStatsBook();
-        var plan = new DayPlan([new LoggerFiles(_day.Channels, ReadPlan())], dayStartS);
+        var plan = new DayPlan([new LoggerFiles(_day.Channels, ReadPlan())], _day.Start);
         var secondRead = new SeekingSecondRead(rig, plan, _converters, _index, null, (w, c, t, v) => DayProcessor.Collect(rig, dayStartS, book, w, c, t, v));
         foreach (var window in detected.Where(w => !_detectedStats.ContainsKey(w)))
         {
@@ -220,7 +224,7 @@ public sealed class DaySoFar
         {
             (points, matrix) = MatrixNaming.Apply(_options.Matrix, points);
         }
-        return new DayResult(rig, dayStartS, points, series, detection, dayWarnings)
+        return new DayResult(rig, _day.Start, points, series, detection, dayWarnings)
         {
             FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = _index.Seeks, WindowsReadAgain = secondRead.Count,
         };

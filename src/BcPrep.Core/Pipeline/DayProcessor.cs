@@ -92,7 +92,7 @@ public static class DayProcessor
         }
         else if (detection is not null)
         {
-            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, plan.DayStartS));
+            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, plan.Start));
         }
 
         var tareStats = TareStats(tareWindows, stats);
@@ -111,7 +111,7 @@ public static class DayProcessor
         {
             (points, matrix) = MatrixNaming.Apply(options.Matrix, points);
         }
-        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = secondRead.Count };
+        return new DayResult(rig, plan.Start, points, series, detection, dayWarnings) { FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = secondRead.Count };
     }
 
     /// <summary>

@@ -3,17 +3,42 @@ using System.Runtime.ExceptionServices;
 namespace BcPrep.Pipeline;
 
 /// <summary>
-/// Reduces window samples to statistics on the thread pool while the scan goes on reading, so that a day's
+/// Reduces window samples to statistics on the statistics threads (<see cref="StatisticsWorkers"/>) while the scan goes on reading, so that a day's
 /// windows use both cores. Results are gathered in the order the windows were handed in, and the first failure
 /// in that order is the one reported, so runs stay deterministic whatever the scheduling.
 /// </summary>
 internal sealed class WindowStatsBook
 {
-    private readonly List<(TimeWindow Window, string Channel, Func<TimeWindow, ChannelWindowStats> Evaluate, Task<ChannelWindowStats> Work)> _pending = [];
+    private readonly List<Pending> _pending = [];
 
-    /// <summary>Starts reducing one channel of one window; <paramref name="evaluate"/> is given the window.</summary>
-    public void Add(TimeWindow window, string channel, Func<TimeWindow, ChannelWindowStats> evaluate) =>
-        _pending.Add((window, channel, evaluate, Task.Run(() => evaluate(window))));
+    /// <summary>
+    /// Starts reducing one channel of one window; <paramref name="evaluate"/> is given the window. It is kept (with
+    /// the samples it holds) only while it runs or after it failed: a day of many windows at a high rate must not
+    /// hold every window's samples until the day's end.
+    /// </summary>
+    public void Add(TimeWindow window, string channel, Func<TimeWindow, ChannelWindowStats> evaluate)
+    {
+        var pending = new Pending(window, channel) { Evaluate = evaluate };
+        pending.Work = StatisticsWorkers.Run(() =>
+        {
+            var result = evaluate(window);
+            pending.Evaluate = null;
+            return result;
+        });
+        _pending.Add(pending);
+    }
+
+    private sealed class Pending(TimeWindow window, string channel)
+    {
+        public TimeWindow Window { get; } = window;
+
+        public string Channel { get; } = channel;
+
+        /// <summary>The evaluation, kept for a failure's second evaluation under the point's id; null once it succeeded.</summary>
+        public Func<TimeWindow, ChannelWindowStats>? Evaluate { get; set; }
+
+        public Task<ChannelWindowStats> Work { get; set; } = null!;
+    }
 
     /// <summary>
     /// Waits for every window handed in so far and files the results into <paramref name="into"/>.
@@ -44,8 +69,9 @@ internal sealed class WindowStatsBook
         {
             // Rethrown below in hand-in order, unwrapped.
         }
-        foreach (var (handedIn, channel, evaluate, work) in _pending)
+        foreach (var pending in _pending)
         {
+            var (handedIn, channel, work) = (pending.Window, pending.Channel, pending.Work);
             var window = named is null ? handedIn : named[handedIn];
             ChannelWindowStats result;
             if (work.IsFaulted)
@@ -56,7 +82,7 @@ internal sealed class WindowStatsBook
                     // The same samples again, now with the point's id, for a message that names it.
                     try
                     {
-                        evaluate(window);
+                        pending.Evaluate!(window);
                     }
                     catch (Exception again)
                     {

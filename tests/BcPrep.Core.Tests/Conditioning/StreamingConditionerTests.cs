@@ -34,14 +34,16 @@ public class StreamingConditionerTests
         return (t.ToArray(), values);
     }
 
-    [Fact]
-    public void Chunked_output_equals_whole_record_output()
+    [Theory]
+    [InlineData(1)]
+    [InlineData(4)] // the core `calibrate --conditioned` uses: fewer seams, the same output
+    public void Chunked_output_equals_whole_record_output(int coreOverlaps)
     {
         var (t, x) = Record();
         var settings = new ConditioningSettings(MaxBridgeS: 0.01, LowPassCutoffHz: 20.0, MainsHz: 50.0);
         var whole = ChannelConditioner.Condition(t, x, settings);
 
-        var streaming = new StreamingConditioner(settings, coreLength: 5000);
+        var streaming = new StreamingConditioner(settings, coreLength: 5000, coreOverlaps);
         for (var start = 0; start < t.Length; start += 777)
         {
             var length = Math.Min(777, t.Length - start);
