@@ -136,7 +136,7 @@ public sealed class DaySoFar
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)"), "no complete row has been logged yet");
         }
         var rig = _rig;
-        var dayStartS = _day.DayStartS;
+        var dayStartS = _day.Start.FirstSample.Value;
         _book.DrainInto(_stats, lost: _lost);
         var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, _extent.FirstS, _extent.LastS), _options.AllowExpired);
         var series = WindowFinder.Series(rig, _day.Blocks);
@@ -190,7 +190,7 @@ public sealed class DaySoFar
         }
         else if (detection is not null)
         {
-            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, dayStartS));
+            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, _day.Start));
         }
         var tareStats = DayProcessor.TareStats(tareWindows, stats);
         var endTares = DayProcessor.EndTares(tareWindows, stats);
