@@ -149,7 +149,7 @@ public sealed class DaySoFar
             WindowFinder.RequireBlocks(rig, series);
             detection = WindowFinder.Detect(rig, series, dayStartS);
         }
-        var windowPlan = PointWindows.Plan(pinned, detection, dayStartS);
+        var windowPlan = PointWindows.Plan(pinned, detection, _day.Start);
         if (windowPlan.Points.Count == 0)
         {
             throw new BcPrepFailure(FailureKind.NoSteadyPoint, WindowFinder.NoSteadyProblems(rig, detection!));

@@ -63,7 +63,7 @@ public static class DayProcessor
             }
         }
         // Point ids are given here, once: a window pinned by hand replaces the detected ones it overlaps.
-        var windowPlan = PointWindows.Plan(pinned, detection, plan.DayStartS);
+        var windowPlan = PointWindows.Plan(pinned, detection, plan.Start);
         if (windowPlan.Points.Count == 0)
         {
             throw new BcPrepFailure(FailureKind.NoSteadyPoint, WindowFinder.NoSteadyProblems(rig, detection!));

@@ -67,13 +67,6 @@ public static class PointWindows
     }
 
     /// <summary>
-    /// <see cref="Plan(IReadOnlyList{TimeWindow}, SteadyDetectionResult?, DayStart)"/> for the day processor and the live
-    /// scan, which still hold the day start as bare log-clock seconds; goes when they take a <see cref="DayStart"/>.
-    /// </summary>
-    public static WindowPlan Plan(IReadOnlyList<TimeWindow> pinned, SteadyDetectionResult? detection, double dayStartS) =>
-        Plan(pinned, detection, new DayStart(new LoggerSeconds(dayStartS)));
-
-    /// <summary>
     /// Warnings about pinned windows that detection does not support: a pinned window that no detected steady window
     /// overlaps, or one that reaches outside the steady stretch detected there (its edge may still drift). A pinned
     /// window still wins: the engineer may know better, but should be told.
