@@ -31,6 +31,8 @@ public sealed class DaySoFar
     private readonly Dictionary<string, Dictionary<string, ChannelWindowStats>> _stats = new(StringComparer.Ordinal);
     private readonly Dictionary<string, Problem> _lost = new(StringComparer.Ordinal);
     private readonly Dictionary<TimeWindow, Dictionary<string, ChannelWindowStats>> _detectedStats = [];
+    private readonly Dictionary<(TimeWindow, WindowOrigin), PointResult> _points = [];
+    private (int Tares, int EndTares) _pointsTares;
     private readonly WindowStatsBook _book = new();
     private readonly DayExtentSink _extent = new();
     private readonly ScanIndex _index = new();
@@ -196,8 +198,24 @@ public sealed class DaySoFar
         {
             throw new BcPrepFailure(FailureKind.InputData, failed.Select(f => lost[f.Id]).ToList());
         }
-        IReadOnlyList<PointResult> points = DayProcessor.InOrder(reduced,
-            p => DayProcessor.EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, endTares, _options));
+        // A point whose window, origin and tares are those of an earlier reduction is that reduction's point (its
+        // window statistics are the same, see above): only new points are propagated.
+        if (_pointsTares != (tareStats.Count, endTares.Count))
+        {
+            _points.Clear();
+            _pointsTares = (tareStats.Count, endTares.Count);
+        }
+        var evaluated = DayProcessor.InOrder(reduced.Where(p => !_points.ContainsKey((p.Window, p.Origin))).ToList(),
+            p => (p, DayProcessor.EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, endTares, _options)));
+        foreach (var (p, point) in evaluated)
+        {
+            _points[(p.Window, p.Origin)] = point;
+        }
+        IReadOnlyList<PointResult> points = reduced.Select(p => _points[(p.Window, p.Origin)]).ToList();
+        foreach (var gone in _points.Keys.Where(k => !reduced.Any(p => (p.Window, p.Origin) == k)).ToList())
+        {
+            _points.Remove(gone);
+        }
         MatrixReport? matrix = null;
         if (_options.Matrix is not null)
         {
