@@ -31,8 +31,8 @@ public class SteadyDetectionBenchmarks
     }
 
     [Benchmark(Baseline = true)]
-    public int ThreeKeyChannels() => SteadyStateDetector.Detect(_timesS, _channels[..3], _settings).Accepted.Count;
+    public int ThreeKeyChannels() => PlateauDetector.Detect(_timesS, _channels[..3], _settings).Accepted.Count;
 
     [Benchmark]
-    public int ThirtyTwoKeyChannels() => SteadyStateDetector.Detect(_timesS, _channels, _settings).Accepted.Count;
+    public int ThirtyTwoKeyChannels() => PlateauDetector.Detect(_timesS, _channels, _settings).Accepted.Count;
 }

@@ -2,6 +2,7 @@ using System.Globalization;
 using BcPrep.Pipeline;
 using BcPrep.Rig;
 using ScottPlot;
+using BcPrep.Values;
 
 namespace BcPrep.Report;
 
@@ -61,7 +62,7 @@ public static class DayChannelFigure
         // one NaN in a Signal makes the library drop the whole line, so each finite run is a Signal of its own: the
         // trace breaks at a missing block and goes on after it. A run of one block is drawn as a dot.
         var periodMin = times.Length > 1 ? (times[1] - times[0]) / 60.0 : day.Rig.Steady.BlockS / 60.0;
-        var originMin = (times[0] - day.DayStartS) / 60.0;
+        var originMin = day.Start.Since(new LoggerSeconds(times[0])).Value / 60.0;
         foreach (var (start, length) in TraceRuns.Finite(means))
         {
             if (length == 1)
@@ -99,7 +100,7 @@ public static class DayChannelFigure
         }
         foreach (var point in day.Points)
         {
-            var window = plot.Add.HorizontalSpan((point.Window.StartS - day.DayStartS) / 60.0, (point.Window.EndS - day.DayStartS) / 60.0);
+            var window = plot.Add.HorizontalSpan(day.Start.Since(point.Window.Start).Value / 60.0, day.Start.Since(point.Window.End).Value / 60.0);
             window.FillColor = ReportStyle.AveragingWindow;
             window.LineColor = ReportStyle.Secondary;
             window.LineWidth = 1;
@@ -119,7 +120,7 @@ public static class DayChannelFigure
         var labelY = top + 0.08 * height;
         foreach (var point in day.Points)
         {
-            var middle = ((point.Window.StartS + point.Window.EndS) / 2.0 - day.DayStartS) / 60.0;
+            var middle = day.Start.Since(new LoggerSeconds((point.Window.StartS + point.Window.EndS) / 2.0)).Value / 60.0;
             var text = plot.Add.Text(point.Id, middle, labelY);
             text.LabelFontSize = 13;
             text.LabelBold = true;

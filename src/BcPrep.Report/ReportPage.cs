@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using BcPrep.Pipeline;
 using BcPrep.Writing;
+using BcPrep.Values;
 
 namespace BcPrep.Report;
 
@@ -58,9 +59,9 @@ public static class ReportPage
     private static string DayLine(DayResult day)
     {
         var start = day.Rig.Log.TimeFormat == Rig.TimeFormat.Iso8601
-            ? "first sample " + DateTimeOffset.FromUnixTimeMilliseconds((long)Math.Round(day.DayStartS * 1000.0)).ToString("yyyy-MM-dd HH:mm:ss 'UTC'", CultureInfo.InvariantCulture) + "; "
+            ? "first sample " + DateTimeOffset.FromUnixTimeMilliseconds((long)Math.Round(day.Start.FirstSample.Value * 1000.0)).ToString("yyyy-MM-dd HH:mm:ss 'UTC'", CultureInfo.InvariantCulture) + "; "
             : "";
-        var spanMin = day.Blocks.TimesS.Length == 0 ? 0.0 : (day.Blocks.TimesS[^1] - day.DayStartS) / 60.0;
+        var spanMin = day.Blocks.TimesS.Length == 0 ? 0.0 : day.Start.Since(new LoggerSeconds(day.Blocks.TimesS[^1])).Value / 60.0;
         return string.Create(CultureInfo.InvariantCulture,
             $"{start}{spanMin:0.#} min of logs; {day.Points.Count} operating point(s); times in minutes since the first sample; values SI, ± U = expanded uncertainty at p = {day.Rig.CoverageProbability}.");
     }
@@ -93,7 +94,7 @@ public static class ReportPage
         var rows = new List<(double StartS, IReadOnlyList<string> Cells)>();
         foreach (var window in detection.Accepted)
         {
-            var ids = day.Points.Where(p => p.Window.StartS - day.DayStartS < window.StretchEndS && p.Window.EndS - day.DayStartS > window.StretchStartS).Select(p => p.Id);
+            var ids = day.Points.Where(p => day.Start.Since(p.Window.Start).Value < window.StretchEndS && day.Start.Since(p.Window.End).Value > window.StretchStartS).Select(p => p.Id);
             rows.Add((window.StretchStartS, [
                 "accepted", string.Join(", ", ids), Minutes(window.StretchStartS) + "–" + Minutes(window.StretchEndS),
                 Minutes(window.StartS) + "–" + Minutes(window.EndS), ChoiceSpelling.Names(window.AcceptedBy), "",
@@ -134,7 +135,7 @@ public static class ReportPage
         html.Append("</section>\n");
     }
 
-    private static string WindowText(DayResult day, TimeWindow window) => Minutes(window.StartS - day.DayStartS) + "–" + Minutes(window.EndS - day.DayStartS);
+    private static string WindowText(DayResult day, TimeWindow window) => Minutes(day.Start.Since(window.Start).Value) + "–" + Minutes(day.Start.Since(window.End).Value);
 
     private static string Minutes(double seconds) => (seconds / 60.0).ToString("0.0", CultureInfo.InvariantCulture);
 

@@ -1,5 +1,6 @@
 using BcPrep.Pipeline;
 using BcPrep.Report;
+using BcPrep.Values;
 
 namespace BcPrep.Tests.Report;
 
@@ -53,7 +54,7 @@ public sealed class DayFigureTraceTests
         var checkedColumns = 0;
         foreach (var x in SpanColumns(area, known, times))
         {
-            var timeS = known.DayStartS + (60 * (area.XMin + ((x + 0.5 - area.LeftPx) / (area.RightPx - area.LeftPx) * (area.XMax - area.XMin))));
+            var timeS = known.Start.OnClock(new DaySeconds(60 * (area.XMin + ((x + 0.5 - area.LeftPx) / (area.RightPx - area.LeftPx) * (area.XMax - area.XMin))))).Value;
             var rows = DarkRows(image, area, x, 0.04, 0.06).ToList();
             var gapS = 2 * (times[1] - times[0]) + (60 * (area.XMax - area.XMin) / (area.RightPx - area.LeftPx));
             if (Missing(timeS - gapS) && Missing(timeS + gapS))
@@ -101,8 +102,8 @@ public sealed class DayFigureTraceTests
     /// <summary>The image columns from the first block to the last, a few pixels in from each end.</summary>
     private static IEnumerable<int> SpanColumns(PlotArea area, DayResult day, double[] timesS)
     {
-        var first = (int)Math.Ceiling(area.ColumnOf((timesS[0] - day.DayStartS) / 60.0)) + 2;
-        var last = (int)Math.Floor(area.ColumnOf((timesS[^1] - day.DayStartS) / 60.0)) - 2;
+        var first = (int)Math.Ceiling(area.ColumnOf(day.Start.Since(new LoggerSeconds(timesS[0])).Value / 60.0)) + 2;
+        var last = (int)Math.Floor(area.ColumnOf(day.Start.Since(new LoggerSeconds(timesS[^1])).Value / 60.0)) - 2;
         return Enumerable.Range(first, Math.Max(0, last - first + 1));
     }
 

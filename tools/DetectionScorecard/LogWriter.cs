@@ -107,7 +107,7 @@ public static class LogWriter
     }
 
     /// <summary>The noise-free raw readings (logger units) of one instant, through the sample rig's calibrations.</summary>
-    private static void Raw(State x, double t, double[] raw)
+    public static void Raw(State x, double t, double[] raw)
     {
         var baroPa = Trajectory.BarometerPa - (15.0 * t / 3600.0);
         var coldJunctionK = 297.15 + (0.4 * Math.Sin(2 * Math.PI * t / 5400.0));

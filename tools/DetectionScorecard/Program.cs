@@ -15,6 +15,10 @@ internal static class Program
 {
     private static int Main(string[] args)
     {
+        if (args.Length > 0 && args[0] == "coverage")
+        {
+            return Coverage.CoverageProgram.Run(args[1..]);
+        }
         var days = (int)(Option(args, "--days") ?? 50);
         var firstSeed = (int)(Option(args, "--first-seed") ?? 1);
         var steady = Text(args, "--steady") ?? "defaults";

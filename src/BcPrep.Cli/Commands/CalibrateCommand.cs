@@ -3,6 +3,7 @@ using System.Globalization;
 using BcPrep.Cli.Output;
 using BcPrep.Pipeline;
 using BcPrep.Rig;
+using BcPrep.Values;
 
 namespace BcPrep.Cli.Commands;
 
@@ -34,8 +35,8 @@ public static class CalibrateCommand
             var conditioner = parse.GetValue(conditioned) ? new ConditionedBlockSink(description, writer) : null;
             CalibratedSeries.Stream(description, inputs.Inputs, (plan, _) =>
             {
-                writer.Start(plan.DayStartS);
-                diagnostics.Detail($"{plan.Loggers.Count} logger(s), day starts at {plan.DayStartS.ToString("R", CultureInfo.InvariantCulture)} s");
+                writer.Start(plan.Start);
+                diagnostics.Detail($"{plan.Loggers.Count} logger(s), day starts at {plan.Start.FirstSample.Value.ToString("R", CultureInfo.InvariantCulture)} s");
             }, conditioner ?? (IBlockSink)writer);
             if (conditioner is not null)
             {
@@ -58,14 +59,14 @@ public static class CalibrateCommand
     private sealed class SeriesWriter(TabularOutput output, RigDescription rig) : IBlockSink
     {
         private readonly List<string> _columns = rig.Channels.Select(c => c.Id).ToList();
-        private double _originS;
+        private DayStart _start;
         private bool _headerWritten;
 
         /// <summary>
         /// Remembers the day's start; the header waits for the first converted block, so that a day refused in
         /// its first block leaves standard output empty.
         /// </summary>
-        public void Start(double dayStartS) => _originS = dayStartS;
+        public void Start(DayStart start) => _start = start;
 
         private void WriteHeader()
         {
@@ -82,7 +83,7 @@ public static class CalibrateCommand
             var slot = _columns.Select(id => channels.ToList().IndexOf(id)).ToArray();
             for (var i = 0; i < count; i++)
             {
-                output.Number(timeS[i] - _originS);
+                output.Number(_start.Since(new LoggerSeconds(timeS[i])).Value);
                 foreach (var s in slot)
                 {
                     if (s >= 0)

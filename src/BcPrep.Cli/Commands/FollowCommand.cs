@@ -26,11 +26,17 @@ public static class FollowCommand
         var interval = new Option<double>("--interval") { Description = "Seconds between two reports.", DefaultValueFactory = _ => 10.0, HelpName = "S" };
         var idle = new Option<double?>("--end-after-idle") { Description = "End when no new row has arrived for this many seconds (default: run until Ctrl-C).", HelpName = "S" };
         var json = new Option<bool>("--json") { Description = "Write each report as one JSON line to standard output (for a wrapper) instead of lines on standard error." };
+        // The options that change the reduction, with the names and meaning they have for `process`: the folder
+        // written at the end is what `process` writes with the same options.
+        var reduction = ReductionOptions.WithMonteCarlo();
+        var report = ReportOption.Create();
         var command = new Command("follow", "Follow the logs a logger is still writing: report when the current point is settled and how long it must be held; reduce each finished point.\n" +
                                             "Example: bcprep follow sample-logs/marten-rig.toml /data/logger --out out --interval 30")
         {
             rig, folder, output, pattern, interval, idle, json,
         };
+        reduction.AddTo(command);
+        command.Options.Add(report);
         command.SetAction(parse =>
         {
             var diagnostics = common.DiagnosticsFor(parse, context);
@@ -48,7 +54,11 @@ public static class FollowCommand
             }
             var idleS = parse.GetValue(idle);
             var outDir = parse.GetValue(output)!;
+            var options = reduction.Read(parse, description);
             var follower = new LogFollower(logFolder, parse.GetValue(pattern)!);
+            var daySoFar = new DaySoFar(description, options);
+            using var fingerprints = new GrowingFingerprints();
+            var reducer = new Reducer(context, diagnostics, parse, rigPath, description, reduction, report, outDir, follower, daySoFar, fingerprints);
             var monitor = new LiveMonitor(description, LiveSettling.Estimator);
             var writeJson = parse.GetValue(json);
             using var stop = new CancellationTokenSource();
@@ -58,6 +68,7 @@ public static class FollowCommand
                 stop.Cancel();
             };
             Console.CancelKeyPress += onCancel;
+            var reportedAtS = double.NaN;
             try
             {
                 var clock = Stopwatch.StartNew();
@@ -67,28 +78,33 @@ public static class FollowCommand
                 while (!stop.IsCancellationRequested)
                 {
                     var lines = follower.Poll();
-                    if (lines.Count > 0)
-                    {
-                        lastRow = clock.Elapsed;
-                    }
                     foreach (var line in lines)
                     {
                         if (monitor.Feed(line) is { } finished)
                         {
                             Announce(context, diagnostics, writeJson, finished);
-                            ReduceSoFar(context, diagnostics, rigPath, follower, outDir);
+                            reducer.ReduceSoFar();
                         }
+                    }
+                    if (lines.Count > 0)
+                    {
+                        // Idle time counts from the end of the work on the last rows: a long reduction is no idle logger.
+                        lastRow = clock.Elapsed;
                     }
                     if (!double.IsNaN(monitor.NowS) && (clock.Elapsed - lastReport).TotalSeconds >= intervalS)
                     {
                         lastReport = clock.Elapsed;
+                        reportedAtS = monitor.NowS;
                         Report(context, writeJson, description, monitor.Report(monitor.NowS));
                     }
                     if (idleS is { } limit && (clock.Elapsed - lastRow).TotalSeconds >= limit)
                     {
                         break;
                     }
-                    stop.Token.WaitHandle.WaitOne(pollEvery);
+                    if (!follower.HasMore)
+                    {
+                        stop.Token.WaitHandle.WaitOne(pollEvery);
+                    }
                 }
             }
             finally
@@ -105,61 +121,80 @@ public static class FollowCommand
                 diagnostics.Info($"{logFolder}: no log file matching '{parse.GetValue(pattern)}' appeared; nothing to reduce");
                 return ExitCodes.Success;
             }
-            if (!double.IsNaN(monitor.NowS))
+            if (!double.IsNaN(monitor.NowS) && monitor.NowS != reportedAtS)
             {
+                // The state at the last row, unless the loop's last report already gave it.
                 Report(context, writeJson, description, monitor.Report(monitor.NowS));
             }
             context.Out.Flush();
             diagnostics.Info($"end of the logs: reducing the day into {outDir}");
             // --force: a reduction of the day so far may have read a copy of the last file that already held all of it; the
             // folder must name the logger's own files, as `process` on them would.
-            return BcPrepApp.Run(["process", rigPath, .. follower.Files, "--out", outDir, "--force"], context);
+            return BcPrepApp.Run(["process", rigPath, .. follower.Files, "--out", outDir, "--force", .. reducer.ProcessArguments()], context);
         });
         return command;
     }
 
-    /// <summary>
-    /// Reduces what has been logged so far into the output folder, as `process` would: the files the logger has left
-    /// are read in place, and the one it is writing is read up to its last complete line from a copy.
-    /// </summary>
-    private static void ReduceSoFar(CliContext context, Diagnostics diagnostics, string rigPath, LogFollower follower, string outDir)
+    /// <summary>Reduces the day so far into the output folder at a finished point, reading only what is new since the last time.</summary>
+    private sealed class Reducer(
+        CliContext context, Diagnostics diagnostics, ParseResult parse, string rigPath, Rig.RigDescription rig, ReductionOptions reduction, Option<bool> report,
+        string outDir, LogFollower follower, DaySoFar daySoFar, GrowingFingerprints fingerprints)
     {
-        var staging = Path.Combine(Path.GetTempPath(), "bcprep-follow-" + Guid.NewGuid().ToString("N"));
-        Directory.CreateDirectory(staging);
-        try
+        /// <summary>
+        /// The day so far, as `process` would reduce it (pinned windows not yet reached left out), written into the
+        /// output folder. A reduction that cannot be made yet is reported, and following goes on.
+        /// </summary>
+        public void ReduceSoFar()
         {
-            var files = follower.Files.Take(follower.Files.Count - 1).ToList();
-            var current = follower.Files[^1];
-            var copy = Path.Combine(staging, Path.GetFileName(current));
-            using (var source = new FileStream(current, FileMode.Open, FileAccess.Read, FileShare.ReadWrite | FileShare.Delete))
-            using (var target = File.Create(copy))
+            // A bad row, or a sensor past its due date, stops following, as it would stop `process`.
+            daySoFar.ReadTo(follower.Files, follower.CompleteBytes);
+            try
             {
-                CopyBytes(source, target, follower.CompleteBytes);
+                var day = daySoFar.Reduce();
+                using var folder = Writing.ResultFolder.Claim(outDir, [rigPath, .. follower.Files, .. reduction.MatrixPath(parse) is { } m ? new[] { m } : []],
+                    CommitHook.FromEnvironment(context));
+                var provenance = reduction.Record(
+                    new(BcPrepApp.Version, LogArguments.Fingerprint(rigPath, rigPath), fingerprints.Of(follower.Files, follower.CompleteBytes)),
+                    parse, ReportOption.Choices(parse.GetValue(report)));
+                var files = Writing.DayOutputs.Build(day, provenance, FacePoints.Read(rig, rigPath), ReportOption.Files(parse.GetValue(report), day, diagnostics));
+                folder.Commit(files);
+                diagnostics.Info(string.Create(CultureInfo.InvariantCulture, $"the day so far ({day.Points.Count} point(s)) is reduced into {outDir}"));
             }
-            files.Add(copy);
-            var code = BcPrepApp.Run(["process", rigPath, .. files, "--out", outDir, "--quiet"], context);
-            diagnostics.Info(code == ExitCodes.Success
-                ? $"the day so far is reduced into {outDir}"
-                : string.Create(CultureInfo.InvariantCulture, $"reducing the day so far ended with exit code {code}; following goes on"));
+            catch (BcPrepFailure failure) when (failure.Kind is not FailureKind.Output)
+            {
+                // No steady point yet, a point that lost its window to gaps: more of the day may change that. An output
+                // folder that is not ours stops following.
+                diagnostics.Info($"the day so far cannot be reduced yet ({failure.Problems[0].Message}); following goes on");
+            }
         }
-        finally
-        {
-            Directory.Delete(staging, recursive: true);
-        }
-    }
 
-    private static void CopyBytes(Stream source, Stream target, long count)
-    {
-        var buffer = new byte[1 << 16];
-        while (count > 0)
+        /// <summary>The reduction's options as given, for the final `process` run.</summary>
+        public IEnumerable<string> ProcessArguments()
         {
-            var n = source.Read(buffer, 0, (int)Math.Min(buffer.Length, count));
-            if (n == 0)
+            foreach (var channel in reduction.Allowed(parse))
             {
-                break;
+                yield return "--allow-expired";
+                yield return channel;
             }
-            target.Write(buffer, 0, n);
-            count -= n;
+            if (reduction.MatrixPath(parse) is { } matrix)
+            {
+                yield return "--matrix";
+                yield return matrix;
+            }
+            if (parse.GetValue(reduction.MonteCarlo!))
+            {
+                yield return "--monte-carlo";
+                yield return "--seed";
+                yield return parse.GetValue(reduction.Seed!).ToString(CultureInfo.InvariantCulture);
+            }
+            if (parse.GetValue(report))
+            {
+                yield return "--report";
+            }
+            if (diagnostics.Verbosity == Verbosity.Quiet)
+            {
+                yield return "--quiet";
+            }
         }
     }
 

@@ -57,13 +57,24 @@ internal sealed class KeyTrack
         _values.RemoveRange(0, drop);
     }
 
-    /// <summary>Finite values from <paramref name="timeS"/> on.</summary>
-    public double[] FiniteValuesFrom(double timeS)
+    /// <summary>Blocks whose time lies before <paramref name="timeS"/> (times increase).</summary>
+    public int CountBefore(double timeS)
+    {
+        var n = _times.Count;
+        while (n > 0 && _times[n - 1] >= timeS)
+        {
+            n--;
+        }
+        return n;
+    }
+
+    /// <summary>Finite values from <paramref name="timeS"/> on, before <paramref name="beforeS"/>.</summary>
+    public double[] FiniteValuesFrom(double timeS, double beforeS = double.PositiveInfinity)
     {
         var result = new List<double>();
         for (var i = 0; i < _times.Count; i++)
         {
-            if (_times[i] >= timeS && double.IsFinite(_values[i]))
+            if (_times[i] >= timeS && _times[i] < beforeS && double.IsFinite(_values[i]))
             {
                 result.Add(_values[i]);
             }

@@ -2,6 +2,7 @@ using BcPrep.Calibration;
 using BcPrep.Pipeline;
 using BcPrep.Reading;
 using BcPrep.Rig;
+using BcPrep.Steady;
 using BcPrep.Uncertainty;
 
 namespace BcPrep.Live;
@@ -12,14 +13,18 @@ namespace BcPrep.Live;
 /// reports each key channel's approach and, once settled, the hold its target needs. No clock: time is the logs'.
 /// </summary>
 /// <remarks>
-/// A step is a change of more than a key's <c>step</c> between the means of two neighbouring runs of blocks, each
-/// <see cref="StepHalfWindowS"/> long ("common practice", as the detector's step finder). A stretch that was settled
-/// on every key channel for at least <c>min_duration</c> when the step came is a finished point.
+/// A step begins where the day's own detection puts it: the block means of the detection's channels (the keys and
+/// the heater's step markers, <see cref="DetectionKeys"/>) are fed to the same incremental plateau detection that
+/// <c>process</c> runs during its read (<see cref="PlateauScan"/>), and a new plateau there is a new stretch here. So
+/// the stretches followed live are the plateaus <c>process</c> finds, step for step. A step is known once the
+/// detection is certain of it: when its step finder's run has ended, some 20–40 s after the step on 1 s blocks.
+/// A stretch that was settled on every key channel for at least <c>min_duration</c> when the step came is a
+/// finished point.
 /// </remarks>
 public sealed class LiveMonitor
 {
-    /// <summary>Length of each of the two runs of blocks compared to find a step, s.</summary>
-    public const double StepHalfWindowS = 10.0;
+    /// <summary>Length of each of the two runs of blocks compared to find a step, s (as the day's detection).</summary>
+    public const double StepHalfWindowS = PlateauDetector.StepHalfWindowS;
 
     private readonly RigDescription _rig;
     private readonly ISettlingEstimator _estimator;
@@ -35,6 +40,10 @@ public sealed class LiveMonitor
     private readonly double[] _blockSum;
     private readonly int[] _blockCount;
     private readonly int _half;
+    private readonly PlateauScan _scan;
+    private readonly int[] _detectionTrack;
+    private readonly double[] _detectionMeans;
+    private readonly List<double> _steps = [];
     private double _t0 = double.NaN;
     private long _block = -1;
     private double _stretchStartS;
@@ -49,7 +58,14 @@ public sealed class LiveMonitor
             throw new BcPrepFailure(FailureKind.Configuration, new SourceLocation(rig.SourceFile, null, null, "steady.key"),
                 "following a day needs key channels in [steady] (key = [{ channel = ..., max_change = ..., max_scatter = ... }])");
         }
-        _channels = _keys.Select(k => rig.Channels.Single(c => c.Id == k.Channel)).ToArray();
+        // The channels that mark steps in the day's detection: the keys and the heater's step markers, tracked
+        // after the keys (which alone are reported).
+        var detection = DetectionKeys.For(rig, _ => []);
+        _channels = _keys.Select(k => k.Channel).Concat(detection.Select(m => m.Name)).Distinct(StringComparer.Ordinal)
+            .Select(id => rig.Channels.Single(c => c.Id == id)).ToArray();
+        _detectionTrack = detection.Select(m => Array.FindIndex(_channels, c => c.Id == m.Name)).ToArray();
+        _detectionMeans = new double[detection.Count];
+        _scan = new PlateauScan(detection, WindowFinder.Settings(rig.Steady), rig.Steady.BlockS);
         var columns = new List<string>();
         int ColumnOf(ChannelSpec c)
         {
@@ -92,6 +108,9 @@ public sealed class LiveMonitor
         _blockCount = new int[_channels.Length];
         _half = Math.Max(3, (int)Math.Round(StepHalfWindowS / rig.Steady.BlockS));
     }
+
+    /// <summary>Every step found so far, s since the day's first row.</summary>
+    public IReadOnlyList<double> StepsS => _steps;
 
     /// <summary>Time of the last row read, s since the day's first row (NaN before any).</summary>
     public double NowS { get; private set; } = double.NaN;
@@ -170,22 +189,17 @@ public sealed class LiveMonitor
             _blockSum[i] = 0;
             _blockCount[i] = 0;
         }
-        var n = _tracks[0].Count;
-        if (n < 2 * _half)
+        for (var d = 0; d < _detectionTrack.Length; d++)
+        {
+            _detectionMeans[d] = _tracks[_detectionTrack[d]].Values[^1];
+        }
+        _scan.Add(blockTime, _detectionMeans);
+        var stepS = _scan.PlateauStartS;
+        if (!(stepS > _stretchStartS + (0.5 * _rig.Steady.BlockS)))
         {
             return null;
         }
-        var stepped = false;
-        for (var i = 0; i < _channels.Length; i++)
-        {
-            var change = Math.Abs(_tracks[i].MeanOf(n - _half, n) - _tracks[i].MeanOf(n - (2 * _half), n - _half));
-            stepped |= change > _keys[i].StepSi;
-        }
-        if (!stepped)
-        {
-            return null;
-        }
-        var stepS = _tracks[0].Times[n - _half] - (0.5 * _rig.Steady.BlockS);
+        _steps.Add(stepS);
         var before = Report(stepS);
         FinishedStretch? finished = null;
         if (before.Settled && stepS - before.SettledFromS >= _rig.Steady.MinDurationS)
@@ -204,7 +218,7 @@ public sealed class LiveMonitor
     public StretchReport Report(double nowS)
     {
         var channels = new List<ChannelReport>();
-        for (var i = 0; i < _channels.Length; i++)
+        for (var i = 0; i < _keys.Length; i++)
         {
             channels.Add(ReportChannel(i, nowS));
         }
@@ -215,8 +229,10 @@ public sealed class LiveMonitor
     {
         var track = _tracks[i];
         var key = _keys[i];
-        var last = track.Count > 0 ? track.MeanOf(Math.Max(0, track.Count - _half), track.Count) : double.NaN;
-        var view = track.Count >= 2 * _half ? _estimator.Estimate(track.Times, track.Values, _stretchStartS, nowS, key.MaxChangeSi) : null;
+        // The blocks before nowS only: a stretch is judged at its step, when blocks of the next level are already in.
+        var n = track.CountBefore(nowS);
+        var last = n > 0 ? track.MeanOf(Math.Max(0, n - _half), n) : double.NaN;
+        var view = n >= 2 * _half ? _estimator.Estimate(track.Times[..n], track.Values[..n], _stretchStartS, nowS, key.MaxChangeSi) : null;
         if (view is null)
         {
             return new ChannelReport(_channels[i].Id, ChannelState.Moving, last, double.NaN, double.NaN, double.NaN, double.NaN, null);
@@ -226,7 +242,7 @@ public sealed class LiveMonitor
             return new ChannelReport(_channels[i].Id, ChannelState.Approaching, last, view.TauS, view.RemainingChange, view.SettledFromS, view.SettledFromS - nowS, null);
         }
         var settledSince = Math.Max(view.SettledFromS, _stretchStartS);
-        var held = track.FiniteValuesFrom(settledSince);
+        var held = track.FiniteValuesFrom(settledSince, nowS);
         var mean = held.Length > 0 ? held.Average() : last;
         return new ChannelReport(_channels[i].Id, ChannelState.Settled, mean, view.TauS, view.RemainingChange, settledSince, 0.0, Hold(i, held, nowS - settledSince));
     }

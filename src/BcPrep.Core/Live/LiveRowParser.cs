@@ -58,7 +58,11 @@ public sealed class LiveRowParser
         var cells = line.Text.Split(_separator);
         if (cells.Length != _header.Length)
         {
-            throw Fail(line, null, $"the row has {cells.Length} fields but the header has {_header.Length}");
+            // Named at the first column the row lacks, or the first one it has beyond the header.
+            var column = Math.Min(cells.Length, _header.Length);
+            throw Fail(line, column, cells.Length < _header.Length
+                ? $"the row has {cells.Length} fields but the header has {_header.Length}: it ends before column {column + 1} ('{_header[column]}'); a logger that was stopped mid-row?"
+                : $"the row has {cells.Length} fields but the header has {_header.Length}: column {column + 1} is beyond the header");
         }
         timeS = ParseTime(line, cells[_timeIndex].Trim());
         for (var c = 0; c < _indices.Length; c++)

@@ -17,14 +17,25 @@ public static class OrificeMeter
     private const double ConvergenceTolerance = 1e-10;
     private const int MaxIterations = 100;
 
-    /// <summary>Computes the mass flow and the standard's uncertainty statements for one operating point.</summary>
-    public static DifferentialPressureFlowResult MassFlow(DifferentialPressureFlowInput input, OrificeTapping tapping)
+    /// <summary>
+    /// Computes the mass flow and the standard's uncertainty statements for one operating point. The standard's
+    /// geometry range (50 mm ≤ D ≤ 1 m, d ≥ 12.5 mm, 0.1 ≤ β ≤ 0.75) is checked when <paramref name="checkGeometry"/>
+    /// is true: a caller judges it once at the meter's declared geometry, and re-evaluations at perturbed diameters
+    /// (numerical derivatives, Monte Carlo draws) skip it, so that a meter built at the edge of the range keeps its
+    /// uncertainty.
+    /// </summary>
+    public static DifferentialPressureFlowResult MassFlow(DifferentialPressureFlowInput input, OrificeTapping tapping, bool checkGeometry = true)
     {
         ArgumentNullException.ThrowIfNull(input);
         const string method = "ISO 5167-2 orifice plates";
-        Require.InRange(input.PipeDiameterM, 0.050, 1.000, "pipe diameter", "m", method);
-        Require.InRange(input.ThroatDiameterM, 0.0125, input.PipeDiameterM, "orifice bore", "m", method);
-        var beta = Require.InRange(input.ThroatDiameterM / input.PipeDiameterM, 0.1, 0.75, "diameter ratio beta", "", method);
+        if (checkGeometry)
+        {
+            const double slack = VenturiTube.RangeSlack; // an orifice exactly at an end of the range is inside it
+            Require.InRange(input.PipeDiameterM, 0.050 * (1 - slack), 1.000 * (1 + slack), "pipe diameter", "m", method);
+            Require.InRange(input.ThroatDiameterM, 0.0125 * (1 - slack), input.PipeDiameterM, "orifice bore", "m", method);
+            Require.InRange(input.ThroatDiameterM / input.PipeDiameterM, 0.1 * (1 - slack), 0.75 * (1 + slack), "diameter ratio beta", "", method);
+        }
+        var beta = OrificePlate.DiameterRatio(input.PipeDiameterM, input.ThroatDiameterM);
         Require.Positive(input.DifferentialPressurePa, "differential pressure", "Pa");
         Require.Positive(input.UpstreamDensityKgPerM3, "upstream density", "kg/m3");
         Require.Positive(input.ViscosityPaS, "viscosity", "Pa s");

@@ -17,6 +17,9 @@ public static class VenturiTube
     /// <summary>Discharge coefficient of the machined-convergent classical Venturi tube.</summary>
     public const double MachinedConvergentDischargeCoefficient = 0.995;
 
+    /// <summary>Relative slack on the ends of the geometry range, far below any machining tolerance, so that rounding in unit conversions and ratios does not move a meter at an end outside.</summary>
+    internal const double RangeSlack = 1e-9;
+
     /// <summary>Its 95 % relative uncertainty, %.</summary>
     public const double MachinedConvergentExpandedUncertaintyPercent = 1.0;
 
@@ -53,15 +56,23 @@ public static class VenturiTube
 
     /// <summary>
     /// As <see cref="MassFlow(DifferentialPressureFlowInput)"/> for the given convergent form (ISO 5167-4): its C and
-    /// uncertainty, its pipe-diameter and β range (outside them: an error), its Re_D range (outside: a warning).
+    /// uncertainty, its pipe-diameter and β range (outside them: an error), its Re_D range (outside: a warning). The
+    /// geometry range is checked when <paramref name="checkGeometry"/> is true: a caller judges it once at the meter's
+    /// declared geometry, and re-evaluations at perturbed diameters (numerical derivatives, Monte Carlo draws) skip
+    /// it, so that a meter built at the edge of the range keeps its uncertainty.
     /// </summary>
-    public static DifferentialPressureFlowResult MassFlow(DifferentialPressureFlowInput input, VenturiConvergent convergent)
+    public static DifferentialPressureFlowResult MassFlow(DifferentialPressureFlowInput input, VenturiConvergent convergent, bool checkGeometry = true)
     {
         ArgumentNullException.ThrowIfNull(input);
         var form = VenturiForm.Of(convergent);
         var method = "ISO 5167-4 classical Venturi tubes (" + form.Name + ")";
-        Require.InRange(input.PipeDiameterM, form.MinPipeDiameterM, form.MaxPipeDiameterM, "pipe diameter", "m", method);
-        var beta = Require.InRange(input.ThroatDiameterM / input.PipeDiameterM, form.MinBeta, form.MaxBeta, "diameter ratio beta", "", method);
+        if (checkGeometry)
+        {
+            // A meter built exactly at an end of the range is inside it: 20 mm / 50 mm is 0.39999999999999997 in binary.
+            Require.InRange(input.PipeDiameterM, form.MinPipeDiameterM * (1 - RangeSlack), form.MaxPipeDiameterM * (1 + RangeSlack), "pipe diameter", "m", method);
+            Require.InRange(input.ThroatDiameterM / input.PipeDiameterM, form.MinBeta * (1 - RangeSlack), form.MaxBeta * (1 + RangeSlack), "diameter ratio beta", "", method);
+        }
+        var beta = OrificePlate.DiameterRatio(input.PipeDiameterM, input.ThroatDiameterM);
         Require.Positive(input.DifferentialPressurePa, "differential pressure", "Pa");
         Require.Positive(input.UpstreamDensityKgPerM3, "upstream density", "kg/m3");
         Require.Positive(input.ViscosityPaS, "viscosity", "Pa s");

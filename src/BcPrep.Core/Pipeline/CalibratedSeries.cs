@@ -1,12 +1,13 @@
 using BcPrep.Reading;
 using BcPrep.Rig;
+using BcPrep.Values;
 
 namespace BcPrep.Pipeline;
 
 /// <summary>
 /// Streams a day's calibrated (SI) time series, logger by logger, with tares applied. A tare needs its interval's
 /// mean before the first row can be corrected, so a day with tares is read twice. The tare is the one the point model
-/// subtracts (<see cref="FaultPolicy.Evaluate"/>'s de-spiked window mean), so both commands agree.
+/// subtracts (<see cref="FaultPolicy.Evaluate(RigDescription, string, TimeWindow, double[], double[], DayStart)"/>'s de-spiked window mean), so both commands agree.
 /// </summary>
 public static class CalibratedSeries
 {
@@ -23,7 +24,7 @@ public static class CalibratedSeries
     {
         var result = new Dictionary<string, double>(StringComparer.Ordinal);
         var windows = rig.Channels.Where(c => c.Tare is not null)
-            .Select(c => TimeWindow.Tare(c.Id, DayProcessor.Resolve(c.Tare!.Start, plan.DayStartS), DayProcessor.Resolve(c.Tare.End, plan.DayStartS)))
+            .Select(c => TimeWindow.Tare(c.Id, plan.Start.Resolve(c.Tare!.Start).Value, plan.Start.Resolve(c.Tare.End).Value))
             .ToList();
         if (windows.Count == 0)
         {
@@ -38,7 +39,7 @@ public static class CalibratedSeries
                     throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel), $"the tare interval of '{channel}' holds no samples");
                 }
                 // The tare `process` subtracts: the window statistics' mean (gaps bridged, spikes replaced).
-                result[channel] = FaultPolicy.Evaluate(rig, channel, w, times, values, plan.DayStartS).TypeA.Mean;
+                result[channel] = FaultPolicy.Evaluate(rig, channel, w, times, values, plan.Start).TypeA.Mean;
             }
         });
         DayScan.Run(rig, plan, converters, [collector]);

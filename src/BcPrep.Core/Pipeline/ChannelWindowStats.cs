@@ -1,5 +1,6 @@
 using BcPrep.Conditioning;
 using BcPrep.Uncertainty;
+using BcPrep.Values;
 
 namespace BcPrep.Pipeline;
 
@@ -41,15 +42,15 @@ public static class WindowStatistics
     /// Notch and low-pass settings are not used here on purpose: a low-pass narrows the scatter and would
     /// understate the Type A uncertainty. What was done is in <see cref="ChannelWindowStats.Conditioning"/>.
     /// </summary>
-    /// <remarks>Messages give times since dayStartS, the first sample of the day on the log clock.</remarks>
-    public static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, double[] values, ConditioningSettings settings, SensorFaultLimits limits, double dayStartS = 0.0)
+    /// <remarks>Messages give times since <paramref name="dayStart"/>, the first sample of the day (by default the clock's zero).</remarks>
+    public static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, double[] values, ConditioningSettings settings, SensorFaultLimits limits, DayStart dayStart = default)
     {
         ArgumentNullException.ThrowIfNull(settings);
         var finite = FiniteCount(values);
         if (finite < 3)
         {
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel),
-                $"window '{window.Id}' ({window.StartS - dayStartS:F1}–{window.EndS - dayStartS:F1} s since the first sample of the day) holds {finite} valid samples of '{channel}'; at least 3 are needed");
+                $"window '{window.Id}' ({dayStart.Since(window.Start).Value:F1}–{dayStart.Since(window.End).Value:F1} s since the first sample of the day) holds {finite} valid samples of '{channel}'; at least 3 are needed");
         }
         var bridged = GapBridging.Bridge(timesS, values, settings.MaxBridgeS);
         var interior = bridged.Report.Unbridged.Where(g => !g.AtRecordEdge).ToList();
@@ -58,7 +59,7 @@ public static class WindowStatistics
         {
             var gap = interior.OrderByDescending(g => g.DurationS).First();
             throw new WindowLostFailure(new SourceLocation("(logs)", Key: channel), string.Create(System.Globalization.CultureInfo.InvariantCulture,
-                $"channel '{channel}' lost {lostS:F1} s of window '{window.Id}' ({window.StartS - dayStartS:F1}–{window.EndS - dayStartS:F1} s since the first sample of the day) to {interior.Count} gap(s) longer than the {settings.MaxBridgeS:G} s that may be bridged, the longest {gap.DurationS:F1} s from {gap.StartS - dayStartS:F1} s; more than {LostFractionLimit:P0} of the window is too little left to stand for it"));
+                $"channel '{channel}' lost {lostS:F1} s of window '{window.Id}' ({dayStart.Since(window.Start).Value:F1}–{dayStart.Since(window.End).Value:F1} s since the first sample of the day) to {interior.Count} gap(s) longer than the {settings.MaxBridgeS:G} s that may be bridged, the longest {gap.DurationS:F1} s from {dayStart.Since(new LoggerSeconds(gap.StartS)).Value:F1} s; more than {LostFractionLimit:P0} of the window is too little left to stand for it"));
         }
         var (keptTimes, kept) = FiniteSamples(bridged.TimesS, bridged.Values);
         var despiked = HampelFilter.Apply(kept, settings.HampelHalfWindow, settings.HampelSigmas, settings.HampelScaleFloor);

@@ -63,7 +63,7 @@ public static class DayProcessor
             }
         }
         // Point ids are given here, once: a window pinned by hand replaces the detected ones it overlaps.
-        var windowPlan = PointWindows.Plan(pinned, detection, plan.DayStartS);
+        var windowPlan = PointWindows.Plan(pinned, detection, plan.Start);
         if (windowPlan.Points.Count == 0)
         {
             throw new BcPrepFailure(FailureKind.NoSteadyPoint, WindowFinder.NoSteadyProblems(rig, detection!));
@@ -92,7 +92,7 @@ public static class DayProcessor
         }
         else if (detection is not null)
         {
-            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, plan.DayStartS));
+            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, plan.Start));
         }
 
         var tareStats = TareStats(tareWindows, stats);
@@ -111,7 +111,7 @@ public static class DayProcessor
         {
             (points, matrix) = MatrixNaming.Apply(options.Matrix, points);
         }
-        return new DayResult(rig, plan.DayStartS, points, series, detection, dayWarnings) { FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = secondRead.Count };
+        return new DayResult(rig, plan.Start, points, series, detection, dayWarnings) { FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = secondRead.Count };
     }
 
     /// <summary>
@@ -127,7 +127,7 @@ public static class DayProcessor
     /// Maps the items on the thread pool (each point's propagation is independent and pure) and returns the results
     /// in item order; the failure of the first failing item, in that order, is the one thrown, whatever the scheduling.
     /// </summary>
-    private static List<TResult> InOrder<TItem, TResult>(IReadOnlyList<TItem> items, Func<TItem, TResult> map)
+    internal static List<TResult> InOrder<TItem, TResult>(IReadOnlyList<TItem> items, Func<TItem, TResult> map)
     {
         var results = new TResult[items.Count];
         var failures = new ExceptionDispatchInfo?[items.Count];
@@ -153,14 +153,14 @@ public static class DayProcessor
 
     private const string EndTarePrefix = "tare-end:";
 
-    private static List<TimeWindow> TareWindows(RigDescription rig, double dayStartS) =>
+    internal static List<TimeWindow> TareWindows(RigDescription rig, double dayStartS) =>
         [.. rig.Channels.Where(c => c.Tare is not null)
             .Select(c => TimeWindow.Tare(c.Id, Resolve(c.Tare!.Start, dayStartS), Resolve(c.Tare.End, dayStartS))),
          .. rig.Channels.Where(c => c.Tare is not null && c.TareEnd is not null)
             .Select(c => new TimeWindow(EndTarePrefix + c.Id, Resolve(c.TareEnd!.Start, dayStartS), Resolve(c.TareEnd.End, dayStartS)) { TareOf = c.Id })];
 
     /// <summary>Channels tared at both ends of the day: the end tare's statistics and both tare mid-times.</summary>
-    private static Dictionary<string, EndTare> EndTares(IReadOnlyList<TimeWindow> tareWindows, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
+    internal static Dictionary<string, EndTare> EndTares(IReadOnlyList<TimeWindow> tareWindows, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
     {
         var result = new Dictionary<string, EndTare>(StringComparer.Ordinal);
         foreach (var end in tareWindows.Where(w => w.Id.StartsWith(EndTarePrefix, StringComparison.Ordinal)))
@@ -174,7 +174,7 @@ public static class DayProcessor
         return result;
     }
 
-    private static void Collect(RigDescription rig, double dayStartS, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,
+    internal static void Collect(RigDescription rig, double dayStartS, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,
         SourceLocation? pinnedAt = null)
     {
         if (pinnedAt is null)
@@ -220,7 +220,7 @@ public static class DayProcessor
     }
 
     /// <summary>Where a window pinned in the rig file (operating point or tare) is written; null for a detected one.</summary>
-    private static SourceLocation? PinnedLocation(RigDescription rig, TimeWindow window)
+    internal static SourceLocation? PinnedLocation(RigDescription rig, TimeWindow window)
     {
         if (window.TareOf is { } channel)
         {
@@ -230,7 +230,7 @@ public static class DayProcessor
         return rig.Points.FirstOrDefault(p => p.Id == window.Id)?.Location;
     }
 
-    private static Dictionary<string, ChannelWindowStats> TareStats(IReadOnlyList<TimeWindow> tareWindows, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
+    internal static Dictionary<string, ChannelWindowStats> TareStats(IReadOnlyList<TimeWindow> tareWindows, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
     {
         var result = new Dictionary<string, ChannelWindowStats>(StringComparer.Ordinal);
         foreach (var window in tareWindows.Where(w => !w.Id.StartsWith(EndTarePrefix, StringComparison.Ordinal)))
@@ -243,7 +243,7 @@ public static class DayProcessor
         return result;
     }
 
-    private static PointResult EvaluatePoint(RigDescription rig, TimeWindow window, WindowOrigin origin,
+    internal static PointResult EvaluatePoint(RigDescription rig, TimeWindow window, WindowOrigin origin,
         IReadOnlyDictionary<string, ChannelWindowStats> channels, IReadOnlyDictionary<string, ChannelWindowStats> tares,
         IReadOnlyDictionary<string, EndTare> endTares, ProcessOptions options)
     {

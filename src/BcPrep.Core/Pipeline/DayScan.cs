@@ -22,10 +22,11 @@ public static class DayScan
         IBlockSink? blockSink = null,
         ReadProgress? progress = null,
         ScanIndex? index = null,
-        IReadOnlyList<TimeWindow>? onlyWindows = null)
+        IReadOnlyList<TimeWindow>? onlyWindows = null,
+        Action<LogInput, long, long>? onFileRead = null)
     {
         progress?.StartPass();
-        var reading = new ReadingPlan(index, onlyWindows?.OrderBy(w => w.StartS).ToList());
+        var reading = new ReadingPlan(index, onlyWindows?.OrderBy(w => w.StartS).ToList(), onFileRead);
         foreach (var logger in plan.Loggers)
         {
             ScanLogger(rig, logger, converters, sinks, blockSink, progress, reading);
@@ -36,7 +37,11 @@ public static class DayScan
     /// How the files are read: in full, recording the block index when one is given; or, with windows and an index
     /// from an earlier pass, only the blocks that cover the windows.
     /// </summary>
-    private sealed record ReadingPlan(ScanIndex? Index, IReadOnlyList<TimeWindow>? Windows);
+    /// <param name="Index">Block index to record (full read) or to seek by (windows only).</param>
+    /// <param name="Windows">The windows to read, or null to read everything.</param>
+    /// <param name="OnFileRead">Told, after a file was read in full (to its <see cref="LogInput.LengthLimit"/>), the byte
+    /// offset reached and the last line read, so that a later scan can resume there (<see cref="LogInput.ResumeAt"/>).</param>
+    private sealed record ReadingPlan(ScanIndex? Index, IReadOnlyList<TimeWindow>? Windows, Action<LogInput, long, long>? OnFileRead);
 
     private static void ScanLogger(RigDescription rig, LoggerFiles logger, IReadOnlyDictionary<string, BlockConverter> converters, IReadOnlyList<IChannelSink> sinks, IBlockSink? blockSink, ReadProgress? progress, ReadingPlan reading)
     {
@@ -108,8 +113,12 @@ public static class DayScan
                         ReadWindowsOnly(reader, blocks, reading.Windows!, file, free, filled, progress, reading.Index!, stop.Token);
                         continue;
                     }
+                    if (file.ResumeAt is { } resume)
+                    {
+                        reader.SeekTo(resume.Offset, resume.Line);
+                    }
                     var first = true;
-                    var reported = 0L;
+                    var reported = reader.BytesRead;
                     while (true)
                     {
                         var block = free.Take(stop.Token);
@@ -124,6 +133,7 @@ public static class DayScan
                         filled.Add((file, block, first), stop.Token);
                         first = false;
                     }
+                    reading.OnFileRead?.Invoke(file, reader.BytesRead, reader.LastLine);
                 }
             }
             finally
@@ -192,6 +202,12 @@ public static class DayScan
                 progress?.Advance(reader.BytesRead - start);
                 filled.Add((file, block, false), stop);
                 next++;
+                // A block read may span several shorter blocks of the index (a log read piecewise as it grew): those
+                // are delivered too, so the reader never seeks back to them.
+                while (next < blocks.Count && blocks[next].Offset < reader.BytesRead)
+                {
+                    next++;
+                }
             }
         }
     }

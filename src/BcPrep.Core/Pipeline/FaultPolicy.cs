@@ -1,6 +1,7 @@
 using System.Globalization;
 using BcPrep.Conditioning;
 using BcPrep.Rig;
+using BcPrep.Values;
 
 namespace BcPrep.Pipeline;
 
@@ -37,24 +38,31 @@ public static class FaultPolicy
     /// each fault judged. A failing fault raises <see cref="BcPrepFailure"/> (<see cref="FailureKind.InputData"/>,
     /// exit code 3) naming channel, window and evidence.
     /// </summary>
-    public static ChannelWindowStats Evaluate(RigDescription rig, string channelId, TimeWindow window, double[] timesS, double[] values, double dayStartS)
+    public static ChannelWindowStats Evaluate(RigDescription rig, string channelId, TimeWindow window, double[] timesS, double[] values, DayStart dayStart)
     {
         ArgumentNullException.ThrowIfNull(rig);
         ArgumentNullException.ThrowIfNull(window);
         var channel = rig.Channel(channelId);
         if (channel is null)
         {
-            return WindowStatistics.Evaluate(channelId, window, timesS, values, new ConditioningSettings(MaxBridgeS: rig.Conditioning.MaxBridgeS, HampelHalfWindow: rig.Conditioning.HampelHalfWindow, HampelSigmas: rig.Conditioning.HampelSigmas), new SensorFaultLimits(), dayStartS);
+            return WindowStatistics.Evaluate(channelId, window, timesS, values, new ConditioningSettings(MaxBridgeS: rig.Conditioning.MaxBridgeS, HampelHalfWindow: rig.Conditioning.HampelHalfWindow, HampelSigmas: rig.Conditioning.HampelSigmas), new SensorFaultLimits(), dayStart);
         }
         var limits = ChannelConditioningPlan.Limits(channel);
-        var stats = WindowStatistics.Evaluate(channelId, window, timesS, values, ChannelConditioningPlan.Settings(rig, channel), limits, dayStartS);
+        var stats = WindowStatistics.Evaluate(channelId, window, timesS, values, ChannelConditioningPlan.Settings(rig, channel), limits, dayStart);
         var report = stats.Conditioning!;
         var verdicts = report.Faults.Select(v => v with { Severity = Judge(channel, v.Flag, limits) }).ToList();
         if (verdicts.FirstOrDefault(v => v.Severity == FaultSeverity.Failure) is { } failing)
         {
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channelId), string.Create(CultureInfo.InvariantCulture,
-                $"channel '{channelId}' ({channel.Role}) in window '{window.Id}' ({window.StartS - dayStartS:F1}–{window.EndS - dayStartS:F1} s), from {failing.FirstTimeS - dayStartS:F1} s: {failing.Flag.Kind}: {failing.Flag.Evidence}; its mean cannot serve as a boundary condition"));
+                $"channel '{channelId}' ({channel.Role}) in window '{window.Id}' ({dayStart.Since(window.Start).Value:F1}–{dayStart.Since(window.End).Value:F1} s), from {dayStart.Since(new LoggerSeconds(failing.FirstTimeS)).Value:F1} s: {failing.Flag.Kind}: {failing.Flag.Evidence}; its mean cannot serve as a boundary condition"));
         }
         return stats with { Conditioning = report with { Faults = verdicts } };
     }
+
+    /// <summary>
+    /// <see cref="Evaluate(RigDescription, string, TimeWindow, double[], double[], DayStart)"/> for the day processor, which
+    /// still holds the day start as bare log-clock seconds; goes when it takes a <see cref="DayStart"/>.
+    /// </summary>
+    public static ChannelWindowStats Evaluate(RigDescription rig, string channelId, TimeWindow window, double[] timesS, double[] values, double dayStartS) =>
+        Evaluate(rig, channelId, window, timesS, values, new DayStart(new LoggerSeconds(dayStartS)));
 }

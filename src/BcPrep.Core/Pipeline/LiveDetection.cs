@@ -34,7 +34,8 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource
     private readonly double _keptSpanS;
     private readonly HashSet<TimeWindow> _gathered = [];
     private int _fedBlocks;
-    private int _judged;
+    private int _judgedCount;
+    private int _finalCount;
 
     /// <param name="rig">The rig: key channels and detection settings.</param>
     /// <param name="dayStartS">Log-clock time of the day's first sample (s).</param>
@@ -104,23 +105,35 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource
         }
     }
 
+    /// <summary>
+    /// Gathers each window as soon as its plateau is judged, and a final window that differs from what was judged
+    /// (one extended by a merge) if its rows are still kept.
+    /// </summary>
     private void GatherFinal()
     {
-        for (; _judged < _scan.Final.Count; _judged++)
+        for (; _judgedCount < _scan.Judged.Count; _judgedCount++)
         {
-            var window = _scan.Final[_judged];
-            var stretch = Interval(_dayStartS + window.StretchStartS, _dayStartS + window.StretchEndS);
-            if (_pinned.Any(p => PointWindows.Overlap(p, stretch) > 0))
-            {
-                continue;
-            }
-            // The same expression as the day's plan (PointWindows.Plan), so the interval is the point's bit for bit.
-            var interval = Interval(_dayStartS + window.StartS, _dayStartS + window.EndS);
-            if (_rows.Covers(interval))
-            {
-                _rows.Gather(interval, (channel, times, values) => _onWindow(interval, channel, times, values));
-                _gathered.Add(interval);
-            }
+            Gather(_scan.Judged[_judgedCount]);
+        }
+        for (; _finalCount < _scan.Final.Count; _finalCount++)
+        {
+            Gather(_scan.Final[_finalCount]);
+        }
+    }
+
+    private void Gather(SteadyWindow window)
+    {
+        var stretch = Interval(_dayStartS + window.StretchStartS, _dayStartS + window.StretchEndS);
+        if (_pinned.Any(p => PointWindows.Overlap(p, stretch) > 0))
+        {
+            return;
+        }
+        // The same expression as the day's plan (PointWindows.Plan), so the interval is the point's bit for bit.
+        var interval = Interval(_dayStartS + window.StartS, _dayStartS + window.EndS);
+        if (!_gathered.Contains(interval) && _rows.Covers(interval))
+        {
+            _rows.Gather(interval, (channel, times, values) => _onWindow(interval, channel, times, values));
+            _gathered.Add(interval);
         }
     }
 }

@@ -60,14 +60,15 @@ public sealed partial class PointModel
                 : PointPhysics.Density(_inletPressure(x), _inletTemperature(x), humidity(x)) * (p / _inletPressure(x)) * (_inletTemperature(x) / t);
             return new DifferentialPressureFlowInput(x[pipe], x[throat], dp(x), p, rho, DryAir.Viscosity(t) * x[_viscosityFactor], spec.IsentropicExponent);
         }
-        DifferentialPressureFlowResult Meter(double[] x) => spec.Calibration is { } calibration
+        // The standard's geometry range is judged at the declared geometry only (see VenturiTube.MassFlow).
+        DifferentialPressureFlowResult Meter(double[] x, bool checkGeometry = false) => spec.Calibration is { } calibration
             ? CalibratedMeter.MassFlow(Input(x), calibration, venturi: spec.Kind == FlowMeterKind.Venturi)
             : spec.Kind == FlowMeterKind.Orifice
-                ? OrificeMeter.MassFlow(Input(x), spec.Tapping)
-                : VenturiTube.MassFlow(Input(x), spec.Convergent);
+                ? OrificeMeter.MassFlow(Input(x), spec.Tapping, checkGeometry)
+                : VenturiTube.MassFlow(Input(x), spec.Convergent, checkGeometry);
 
         var estimates = Estimates();
-        var nominal = Meter(estimates);
+        var nominal = Meter(estimates, checkGeometry: true);
         var nominalInput = Input(estimates);
         FlowMeter = new FlowMeterNominal(spec.Kind, spec.Kind == FlowMeterKind.Orifice ? spec.Tapping : null, nominal,
             nominalInput.UpstreamPressurePa, t1(estimates), nominalInput.UpstreamDensityKgPerM3)

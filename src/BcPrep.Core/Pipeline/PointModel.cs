@@ -46,6 +46,9 @@ public sealed partial class PointModel
 
     public PointSettings Settings => _settings;
 
+    /// <summary>True when an outlet channel without a radius gives outlet.temperature (else the outlet rake's mixing cup, else the inlet temperature).</summary>
+    public bool HasPlainOutletTemperature { get; private set; }
+
     public static PointModel Build(
         RigDescription rig,
         IReadOnlyDictionary<string, ChannelWindowStats> window,
@@ -58,6 +61,7 @@ public sealed partial class PointModel
         model.AddEndTares(rig, endTares, pointMidS);
         model.AddModelInputs(rig, window);
         model.ResolveRoles(rig);
+        model.AddProfileShapeInput();
         model.DefineOutputs();
         return model;
     }
@@ -265,7 +269,9 @@ public sealed partial class PointModel
         ResolveProfileInputs(rig);
         _inletTemperature = Optional(rig, ChannelRole.BulkTemperature, "inlet") ?? RakeMeanTemperature()
             ?? Required(rig, ChannelRole.BulkTemperature, "inlet", problems, absolute: false);
-        _outletTemperature = Optional(rig, ChannelRole.BulkTemperature, "outlet") ?? _inletTemperature;
+        var plainOutlet = Optional(rig, ChannelRole.BulkTemperature, "outlet");
+        HasPlainOutletTemperature = plainOutlet is not null;
+        _outletTemperature = plainOutlet ?? OutletMixingCupTemperature() ?? _inletTemperature;
         _massFlow = Optional(rig, ChannelRole.MassFlow, null) ?? (problems.Count == 0 ? FlowMeterMassFlow(rig) : null)
             ?? Required(rig, ChannelRole.MassFlow, null, problems, absolute: false);
         _heaterPower = HeaterPower(rig);
@@ -367,6 +373,18 @@ public sealed partial class PointModel
         runs.Add(new([.. Enumerable.Range(0, temperatureProfilePoints).Select(i => new QuantityDefinition(ProfileOutputs.Temperature(i), "K",
                 "inlet temperature from the rake at profile point " + i) { Kind = QuantityKind.ProfilePoint })],
             (_, q, into) => into.AddRange(q.TemperatureProfile?.Profile.Values ?? [])));
+        foreach (var plane in RakePlanes)
+        {
+            // The outlet's mixing-cup temperature is an entry of the scalar table; other planes' follow here.
+            if (plane != "outlet")
+            {
+                var scalar = PointOutputs.MixingCupTemperature(plane);
+                runs.Add(new([scalar.Definition], (m, q, into) => into.Add(scalar.Value(m, q))));
+            }
+            runs.Add(new([.. Enumerable.Range(0, profilePoints).Select(i => new QuantityDefinition(ProfileOutputs.PlaneTemperature(plane, i), "K",
+                    $"{plane} temperature from the rake at profile point {i}") { Kind = QuantityKind.ProfilePoint })],
+                (_, q, into) => into.AddRange(q.Rakes.First(r => r.Plane == plane).Temperature.Profile.Values)));
+        }
         return runs;
     }
 

@@ -12,6 +12,8 @@ public static class PointOutputs
     public static readonly ScalarOutput OutletStaticPressure = new("outlet.static_pressure", "Pa", "absolute static pressure at the outlet plane", (m, _) => m.OutletPressurePa);
     public static readonly ScalarOutput InletTemperature = new("inlet.temperature", "K", "bulk temperature at the inlet plane", (m, _) => m.InletTemperatureK);
     public static readonly ScalarOutput OutletTemperature = new("outlet.temperature", "K", "bulk temperature at the outlet plane", (m, _) => m.OutletTemperatureK);
+    public static readonly ScalarOutput InletMixingCupTemperature = MixingCupTemperature("inlet");
+    public static readonly ScalarOutput OutletMixingCupTemperature = MixingCupTemperature("outlet");
     public static readonly ScalarOutput MassFlow = new("mass_flow", "kg/s", "mass flow through the duct", (m, _) => m.MassFlowKgS);
     public static readonly ScalarOutput HeaterPower = new("heater_power", "W", "electrical heater power", (m, _) => m.HeaterPowerW);
     public static readonly ScalarOutput WallHeatFlux = new("wall.heat_flux", "W/m2", "wall heat flux over the heated length, losses removed", (_, q) => q.WallHeatFlux);
@@ -29,10 +31,18 @@ public static class PointOutputs
     public static readonly ScalarOutput PressureDropExpected = new("pressure_drop.expected", "Pa", "friction (Colebrook) plus flow acceleration between the planes", (_, q) => q.PressureDropExpected);
     public static readonly ScalarOutput EnergyBalanceMismatch = new("energy_balance.mismatch", "1", "(P(1-loss) - m cp (T_out - T_in)) / (P(1-loss))", (_, q) => q.EnergyBalanceMismatch);
 
+    /// <summary>
+    /// The mixing-cup temperature of a plane with a temperature rake (NaN, so left out, at a point without one). The
+    /// inlet's and outlet's are entries of <see cref="Scalars"/>; other planes' come after the profile runs.
+    /// </summary>
+    public static ScalarOutput MixingCupTemperature(string plane) => new($"{plane}.mixing_cup_temperature", "K",
+        $"mixing-cup (bulk) temperature at the {plane} plane from its rake: integral of rho u cp T dA over integral of rho u cp dA",
+        (_, q) => q.Rakes.FirstOrDefault(r => r.Plane == plane)?.MixingCupK ?? double.NaN);
+
     /// <summary>Every scalar output, in output order (declared after the entries: static fields initialise in text order).</summary>
     public static readonly IReadOnlyList<ScalarOutput> Scalars =
     [
-        InletStaticPressure, OutletStaticPressure, InletTemperature, OutletTemperature, MassFlow, HeaterPower,
+        InletStaticPressure, OutletStaticPressure, InletTemperature, OutletTemperature, InletMixingCupTemperature, OutletMixingCupTemperature, MassFlow, HeaterPower,
         WallHeatFlux, InletDensity, InletViscosity, InletBulkVelocity, Reynolds, Mach,
         TurbulenceIntensity, TurbulentKineticEnergy, TurbulenceLengthScale, DissipationRate, SpecificDissipationRate,
         PressureDropMeasured, PressureDropExpected, EnergyBalanceMismatch,

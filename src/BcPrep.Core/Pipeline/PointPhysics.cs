@@ -29,6 +29,12 @@ public sealed record PointMeasurements(
 
     /// <summary>Model-form factor on the correlation's turbulence intensity (1 = the correlation as published).</summary>
     public double TurbulenceIntensityFactor { get; init; } = 1.0;
+
+    /// <summary>Model-form factor on the power-law exponent n = 1/√f (1 = the relation as published).</summary>
+    public double PowerLawExponentFactor { get; init; } = 1.0;
+
+    /// <summary>Temperature rakes at planes other than the inlet, in the rig file's order.</summary>
+    public ImmutableArray<PlaneRake> PlaneRakes { get; init; } = [];
 }
 
 /// <summary>Fixed geometry and settings that are not uncertain inputs.</summary>
@@ -64,6 +70,9 @@ public sealed record PointQuantities(
 
     /// <summary>Water-vapour mole fraction of the air (CIPM-2007); 0 for dry air.</summary>
     public double VapourMoleFraction { get; init; }
+
+    /// <summary>Every plane's temperature rake (the inlet's first) with its mixing-cup temperature; empty without rakes.</summary>
+    public ImmutableArray<RakePlaneResult> Rakes { get; init; } = [];
 }
 
 /// <summary>
@@ -83,7 +92,7 @@ public static class PointPhysics
         var heatFlux = s.HeatedLengthM > 0 ? HeatTransfer.WallHeatFlux(m.HeaterPowerW, m.HeaterLossFraction, m.DiameterM, s.HeatedLengthM) : 0.0;
 
         var velocity = VelocityProfiles.Build(new VelocityProfileRequest(
-            m.MassFlowKgS, rhoIn, muIn, m.DiameterM, s.VelocityModel, s.RadialPoints, s.WallRoughnessM / m.DiameterM));
+            m.MassFlowKgS, rhoIn, muIn, m.DiameterM, s.VelocityModel, s.RadialPoints, s.WallRoughnessM / m.DiameterM) { PowerLawExponentFactor = m.PowerLawExponentFactor });
         var turbulence = Turbulence(m, s, bulk, muIn / rhoIn, reynolds);
 
         var (dpMeasured, dpExpected) = PressureDrop(m, s, rhoIn);
@@ -101,8 +110,31 @@ public static class PointPhysics
                 ? null
                 : TemperatureProfiles.FromRake(velocity.Profile.RadiusM, m.RakeRadiiM, m.RakeTemperaturesK, RakeEndPolicy.ClampConstant),
             VapourMoleFraction = vapour,
+            Rakes = Rakes(m, s, velocity, rhoIn, vapour),
         };
     }
+
+    private static ImmutableArray<RakePlaneResult> Rakes(PointMeasurements m, PointSettings s, VelocityProfileResult inletVelocity, double rhoIn, double vapour)
+    {
+        if (m.RakeRadiiM.IsDefaultOrEmpty && m.PlaneRakes.IsDefaultOrEmpty)
+        {
+            return [];
+        }
+        var rakes = ImmutableArray.CreateBuilder<RakePlaneResult>();
+        if (!m.RakeRadiiM.IsDefaultOrEmpty)
+        {
+            rakes.Add(RakePlanePhysics.AtInlet(new PlaneRake("inlet", m.RakeRadiiM, m.RakeTemperaturesK), inletVelocity, rhoIn, vapour));
+        }
+        foreach (var rake in m.PlaneRakes)
+        {
+            rakes.Add(RakePlanePhysics.AtPlane(rake, m.MassFlowKgS, m.DiameterM, m.ViscosityFactor, m.PowerLawExponentFactor, vapour, s));
+        }
+        return rakes.ToImmutable();
+    }
+
+    /// <summary>Water-vapour mole fraction at (p, T, relative humidity) by CIPM-2007.</summary>
+    public static double VapourMoleFraction(double pressurePa, double temperatureK, double relativeHumidity) =>
+        MoistAir.FromRelativeHumidity(pressurePa, temperatureK, relativeHumidity).VapourMoleFraction;
 
     /// <summary>
     /// Density at (p, T): CIPM-2007 moist air when a relative humidity is given (humidity taken at this state),

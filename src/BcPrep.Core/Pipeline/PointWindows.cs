@@ -1,5 +1,6 @@
 using System.Globalization;
 using BcPrep.Steady;
+using BcPrep.Values;
 
 namespace BcPrep.Pipeline;
 
@@ -28,8 +29,8 @@ public static class PointWindows
 {
     /// <param name="pinned">Windows pinned in the rig file, on the log clock (s).</param>
     /// <param name="detection">Detection result (times since the day's first sample), or null when detection is off.</param>
-    /// <param name="dayStartS">Log-clock time of the day's first sample (s).</param>
-    public static WindowPlan Plan(IReadOnlyList<TimeWindow> pinned, SteadyDetectionResult? detection, double dayStartS)
+    /// <param name="dayStart">The day's first sample, where detection's times meet the log clock.</param>
+    public static WindowPlan Plan(IReadOnlyList<TimeWindow> pinned, SteadyDetectionResult? detection, DayStart dayStart)
     {
         ArgumentNullException.ThrowIfNull(pinned);
         var accepted = detection?.Accepted ?? [];
@@ -40,10 +41,10 @@ public static class PointWindows
         var next = 1;
         foreach (var window in accepted.OrderBy(w => w.StartS))
         {
-            var onClock = new TimeWindow("", dayStartS + window.StartS, dayStartS + window.EndS);
+            var onClock = new TimeWindow("", dayStart.OnClock(window.Start).Value, dayStart.OnClock(window.End).Value);
             // Matched on the whole steady stretch, not only its averaging tail: a stretch is one operating point,
             // so a window pinned early in it must not leave the detected tail behind as a second point.
-            var stretch = new TimeWindow("", dayStartS + window.StretchStartS, dayStartS + window.StretchEndS);
+            var stretch = new TimeWindow("", dayStart.OnClock(window.StretchStart).Value, dayStart.OnClock(window.StretchEnd).Value);
             var owner = pinned.Where(p => Overlap(p, stretch) > 0).OrderByDescending(p => Overlap(p, stretch)).FirstOrDefault();
             if (owner is not null)
             {
@@ -70,14 +71,14 @@ public static class PointWindows
     /// overlaps, or one that reaches outside the steady stretch detected there (its edge may still drift). A pinned
     /// window still wins: the engineer may know better, but should be told.
     /// </summary>
-    public static IReadOnlyList<string> PinnedWarnings(WindowPlan plan, double dayStartS)
+    public static IReadOnlyList<string> PinnedWarnings(WindowPlan plan, DayStart dayStart)
     {
         ArgumentNullException.ThrowIfNull(plan);
         var warnings = new List<string>();
         foreach (var point in plan.Points.Where(p => p.Origin == WindowOrigin.RigFile))
         {
-            var startS = point.Window.StartS - dayStartS;
-            var endS = point.Window.EndS - dayStartS;
+            var startS = dayStart.Since(point.Window.Start).Value;
+            var endS = dayStart.Since(point.Window.End).Value;
             if (point.Detected.Count == 0)
             {
                 warnings.Add(string.Create(CultureInfo.InvariantCulture,

@@ -1,6 +1,7 @@
 using BcPrep.Rig;
 using BcPrep.Steady;
 using BcPrep.Uncertainty;
+using BcPrep.Values;
 
 namespace BcPrep.Pipeline;
 
@@ -51,7 +52,7 @@ public sealed record PointResult(
 /// <summary>The result of processing a test day.</summary>
 public sealed record DayResult(
     RigDescription Rig,
-    double DayStartS,
+    DayStart Start,
     IReadOnlyList<PointResult> Points,
     BlockSeries Blocks,
     SteadyDetectionResult? Detection,

@@ -1,3 +1,5 @@
+using BcPrep.Values;
+
 namespace BcPrep.Pipeline;
 
 /// <summary>A time interval on the log clock (s) for which samples are gathered.</summary>
@@ -5,6 +7,12 @@ public sealed record TimeWindow(string Id, double StartS, double EndS)
 {
     /// <summary>The channel whose no-flow tare this window is; null for an operating point's window.</summary>
     public string? TareOf { get; init; }
+
+    /// <summary>The start on the logger clock, typed.</summary>
+    public LoggerSeconds Start => new(StartS);
+
+    /// <summary>The end on the logger clock, typed.</summary>
+    public LoggerSeconds End => new(EndS);
 
     public double DurationS => EndS - StartS;
 

@@ -2,6 +2,7 @@ using System.Globalization;
 using BcPrep.Reading;
 using BcPrep.Rig;
 using BcPrep.Steady;
+using BcPrep.Values;
 
 namespace BcPrep.Pipeline;
 
@@ -9,11 +10,11 @@ namespace BcPrep.Pipeline;
 /// The steady-window detection of a test day: block means of every channel, and the detector's accepted windows and
 /// rejected stretches. All detection times are seconds since the first sample of the day.
 /// </summary>
-public sealed record DayWindows(double DayStartS, BlockSeries Blocks, SteadyDetectionResult Detection);
+public sealed record DayWindows(DayStart Start, BlockSeries Blocks, SteadyDetectionResult Detection);
 
 /// <summary>
 /// Finds the operating-point windows of a day from the <c>[steady]</c> settings of the rig file: one streaming
-/// block-mean pass, then <see cref="PlateauDetector"/> on the key channels. The same functions serve
+/// block-mean pass, then <see cref="PlateauDetector"/> on the key channels (the same detection that runs during the read of <c>process</c>, <see cref="LiveDetection"/>). The same functions serve
 /// <c>process</c> (through <see cref="DayProcessor"/>) and the <c>windows</c> command, so both see the same windows.
 /// </summary>
 public static class WindowFinder
@@ -35,7 +36,7 @@ public static class WindowFinder
         DayScan.Run(rig, plan, converters, [], feed.BlockSink);
         feed.Complete();
         var series = Series(rig, feed.Blocks);
-        return new DayWindows(plan.DayStartS, series, Detect(rig, series, plan.DayStartS));
+        return new DayWindows(plan.Start, series, Detect(rig, series, plan.DayStartS));
     }
 
     /// <summary>Block means of every rig channel on the common block grid (NaN where a block has no sample).</summary>
@@ -77,15 +78,6 @@ public static class WindowFinder
             throw new BcPrepFailure(FailureKind.NoSteadyPoint, new SourceLocation("(logs)"),
                 string.Create(CultureInfo.InvariantCulture, $"the day holds {series.TimesS.Length} block(s) of {rig.Steady.BlockS} s: too short to look for a steady window"));
         }
-    }
-
-    /// <summary>The detector's key channels from the rig file, with their block means.</summary>
-    public static IReadOnlyList<KeyChannel> KeyChannels(RigDescription rig, Func<string, IReadOnlyList<double>> blockMeans)
-    {
-        ArgumentNullException.ThrowIfNull(rig);
-        ArgumentNullException.ThrowIfNull(blockMeans);
-        return rig.Steady.Keys.Select(k => new KeyChannel(k.Channel, blockMeans(k.Channel), k.MaxChangeSi / rig.Steady.WindowS, k.MaxScatterSi, k.StepSi,
-            k.MinimumSi ?? double.NegativeInfinity)).ToList();
     }
 
     /// <summary>

@@ -26,4 +26,11 @@ public sealed record VelocityProfileRequest(
     double? PowerLawExponent = null,
     double Kappa = WallLaw.DefaultKappa,
     double LogLawIntercept = WallLaw.DefaultB,
-    double GridStretching = RadialGrid.DefaultStretching);
+    double GridStretching = RadialGrid.DefaultStretching)
+{
+    /// <summary>
+    /// Model-form factor on the power-law exponent n = 1/√f (1 = the relation as published); the uncertainty stage
+    /// perturbs it (Physics/ModelForm). Not applied to an exponent given in <see cref="PowerLawExponent"/>.
+    /// </summary>
+    public double PowerLawExponentFactor { get; init; } = 1.0;
+}

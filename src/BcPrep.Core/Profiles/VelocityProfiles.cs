@@ -119,7 +119,7 @@ public static class VelocityProfiles
                         : double.NaN;
                     var n = request.PowerLawExponent is { } given
                         ? Require.InRange(given, 1.0, 20.0, "power-law exponent", "", "the power-law profile")
-                        : 1.0 / Math.Sqrt(f);
+                        : Require.Positive(request.PowerLawExponentFactor, "power-law exponent factor", "") / Math.Sqrt(f);
                     var uMax = bulk / PowerLawBulkToCentrelineRatio(n);
                     var uTau = double.IsNaN(f) ? double.NaN : PipeFlow.FrictionVelocity(bulk, f);
                     return new ModelShape(r => uMax * Math.Pow(Math.Max(1.0 - (r / radius), 0.0), 1.0 / n), f, uTau, n, true, radius);

@@ -1,4 +1,5 @@
 using BcPrep.Rig;
+using BcPrep.Values;
 
 namespace BcPrep.Reading;
 
@@ -6,8 +7,11 @@ namespace BcPrep.Reading;
 /// The logs of one test day sorted into loggers (files sharing the same channel columns) and, within a logger,
 /// into time order. A file's order comes from its first timestamp, so files may be given in any order.
 /// </summary>
-public sealed record DayPlan(IReadOnlyList<LoggerFiles> Loggers, double DayStartS)
+public sealed record DayPlan(IReadOnlyList<LoggerFiles> Loggers, DayStart Start)
 {
+    /// <summary>The first sample on the logger clock as bare seconds, for the pipeline code that does not take a <see cref="DayStart"/> yet.</summary>
+    public double DayStartS => Start.FirstSample.Value;
+
     /// <summary>Groups and orders the inputs; fails naming the channel or file when a column is missing or doubled.</summary>
     public static DayPlan Create(RigDescription rig, IReadOnlyList<LogInput> inputs)
     {
@@ -66,7 +70,7 @@ public sealed record DayPlan(IReadOnlyList<LoggerFiles> Loggers, double DayStart
         var loggers = groups.Values
             .Select(g => new LoggerFiles(g.Channels, g.Files.OrderBy(f => starts[f]).ToList()))
             .ToList();
-        return new DayPlan(loggers, starts.Values.Min());
+        return new DayPlan(loggers, new DayStart(new LoggerSeconds(starts.Values.Min())));
     }
 
     private static (double TimeS, long Line) FirstRow(LogInput input, LogFormat format)

@@ -44,7 +44,7 @@ public sealed class LogFileReader : IDisposable
         _format = format;
         _numbers = new NumberFormatInfo { NumberDecimalSeparator = format.DecimalSeparator.ToString(), NumberGroupSeparator = "" };
         var stream = input.Open();
-        CanSeek = stream is not CheckedGzipStream && !StartsWithUtf16Mark(input.Path);
+        CanSeek = stream is not CheckedGzipStream && !StartsWithUtf16Mark(input);
         _separator = format.Separator ?? SniffSeparator(stream, format.DecimalSeparator);
         _csv = CsvReader.Create(stream, Options(hasHeader: true), leaveOpen: false);
         string[] header;
@@ -99,6 +99,9 @@ public sealed class LogFileReader : IDisposable
     /// </summary>
     public bool CanSeek { get; }
 
+    /// <summary>Line number of the last row read (0 before any).</summary>
+    public long LastLine => _lastLine;
+
     /// <summary>
     /// Continues reading at a row recorded earlier from <see cref="LogBlock.FirstByteOffset"/> and its line (the
     /// header is not read again; column positions stay those of the header).
@@ -110,7 +113,7 @@ public sealed class LogFileReader : IDisposable
             throw new InvalidOperationException("this log cannot be read from an offset");
         }
         _csv.Dispose();
-        var stream = new FileStream(_input.Path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16, FileOptions.SequentialScan);
+        var stream = _input.OpenRaw();
         stream.Seek(byteOffset, SeekOrigin.Begin);
         _csv = CsvReader.Create(stream, Options(hasHeader: false), leaveOpen: false);
         _byteBase = byteOffset;
@@ -127,9 +130,9 @@ public sealed class LogFileReader : IDisposable
         FormatProvider = _numbers,
     };
 
-    private static bool StartsWithUtf16Mark(string path)
+    private static bool StartsWithUtf16Mark(LogInput input)
     {
-        using var file = File.OpenRead(path);
+        using var file = input.OpenRaw(FileOptions.None);
         Span<byte> mark = stackalloc byte[2];
         return file.ReadAtLeast(mark, 2, throwOnEndOfStream: false) == 2 && ((mark[0] == 0xFF && mark[1] == 0xFE) || (mark[0] == 0xFE && mark[1] == 0xFF));
     }

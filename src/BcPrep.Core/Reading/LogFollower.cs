@@ -47,6 +47,15 @@ public sealed class LogFollower
     /// <summary>Bytes of the current file that end in a complete line (the rest is a line still being written).</summary>
     public long CompleteBytes => _offset - _fragment.Count;
 
+    /// <summary>
+    /// Most bytes one <see cref="Poll"/> reads (8 MiB): a follower started late, or fallen behind, takes the backlog in
+    /// pieces, so that memory holds one piece of lines, not the backlog.
+    /// </summary>
+    public const int MaxPollBytes = 8 << 20;
+
+    /// <summary>Whether the last <see cref="Poll"/> stopped at <see cref="MaxPollBytes"/> with more already written.</summary>
+    public bool HasMore { get; private set; }
+
     /// <summary>Files read so far, in order (full paths), including the current one.</summary>
     public IReadOnlyList<string> Files => _files;
 
@@ -70,8 +79,8 @@ public sealed class LogFollower
         {
             // Look for a newer file before reading, so that the rest of the current one is known to be final.
             var next = Candidates().FirstOrDefault(name => string.CompareOrdinal(name, _current) > 0);
-            ReadNew(lines, finished: next is not null);
-            if (next is null)
+            HasMore = !ReadNew(lines, finished: next is not null);
+            if (next is null || HasMore)
             {
                 return lines;
             }
@@ -91,7 +100,8 @@ public sealed class LogFollower
     private IEnumerable<string> Candidates() =>
         Directory.EnumerateFiles(_folder, _pattern).Select(Path.GetFileName).OfType<string>().Order(StringComparer.Ordinal);
 
-    private void ReadNew(List<FollowedLine> lines, bool finished)
+    /// <summary>Reads what is new of the current file, at most <see cref="MaxPollBytes"/>; true when it reached the file's end.</summary>
+    private bool ReadNew(List<FollowedLine> lines, bool finished)
     {
         var path = Path.Combine(_folder, _current!);
         FileStream stream;
@@ -103,6 +113,7 @@ public sealed class LogFollower
         {
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation(path), $"the followed log cannot be read any more: {e.Message}");
         }
+        bool reachedEnd;
         using (stream)
         {
             if (stream.Length < _offset)
@@ -112,8 +123,9 @@ public sealed class LogFollower
             }
             stream.Seek(_offset, SeekOrigin.Begin);
             var buffer = new byte[1 << 16];
+            var end = Math.Min(stream.Length, _offset + MaxPollBytes);
             int n;
-            while ((n = stream.Read(buffer, 0, buffer.Length)) > 0)
+            while (_offset < end && (n = stream.Read(buffer, 0, (int)Math.Min(buffer.Length, end - _offset))) > 0)
             {
                 _offset += n;
                 var start = 0;
@@ -128,11 +140,17 @@ public sealed class LogFollower
                 }
                 Hold(path, buffer.AsSpan(start, n - start));
             }
+            reachedEnd = _offset >= stream.Length;
+        }
+        if (!reachedEnd)
+        {
+            return false;
         }
         if (finished && _fragment.Count > 0)
         {
             Emit(lines, path, []);
         }
+        return true;
     }
 
     private void Hold(string path, ReadOnlySpan<byte> bytes)

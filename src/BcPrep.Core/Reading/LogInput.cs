@@ -9,12 +9,30 @@ public sealed record LogInput(string DisplayName, string Path)
 {
     public static LogInput FromPath(string path) => new(path, path);
 
+    /// <summary>
+    /// Bytes of the file to read (null: all of it). A file a logger is still writing is read up to the end of its
+    /// last complete line, so a line being written is never parsed.
+    /// </summary>
+    public long? LengthLimit { get; init; }
+
+    /// <summary>Where to continue reading (a row's byte offset and line, from an earlier read); null from the start.</summary>
+    public (long Offset, long Line)? ResumeAt { get; init; }
+
+    /// <summary>The file as bytes, opened for reading only and shared with a writer, cut at <see cref="LengthLimit"/>.</summary>
+    internal Stream OpenRaw(FileOptions options = FileOptions.SequentialScan)
+    {
+        // ReadWrite sharing: a logger may still be appending to the file (it is read only up to LengthLimit then).
+        var share = LengthLimit is null ? FileShare.Read : FileShare.ReadWrite | FileShare.Delete;
+        var file = new FileStream(Path, FileMode.Open, FileAccess.Read, share, 1 << 16, options);
+        return LengthLimit is { } limit ? new BoundedReadStream(file, limit) : file;
+    }
+
     public Stream Open()
     {
         Stream raw;
         try
         {
-            raw = new FileStream(Path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16, FileOptions.SequentialScan);
+            raw = OpenRaw();
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {

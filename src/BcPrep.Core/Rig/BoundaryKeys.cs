@@ -109,9 +109,19 @@ internal static class BoundaryKeys
         return centre is null || axis is null || file is null || unit is null ? null : new InletFaceSpec(centre.Value, axis.Value, file, unit.Value, t.Location);
     }
 
-    /// <summary>Flow-meter channel references, and rake radii within the duct radius.</summary>
+    /// <summary>Flow-meter channel references, and rake radii within the duct radius and distinct on each plane.</summary>
     public static void Check(IReadOnlyList<ChannelSpec> channels, DuctGeometry? duct, FlowMeterSpec? meter, List<Problem> problems)
     {
+        // Two sensors of one rake at the same radius would give the profile two values there.
+        foreach (var same in channels.Where(c => c.RadiusM is not null && c.Plane is not null).GroupBy(c => (c.Plane, c.RadiusM)).Where(g => g.Count() > 1))
+        {
+            var first = same.First();
+            foreach (var channel in same.Skip(1))
+            {
+                problems.Add(new Problem(channel.Location with { Key = $"channel '{channel.Id}'.radius" }, string.Create(CultureInfo.InvariantCulture,
+                    $"rake sensors '{first.Id}' and '{channel.Id}' both sit at radius {MeasurementText.Number((channel.RadiusM ?? double.NaN) * 1000, 6)} mm of the {channel.Plane} plane: give each rake sensor its own radius")));
+            }
+        }
         if (duct is not null)
         {
             foreach (var channel in channels.Where(c => c.RadiusM > duct.InnerDiameterM / 2 * (1 + 1e-9)))

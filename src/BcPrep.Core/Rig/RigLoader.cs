@@ -201,9 +201,9 @@ public static class RigLoader
         {
             t.Report("plane", $"a {roleText} channel needs the plane it measures, e.g. plane = \"inlet\"");
         }
-        if (radius is not null && (role != ChannelRole.BulkTemperature || plane != "inlet"))
+        if (radius is not null && role != ChannelRole.BulkTemperature)
         {
-            t.Report("radius", "a radial position belongs to a rake thermocouple: measures = \"bulk_temperature\" at plane = \"inlet\"");
+            t.Report("radius", "a radial position belongs to a rake sensor: measures = \"bulk_temperature\" at any plane (e.g. plane = \"outlet\")");
         }
         t.RejectUnknownKeys();
         return id is null || sensor is null

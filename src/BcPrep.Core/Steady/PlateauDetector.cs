@@ -1,4 +1,4 @@
-using static BcPrep.Steady.SteadyStateDetector;
+using static BcPrep.Steady.WindowCriteria;
 
 namespace BcPrep.Steady;
 

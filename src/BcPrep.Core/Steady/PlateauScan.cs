@@ -1,4 +1,4 @@
-using static BcPrep.Steady.SteadyStateDetector;
+using static BcPrep.Steady.WindowCriteria;
 
 namespace BcPrep.Steady;
 
@@ -48,6 +48,7 @@ public sealed class PlateauScan
     private int _plateau;
     private (SteadyWindow Window, int Plateau)? _pending;
     private readonly List<SteadyWindow> _final = [];
+    private readonly List<SteadyWindow> _judged = [];
     private readonly List<RejectedStretch> _rejected = [];
     private bool _finished;
 
@@ -80,10 +81,19 @@ public sealed class PlateauScan
     public IReadOnlyList<SteadyWindow> Final => _final;
 
     /// <summary>
-    /// The earliest time (s, the scan's clock) at which a window that is not yet final may start: that of the
-    /// window still open to a merge, else the start of the plateau under way. Rows before it are no longer needed.
+    /// Each plateau's accepted window as soon as the plateau is judged, in time order: the final window itself, or,
+    /// when the next plateau merges into it (<see cref="PlateauDetector"/>'s "no flicker"), the first part of one.
     /// </summary>
-    public double OpenSinceS => _pending is { } p ? p.Window.StartS : _count == 0 ? double.NegativeInfinity : _t[_bound] - (_blockS / 2);
+    public IReadOnlyList<SteadyWindow> Judged => _judged;
+
+    /// <summary>
+    /// The start (s, the scan's clock) of the plateau under way: no window judged later starts before it. A window
+    /// that a later plateau extends by a merge started earlier, when its first part was judged.
+    /// </summary>
+    public double OpenSinceS => _count == 0 ? double.NegativeInfinity : _t[_bound] - (_blockS / 2);
+
+    /// <summary>Start (s, the scan's clock) of the plateau under way: the last step the scan is certain of, or its first block's start.</summary>
+    public double PlateauStartS => _count == 0 ? double.NegativeInfinity : _t[_bound] - (_blockS / 2);
 
     /// <summary>Blocks added so far.</summary>
     public int Count => _count;
@@ -272,6 +282,7 @@ public sealed class PlateauScan
             return;
         }
         var window = outcome.Accepted!;
+        _judged.Add(window);
         if (_pending is { } open && outcome.Immediate && open.Plateau == p - 1 && PlateauDetector.SameLevel(open.Window, window, _keys, thresholds))
         {
             _pending = (open.Window with { EndS = window.EndS, StretchEndS = window.StretchEndS }, p);

@@ -1,3 +1,5 @@
+using BcPrep.Values;
+
 namespace BcPrep.Steady;
 
 /// <summary>Methods that can accept a steady window (flags: an accepted window lists all that passed).</summary>
@@ -156,7 +158,20 @@ public sealed record ChannelCriteria(
 /// An accepted operating point: the averaging window [StartS, EndS] (the settled tail), the steady stretch it came from,
 /// the methods that passed, and per-channel criterion values on the averaging window.
 /// </summary>
-public sealed record SteadyWindow(double StartS, double EndS, double StretchStartS, double StretchEndS, SteadyMethod AcceptedBy, IReadOnlyList<ChannelCriteria> Channels);
+public sealed record SteadyWindow(double StartS, double EndS, double StretchStartS, double StretchEndS, SteadyMethod AcceptedBy, IReadOnlyList<ChannelCriteria> Channels)
+{
+    /// <summary>The averaging window's start, typed: detection counts from the day's first sample.</summary>
+    public DaySeconds Start => new(StartS);
+
+    /// <summary>The averaging window's end, typed.</summary>
+    public DaySeconds End => new(EndS);
+
+    /// <summary>The steady stretch's start, typed.</summary>
+    public DaySeconds StretchStart => new(StretchStartS);
+
+    /// <summary>The steady stretch's end, typed.</summary>
+    public DaySeconds StretchEnd => new(StretchEndS);
+}
 
 /// <summary>
 /// A stretch that was not accepted, with the reason per channel. For a run of failing test windows the criteria

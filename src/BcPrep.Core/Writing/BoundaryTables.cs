@@ -20,10 +20,23 @@ public static class BoundaryTables
         PointOutputs.EnergyBalanceMismatch,
     ];
 
+    /// <summary>Quantities that join the summary, after the outlet temperature, only when a point of the day has them (a rake's mixing-cup temperatures).</summary>
+    public static readonly IReadOnlyList<ScalarOutput> OptionalSummaryQuantities = [PointOutputs.InletMixingCupTemperature, PointOutputs.OutletMixingCupTemperature];
+
+    /// <summary>The summary's quantities for this day: <see cref="SummaryQuantities"/>, with the optional ones some point defines.</summary>
+    public static IReadOnlyList<ScalarOutput> SummaryQuantitiesOf(DayResult day)
+    {
+        var quantities = SummaryQuantities.ToList();
+        var present = OptionalSummaryQuantities.Where(q => day.Points.Any(p => p.Output(q) is not null)).ToList();
+        quantities.InsertRange(quantities.IndexOf(PointOutputs.OutletTemperature) + 1, present);
+        return quantities;
+    }
+
     public static CsvTable Summary(DayResult day)
     {
         var header = new List<string> { "point", "origin", "start [s]", "end [s]", "duration [s]" };
-        foreach (var quantity in SummaryQuantities)
+        var quantities = SummaryQuantitiesOf(day);
+        foreach (var quantity in quantities)
         {
             var (name, unit) = (quantity.Name, quantity.Unit);
             header.AddRange([$"{name} [{unit}]", $"u({name}) [{unit}]", $"U({name}) [{unit}]", $"k({name})"]);
@@ -36,9 +49,9 @@ public static class BoundaryTables
             var row = new List<object?>
             {
                 point.Id, point.Origin == WindowOrigin.RigFile ? "rig file" : "detected",
-                point.Window.StartS - day.DayStartS, point.Window.EndS - day.DayStartS, point.Window.DurationS,
+                day.Start.Since(point.Window.Start).Value, day.Start.Since(point.Window.End).Value, point.Window.DurationS,
             };
-            foreach (var quantity in SummaryQuantities)
+            foreach (var quantity in quantities)
             {
                 var output = point.Output(quantity);
                 row.AddRange([output?.Estimate ?? double.NaN, output?.StandardUncertainty ?? double.NaN, output?.ExpandedUncertainty ?? double.NaN, output?.CoverageFactor ?? double.NaN]);
@@ -65,7 +78,7 @@ public static class BoundaryTables
                 ? "temperature uniform: the inlet bulk temperature"
                 : "temperature interpolated linearly from the radial rake, nearest rake value held beyond its ends" + (rake.ClampedPointCount > 0 ? $" ({rake.ClampedPointCount} points)" : ""))
             .Comment(InletTurbulence.ConventionDescription)
-            .Comment("u(...) is the standard uncertainty propagated from the measurements; the profile shape model and the turbulence correlations carry no model-form uncertainty here");
+            .Comment("u(...) is the standard uncertainty propagated from the measurements and the model-form terms of the budget: the power-law exponent (when the power law is used), the turbulence-intensity correlation (when no intensity is given) and the property models");
         var k = point.Output(PointOutputs.TurbulentKineticEnergy);
         var eps = point.Output(PointOutputs.DissipationRate);
         var omega = point.Output(PointOutputs.SpecificDissipationRate);
@@ -82,7 +95,41 @@ public static class BoundaryTables
     }
 
     public static CsvTable OutletPlane(PointResult point) =>
-        Scalars(point, [PointOutputs.OutletStaticPressure, PointOutputs.OutletTemperature], $"BcPrep outlet plane; point {point.Id}; absolute static pressure");
+        Scalars(point, [PointOutputs.OutletStaticPressure, PointOutputs.OutletTemperature, PointOutputs.OutletMixingCupTemperature],
+            $"BcPrep outlet plane; point {point.Id}; absolute static pressure" + (point.Output(PointOutputs.OutletMixingCupTemperature) is null ? ""
+                : point.Model.HasPlainOutletTemperature ? "; outlet.temperature from the outlet channel, the rake's mixing-cup temperature beside it"
+                : "; outlet.temperature is the rake's mixing-cup temperature"));
+
+    /// <summary>
+    /// The temperature rakes of planes other than the inlet (the inlet's is in the inlet profile): per plane and radius
+    /// the temperature with its uncertainty and the mass flux ρu that weights it; null when the point has none.
+    /// </summary>
+    public static CsvTable? Rakes(PointResult point)
+    {
+        if (point.Model.RakePlanes.Count == 0)
+        {
+            return null;
+        }
+        var table = new CsvTable(["plane", "r [m]", "temperature [K]", "u(temperature) [K]", "U(temperature) [K]", "mass_flux [kg/(m2 s)]"])
+            .Comment($"BcPrep temperature rakes; point {point.Id}; temperature interpolated linearly between the rake sensors, nearest value held beyond the rake's ends")
+            .Comment("mass_flux = rho u of the velocity model at the plane's Reynolds number (viscosity at the rake's area mean), scaled to the measured mass flow; mixing-cup temperature = integral of rho u cp T dA over integral of rho u cp dA (trapezoid rule on this grid)");
+        foreach (var rake in point.Nominal.Rakes.Where(r => point.Model.RakePlanes.Contains(r.Plane)))
+        {
+            var cup = point.Output(PointOutputs.MixingCupTemperature(rake.Plane));
+            var exponent = double.IsNaN(rake.Velocity.PowerLawExponent) ? "" : string.Create(CultureInfo.InvariantCulture, $", n = {rake.Velocity.PowerLawExponent:R}");
+            var clamped = rake.Temperature.ClampedPointCount > 0 ? $"; {rake.Temperature.ClampedPointCount} points hold the nearest rake value" : "";
+            table.Comment(string.Create(CultureInfo.InvariantCulture,
+                $"{rake.Plane}: mixing-cup temperature {cup?.Estimate ?? rake.MixingCupK:R} K, u {cup?.StandardUncertainty ?? double.NaN:R} K, U {cup?.ExpandedUncertainty ?? double.NaN:R} K; area mean {rake.AreaMeanK:R} K; velocity model {ChoiceSpelling.Name(rake.Velocity.ModelUsed)}{exponent}{clamped}"));
+            var radii = rake.Temperature.Profile.RadiusM;
+            for (var i = 0; i < radii.Length; i++)
+            {
+                var t = point.Output(ProfileOutputs.PlaneTemperature(rake.Plane, i));
+                table.Add(rake.Plane, radii[i], t?.Estimate ?? rake.Temperature.Profile.Values[i], t?.StandardUncertainty ?? double.NaN, t?.ExpandedUncertainty ?? double.NaN,
+                    rake.MassFluxKgPerM2S.Values[i]);
+            }
+        }
+        return table;
+    }
 
     public static CsvTable Wall(PointResult point, DayResult day)
     {

@@ -3,6 +3,7 @@ using System.Text.Json;
 using BcPrep.Conditioning;
 using BcPrep.Pipeline;
 using BcPrep.Rig;
+using BcPrep.Values;
 
 namespace BcPrep.Writing;
 
@@ -39,7 +40,7 @@ public static class ConditioningManifest
     }
 
     /// <summary>Writes a channel's "conditioning" object: bridged and open gaps, spikes, faults; times in s since day start.</summary>
-    public static void WriteChannel(Utf8JsonWriter json, ChannelWindowStats stats, double dayStartS)
+    public static void WriteChannel(Utf8JsonWriter json, ChannelWindowStats stats, DayStart dayStart)
     {
         ArgumentNullException.ThrowIfNull(json);
         ArgumentNullException.ThrowIfNull(stats);
@@ -48,14 +49,14 @@ public static class ConditioningManifest
             return;
         }
         json.WriteStartObject("conditioning");
-        WriteGaps(json, "bridged_gaps", c.BridgedGaps, dayStartS);
-        WriteGaps(json, "open_edge_gaps", c.OpenEdgeGaps, dayStartS);
-        WriteGaps(json, "unbridged_gaps", c.UnbridgedGaps, dayStartS);
+        WriteGaps(json, "bridged_gaps", c.BridgedGaps, dayStart);
+        WriteGaps(json, "open_edge_gaps", c.OpenEdgeGaps, dayStart);
+        WriteGaps(json, "unbridged_gaps", c.UnbridgedGaps, dayStart);
         json.WriteNumber("spikes_replaced", c.SpikeTimesS.Count);
         json.WriteStartArray("first_spike_times_s");
         foreach (var t in c.SpikeTimesS.Take(ListedSpikeTimes))
         {
-            json.WriteNumberValue(t - dayStartS);
+            json.WriteNumberValue(SinceStart(dayStart, t));
         }
         json.WriteEndArray();
         json.WriteStartArray("faults");
@@ -66,7 +67,7 @@ public static class ConditioningManifest
             json.WriteString("severity", v.Severity == FaultSeverity.Failure ? "failure" : "warning");
             json.WriteNumber("samples", v.Flag.SampleCount);
             JsonFields.Number(json, "fraction", v.Flag.Fraction);
-            JsonFields.Number(json, "first_time_s", v.FirstTimeS - dayStartS);
+            JsonFields.Number(json, "first_time_s", SinceStart(dayStart, v.FirstTimeS));
             JsonFields.Number(json, "evidence_value", v.Flag.EvidenceValue);
             json.WriteString("evidence", v.Flag.Evidence);
             json.WriteEndObject();
@@ -91,17 +92,20 @@ public static class ConditioningManifest
         return string.Create(CultureInfo.InvariantCulture, $"bridged {bridged}; spikes {spikes}; faults {faults}{gaps}");
     }
 
-    private static void WriteGaps(Utf8JsonWriter json, string name, IReadOnlyList<DataGap> gaps, double dayStartS)
+    private static void WriteGaps(Utf8JsonWriter json, string name, IReadOnlyList<DataGap> gaps, DayStart dayStart)
     {
         json.WriteStartArray(name);
         foreach (var g in gaps)
         {
             json.WriteStartObject();
-            json.WriteNumber("start_s", g.StartS - dayStartS);
-            json.WriteNumber("end_s", g.EndS - dayStartS);
+            json.WriteNumber("start_s", SinceStart(dayStart, g.StartS));
+            json.WriteNumber("end_s", SinceStart(dayStart, g.EndS));
             json.WriteNumber("missing_samples", g.MissingSamples);
             json.WriteEndObject();
         }
         json.WriteEndArray();
     }
+
+    // Conditioning works on plain arrays of logger-clock seconds; the manifest gives times since the first sample.
+    private static double SinceStart(DayStart dayStart, double clockS) => dayStart.Since(new LoggerSeconds(clockS)).Value;
 }

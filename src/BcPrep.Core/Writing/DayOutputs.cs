@@ -25,6 +25,10 @@ public static class DayOutputs
             files.Add(folder + "wall.csv", BoundaryTables.Wall(point, day).ToString());
             files.Add(folder + "scalars.csv", BoundaryTables.Scalars(point).ToString());
             files.Add(folder + "budget.csv", BoundaryTables.Budget(point).ToString());
+            if (BoundaryTables.Rakes(point) is { } rakes)
+            {
+                files.Add(folder + "rakes.csv", rakes.ToString());
+            }
             if (day.Rig.InletFace is { } face && facePointsM is not null)
             {
                 files.Add(folder + "inlet-face.csv", InletFaceTable.Build(point, face, facePointsM).ToString());

@@ -78,8 +78,8 @@ public static class DetectionEvidenceJson
             json.WriteNull("detection");
             return;
         }
-        var pinned = day.Rig.Points.Select(p => new TimeWindow(p.Id, DayProcessor.Resolve(p.Start, day.DayStartS), DayProcessor.Resolve(p.End, day.DayStartS))).ToList();
-        var planned = PointWindows.Plan(pinned, day.Detection, day.DayStartS).Points.FirstOrDefault(p => p.Window.Id == point.Id);
+        var pinned = day.Rig.Points.Select(p => new TimeWindow(p.Id, day.Start.Resolve(p.Start).Value, day.Start.Resolve(p.End).Value)).ToList();
+        var planned = PointWindows.Plan(pinned, day.Detection, day.Start).Points.FirstOrDefault(p => p.Window.Id == point.Id);
         json.WriteStartObject("detection");
         json.WriteString("relation", point.Origin == WindowOrigin.Detected ? "this window" : "detected windows replaced by the pinned window");
         json.WriteStartArray("windows");

@@ -26,6 +26,7 @@ internal static class ManifestBoundary
         WriteFlowMeter(json, model.FlowMeter);
         WriteVelocity(json, point);
         WriteTemperature(json, point);
+        WriteRakes(json, point);
         json.WriteStartObject("wall");
         json.WriteNumber("axial_points", model.WallGridM.Length);
         json.WriteStartArray("axial_grid_m");
@@ -87,6 +88,33 @@ internal static class ManifestBoundary
         JsonFields.Number(json, "scale_factor", v.ScaleFactor);
         JsonFields.Strings(json, "diagnostics", v.Diagnostics);
         json.WriteEndObject();
+    }
+
+    /// <summary>Every plane's temperature rake with its mixing-cup temperature (K) and how the weighting was formed.</summary>
+    private static void WriteRakes(Utf8JsonWriter json, PointResult point)
+    {
+        json.WriteStartArray("temperature_rakes");
+        foreach (var rake in point.Nominal.Rakes)
+        {
+            var cup = point.Output(PointOutputs.MixingCupTemperature(rake.Plane));
+            json.WriteStartObject();
+            json.WriteString("plane", rake.Plane);
+            json.WriteString("unit", "K");
+            JsonFields.Number(json, "mixing_cup_temperature", cup?.Estimate ?? rake.MixingCupK);
+            JsonFields.Number(json, "mixing_cup_standard_uncertainty", cup?.StandardUncertainty ?? double.NaN);
+            JsonFields.Number(json, "mixing_cup_expanded_uncertainty", cup?.ExpandedUncertainty ?? double.NaN);
+            JsonFields.Number(json, "area_mean_temperature", rake.AreaMeanK);
+            json.WriteString("definition", "integral of rho u cp T dA over integral of rho u cp dA, trapezoid rule on the radial grid; T interpolated linearly between the rake sensors, nearest value held beyond the rake's ends");
+            json.WriteString("weighting", rake.Plane == "inlet"
+                ? "the inlet velocity profile"
+                : "the velocity model at this plane's Reynolds number (viscosity at the rake's area mean), scaled to the measured mass flow");
+            json.WriteString("velocity_model", ChoiceSpelling.Name(rake.Velocity.ModelUsed));
+            JsonFields.Number(json, "power_law_exponent", rake.Velocity.PowerLawExponent);
+            json.WriteBoolean("is_plane_bulk_temperature", rake.Plane == "outlet" && !point.Model.HasPlainOutletTemperature);
+            json.WriteNumber("clamped_points", rake.Temperature.ClampedPointCount);
+            json.WriteEndObject();
+        }
+        json.WriteEndArray();
     }
 
     private static void WriteTemperature(Utf8JsonWriter json, PointResult point)

@@ -58,8 +58,8 @@ public static class ManifestWriter
             {
                 json.WriteStartObject();
                 json.WriteString("id", failed.Id);
-                JsonFields.Number(json, "start_s", failed.StartS - day.DayStartS);
-                JsonFields.Number(json, "end_s", failed.EndS - day.DayStartS);
+                JsonFields.Number(json, "start_s", day.Start.Since(failed.Start).Value);
+                JsonFields.Number(json, "end_s", day.Start.Since(failed.End).Value);
                 json.WriteString("reason", failed.Reason);
                 json.WriteEndObject();
             }
@@ -91,7 +91,7 @@ public static class ManifestWriter
         json.WriteStartObject("conventions");
         json.WriteString("units", "SI throughout: Pa (absolute), K, kg/s, m, W");
         json.WriteString("time", "window times in s since the first sample of the day; day_start in s since 1970-01-01 UTC when the log has dates, else on the logger clock");
-        JsonFields.Number(json, "day_start", day.DayStartS);
+        JsonFields.Number(json, "day_start", day.Start.FirstSample.Value);
         JsonFields.Number(json, "coverage_probability", day.Rig.CoverageProbability);
         json.WriteString("expanded_uncertainty", "U = k u, k from Student's t at the effective degrees of freedom (Welch-Satterthwaite; conservative rule with correlated inputs)");
         json.WriteString("type_a", "window mean of de-spiked, unfiltered samples; standard uncertainty corrected for autocorrelation (integrated autocorrelation time, Sokal window)");
@@ -107,8 +107,8 @@ public static class ManifestWriter
         json.WriteString("id", point.Id);
         json.WriteString("window_origin", point.Origin == WindowOrigin.RigFile ? "rig file" : "detected");
         json.WriteStartObject("window");
-        JsonFields.Number(json, "start_s", point.Window.StartS - day.DayStartS);
-        JsonFields.Number(json, "end_s", point.Window.EndS - day.DayStartS);
+        JsonFields.Number(json, "start_s", day.Start.Since(point.Window.Start).Value);
+        JsonFields.Number(json, "end_s", day.Start.Since(point.Window.End).Value);
         JsonFields.Number(json, "duration_s", point.Window.DurationS);
         json.WriteEndObject();
         json.WriteStartArray("checks");
@@ -142,7 +142,7 @@ public static class ManifestWriter
             JsonFields.Number(json, "effective_samples", stats.TypeA.EffectiveSampleCount);
             JsonFields.Number(json, "naive_standard_uncertainty", stats.TypeA.NaiveStandardUncertainty);
             JsonFields.Strings(json, "faults", stats.Faults.Select(f => $"{ChoiceSpelling.Name(f.Kind)}: {f.Evidence}").ToList());
-            ConditioningManifest.WriteChannel(json, stats, day.DayStartS);
+            ConditioningManifest.WriteChannel(json, stats, day.Start);
             json.WriteEndObject();
         }
         json.WriteEndArray();

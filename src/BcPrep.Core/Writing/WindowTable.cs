@@ -36,8 +36,8 @@ public static class WindowTable
             ]);
         }
         var table = new CsvTable(header);
-        var pinned = rig.Points.Select(p => new TimeWindow(p.Id, DayProcessor.Resolve(p.Start, day.DayStartS), DayProcessor.Resolve(p.End, day.DayStartS))).ToList();
-        var plan = PointWindows.Plan(pinned, day.Detection, day.DayStartS);
+        var pinned = rig.Points.Select(p => new TimeWindow(p.Id, day.Start.Resolve(p.Start).Value, day.Start.Resolve(p.End).Value)).ToList();
+        var plan = PointWindows.Plan(pinned, day.Detection, day.Start);
         var rows = new List<(double StartS, object?[] Cells)>();
         foreach (var assignment in plan.Detected)
         {

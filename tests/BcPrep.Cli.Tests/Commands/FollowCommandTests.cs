@@ -46,6 +46,45 @@ public class FollowCommandTests
     }
 
     [Fact]
+    public void The_options_that_change_the_reduction_mean_what_they_mean_for_process()
+    {
+        // A day already logged: every point finishes in the first poll (reduced on the way with the matrix), and the
+        // end leaves what `process --matrix` writes: the planned point names (sample-logs/plans/marten-matrix.csv).
+        using var temp = new TempFolder();
+        var logs = Directory.CreateDirectory(temp.File("logger")).FullName;
+        foreach (var log in SampleDay.Logs)
+        {
+            File.Copy(log, Path.Combine(logs, Path.GetFileName(log)));
+        }
+        var matrix = Path.Combine(RepoRoot.Path, "sample-logs", "plans", "marten-matrix.csv");
+        var follow = CliRunner.Run("follow", SampleDay.Rig, logs, "--out", temp.File("followed"), "--end-after-idle", "0", "--matrix", matrix, "--allow-expired", "all");
+        var files = SampleDay.Logs.Select(l => Path.Combine(logs, Path.GetFileName(l))).ToArray();
+        var process = CliRunner.Run(["process", SampleDay.Rig, .. files, "--out", temp.File("processed"), "--matrix", matrix, "--allow-expired", "all"]);
+
+        Assert.True(follow.ExitCode == 0, follow.Error);
+        Assert.Equal(0, process.ExitCode);
+        Assert.Contains("the day so far (3 point(s)) is reduced", follow.Error, StringComparison.Ordinal);
+        var expected = SampleDay.Snapshot(temp.File("processed"));
+        var actual = SampleDay.Snapshot(temp.File("followed"));
+        Assert.Equal(expected.Keys, actual.Keys);
+        Assert.Contains(expected.Keys, k => k.StartsWith("points/F20-H600/", StringComparison.Ordinal));
+        foreach (var (name, bytes) in expected)
+        {
+            Assert.True(bytes.AsSpan().SequenceEqual(actual[name]), $"{name} differs from what process wrote");
+        }
+    }
+
+    [Fact]
+    public void Follow_offers_every_option_of_process_that_changes_the_reduction()
+    {
+        var help = CliRunner.Run("follow", "--help");
+        foreach (var option in new[] { "--allow-expired", "--matrix", "--monte-carlo", "--seed", "--report" })
+        {
+            Assert.Contains(option, help.Out + help.Error, StringComparison.Ordinal);
+        }
+    }
+
+    [Fact]
     public void A_missing_log_folder_is_a_usage_error_naming_it()
     {
         using var temp = new TempFolder();

@@ -1,4 +1,5 @@
 using BcPrep.Live;
+using BcPrep.Pipeline;
 using BcPrep.Reading;
 using BcPrep.Rig;
 
@@ -50,6 +51,28 @@ public class LiveMonitorTests
         Assert.InRange(finished[1].EndS, 6590, 6601);
         Assert.InRange(finished[1].StretchStartS, 3590, 3700);
         Assert.Equal(finished[1].StretchStartS + 300, finished[1].SettledFromS, 9);
+    }
+
+    [Fact]
+    public void Live_steps_are_where_the_days_detection_begins_its_plateaus()
+    {
+        // Reference: the day's detection over the whole day (WindowFinder.Find, as process runs it). Its plateaus
+        // begin at the steps of its step finder; the monitor feeds the same detection the blocks as they close.
+        var rig = SampleRig();
+        var monitor = new LiveMonitor(rig, new SettledAfter(300));
+        foreach (var line in SampleLines())
+        {
+            monitor.Feed(line);
+        }
+        var logs = new[] { "marten-2026-11-24-am.csv", "marten-2026-11-24-pm.csv" }.Select(f => LogInput.FromPath(Path.Combine(RepoRoot.Path, "sample-logs", f))).ToList();
+        var detection = WindowFinder.Find(rig, logs).Detection;
+        var plateauStarts = detection.Accepted.Select(w => w.StretchStartS).Concat(detection.Rejected.Select(r => r.StartS))
+            .Where(t => t > 1.0).Order().ToList();
+
+        // The generator steps at 600, 3600 and 6600 s (tools/SampleDay/DayScenario.cs); live and the day's detection
+        // run the same incremental detection, so they agree to the block.
+        Assert.Equal(3, plateauStarts.Count);
+        Assert.Equal(plateauStarts, monitor.StepsS);
     }
 
     [Fact]

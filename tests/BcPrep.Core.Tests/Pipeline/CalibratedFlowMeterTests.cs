@@ -73,6 +73,57 @@ public class CalibratedFlowMeterTests
     }
 
     [Fact]
+    public void Venturi_at_the_edge_of_its_diameter_and_beta_range_gets_its_uncertainty()
+    {
+        // D = 50 mm and β = 0.4 are the lower ends of the machined convergent's range (ISO 5167-4, reference sheet §11,
+        // from memory). The range describes the meter as built, so it is judged at the declared geometry: the GUM's
+        // numerical derivative steps D and d a little below the edge, and that must not fail the point.
+        using var day = Meter("""
+            kind = "venturi"
+            pipe_diameter_uncertainty = "0.02 mm"
+            throat_diameter = "20 mm"
+            throat_diameter_uncertainty = "0.01 mm"
+            """, pipe: "50 mm");
+        var point = day.Process().Points.Single();
+        var massFlow = point.Output("mass_flow")!;
+        Assert.Equal(0.4, point.Model.FlowMeter!.Result.DiameterRatio, 1e-12);
+        // q_m ∝ d²/√(1 − β⁴) (ISO 5167-1 eq. 1): ∂ln q/∂d = 2/d + 2β⁴/(d(1 − β⁴)) = 2.0526/d, so the throat term is
+        // 0.01 mm × 2.0526 / 20 mm = 0.1026 % of q_m.
+        var throat = massFlow.Budget.Single(b => b.InputName == "Venturi throat diameter");
+        Assert.Equal(0.01 * (2 + (2 * Math.Pow(0.4, 4) / (1 - Math.Pow(0.4, 4)))) / 20.0, Math.Abs(throat.Contribution) / massFlow.Estimate, 1e-5);
+        Assert.Contains(massFlow.Budget, b => b.InputName == "flow meter pipe diameter" && b.SensitivityCoefficient != 0);
+    }
+
+    [Fact]
+    public void Orifice_at_the_edge_of_its_diameter_range_gets_its_uncertainty()
+    {
+        // D = 50 mm and d = 12.5 mm are the lower ends of ISO 5167-2's range (reference sheet §9, ISO 5167-2 §5.3.1,
+        // from memory); as for the Venturi, the range is judged at the declared geometry.
+        using var day = Meter("""
+            kind = "orifice"
+            tapping = "corner"
+            pipe_diameter_uncertainty = "0.02 mm"
+            bore_diameter = "12.5 mm"
+            bore_diameter_uncertainty = "0.005 mm"
+            """, pipe: "50 mm");
+        var massFlow = day.Process().Points.Single().Output("mass_flow")!;
+        Assert.Contains(massFlow.Budget, b => b.InputName == "orifice bore diameter" && b.SensitivityCoefficient > 0);
+        Assert.Contains(massFlow.Budget, b => b.InputName == "flow meter pipe diameter" && b.SensitivityCoefficient != 0);
+    }
+
+    [Fact]
+    public void Meter_outside_its_range_is_still_refused_at_its_declared_geometry()
+    {
+        // β = 0.8 is above the machined convergent's 0.75 (ISO 5167-4, reference sheet §11, from memory).
+        using var day = Meter("""
+            kind = "venturi"
+            throat_diameter = "80 mm"
+            """);
+        var failure = Assert.Throws<BcPrepFailure>(() => day.Process());
+        Assert.Contains(failure.Problems, p => p.Message.Contains("diameter ratio beta", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void As_cast_convergent_takes_its_own_C_and_uncertainty()
     {
         // ISO 5167-4 as-cast convergent: C = 0.984, U = 0.7 % (reference sheet §11, from memory of the standard).

@@ -2,12 +2,14 @@ using BcPrep.Conditioning;
 using BcPrep.Pipeline;
 using BcPrep.Rig;
 using BcPrep.Tests.Rig;
+using BcPrep.Values;
 
 namespace BcPrep.Tests.Pipeline;
 
 public class FaultPolicyTests
 {
     private const double DayStartS = 1000.0;
+    private static readonly DayStart Start = new(new LoggerSeconds(DayStartS));
     private static readonly TimeWindow Window = new("OP1", DayStartS + 60.0, DayStartS + 360.0);
 
     private static RigDescription Rig() => ConditioningReaderTests.SampleWith("", "limits = { rail_high = \"10 V\", resolution = \"0.5 Pa\" }");
@@ -34,7 +36,7 @@ public class FaultPolicyTests
         {
             x[i] = 5000.0; // clipped at the 10 V output rail = 5000 Pa through the calibration
         }
-        var failure = Assert.Throws<BcPrepFailure>(() => FaultPolicy.Evaluate(Rig(), "p_in", Window, t, x, DayStartS));
+        var failure = Assert.Throws<BcPrepFailure>(() => FaultPolicy.Evaluate(Rig(), "p_in", Window, t, x, Start));
         Assert.Equal(FailureKind.InputData, failure.Kind);
         var message = failure.Problems[0].Message;
         Assert.Contains("channel 'p_in'", message, StringComparison.Ordinal);
@@ -51,7 +53,7 @@ public class FaultPolicyTests
         {
             x[i] = 1620.0 + (0.01 * x[i]); // 1347 °C: above the default plausible 1339 °C for type K
         }
-        var failure = Assert.Throws<BcPrepFailure>(() => FaultPolicy.Evaluate(Rig(), "t_w1", Window, t, x, DayStartS));
+        var failure = Assert.Throws<BcPrepFailure>(() => FaultPolicy.Evaluate(Rig(), "t_w1", Window, t, x, Start));
         Assert.Contains("Implausible", failure.Problems[0].Message, StringComparison.Ordinal);
         Assert.Contains("'t_w1'", failure.Problems[0].Message, StringComparison.Ordinal);
     }
@@ -61,7 +63,7 @@ public class FaultPolicyTests
     {
         var (t, x) = Series(0.0);
         Array.Fill(x, 1234.0);
-        var stats = FaultPolicy.Evaluate(Rig(), "p_in", Window, t, x, DayStartS);
+        var stats = FaultPolicy.Evaluate(Rig(), "p_in", Window, t, x, Start);
         var verdict = Assert.Single(stats.Conditioning!.Faults);
         Assert.Equal(SensorFaultKind.Stuck, verdict.Flag.Kind);
         Assert.Equal(FaultSeverity.Warning, verdict.Severity);
@@ -76,7 +78,7 @@ public class FaultPolicyTests
         {
             x[i] = 200.0;
         }
-        var stats = FaultPolicy.Evaluate(Rig(), "p_out", Window, t, x, DayStartS);
+        var stats = FaultPolicy.Evaluate(Rig(), "p_out", Window, t, x, Start);
         var verdict = Assert.Single(stats.Conditioning!.Faults);
         Assert.Equal(SensorFaultKind.Saturation, verdict.Flag.Kind);
         Assert.Equal(FaultSeverity.Warning, verdict.Severity);
@@ -90,7 +92,7 @@ public class FaultPolicyTests
         x[350] = 500.0;                  // t = 235 s
         x[200] = double.NaN;             // one empty cell, bridged, t = 160 s
         x[201] = double.NaN;
-        var stats = FaultPolicy.Evaluate(Rig(), "p_in", Window, t, x, DayStartS);
+        var stats = FaultPolicy.Evaluate(Rig(), "p_in", Window, t, x, Start);
         var c = stats.Conditioning!;
         Assert.Equal([DayStartS + 110.0, DayStartS + 235.0], c.SpikeTimesS);
         var gap = Assert.Single(c.BridgedGaps);
@@ -110,7 +112,7 @@ public class FaultPolicyTests
         {
             x[i] = double.NaN; // 5.5 s between valid samples > 2 s
         }
-        var stats = FaultPolicy.Evaluate(Rig(), "p_in", Window, t, x, DayStartS);
+        var stats = FaultPolicy.Evaluate(Rig(), "p_in", Window, t, x, Start);
         var gap = Assert.Single(stats.Conditioning!.UnbridgedGaps);
         Assert.Equal(DayStartS + 60.0 + 99.5, gap.StartS, 12);
         Assert.Equal(DayStartS + 60.0 + 105.0, gap.EndS, 12);
@@ -128,7 +130,7 @@ public class FaultPolicyTests
         {
             x[i] = double.NaN; // 80.5 s of a 300 s window: more than 25 % (the documented rule)
         }
-        var failure = Assert.Throws<WindowLostFailure>(() => FaultPolicy.Evaluate(Rig(), "p_in", Window, t, x, DayStartS));
+        var failure = Assert.Throws<WindowLostFailure>(() => FaultPolicy.Evaluate(Rig(), "p_in", Window, t, x, Start));
         Assert.Equal(FailureKind.InputData, failure.Kind);
         Assert.Contains("more than 25 % of the window", failure.Problems[0].Message, StringComparison.Ordinal);
     }

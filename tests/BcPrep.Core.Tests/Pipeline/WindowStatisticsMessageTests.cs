@@ -1,5 +1,6 @@
 using BcPrep.Conditioning;
 using BcPrep.Pipeline;
+using BcPrep.Values;
 
 namespace BcPrep.Tests.Pipeline;
 
@@ -16,7 +17,7 @@ public class WindowStatisticsMessageTests
         var window = new TimeWindow("OP1", dayStart + 900, dayStart + 1099.5);
 
         var failure = Assert.Throws<WindowLostFailure>(() =>
-            WindowStatistics.Evaluate("t_in", window, times, values, new ConditioningSettings(MaxBridgeS: 2.0), new SensorFaultLimits(), dayStart));
+            WindowStatistics.Evaluate("t_in", window, times, values, new ConditioningSettings(MaxBridgeS: 2.0), new SensorFaultLimits(), new DayStart(new LoggerSeconds(dayStart))));
 
         var message = Assert.Single(failure.Problems).Message;
         Assert.Contains("the longest 60.5 s from 999.5 s", message, StringComparison.Ordinal);

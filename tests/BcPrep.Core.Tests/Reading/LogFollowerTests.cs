@@ -14,6 +14,37 @@ public class LogFollowerTests
     private static string Row(int i) => string.Create(CultureInfo.InvariantCulture, $"{i * 0.1:R},{20 + Math.Sin(i * 0.01):R},{101325 + i % 17:R}");
 
     [Fact]
+    public void A_backlog_larger_than_one_poll_is_taken_in_pieces_each_row_once()
+    {
+        // A follower started after the logger had written more than MaxPollBytes into its first file, and a second
+        // file already begun: each poll takes at most MaxPollBytes, says whether more is there, and the rotation
+        // waits until the first file is read to its end.
+        using var temp = new TempFiles();
+        var rows = (LogFileReaderRowsFor(LogFollower.MaxPollBytes) * 3) / 2;
+        File.WriteAllText(Path.Combine(temp.Root, "day-001.csv"), "time,t_in,p_out\n" + string.Concat(Enumerable.Range(0, rows).Select(i => Row(i) + "\n")));
+        File.WriteAllText(Path.Combine(temp.Root, "day-002.csv"), "time,t_in,p_out\n" + Row(rows) + "\n");
+        var follower = new LogFollower(temp.Root, "*.csv");
+
+        var first = follower.Poll();
+        Assert.True(follower.HasMore);
+        Assert.InRange(first.Sum(l => l.Text.Length + 1), LogFollower.MaxPollBytes - 200, LogFollower.MaxPollBytes);
+        Assert.All(first, l => Assert.Equal("day-001.csv", l.FileName));
+        var seen = new List<FollowedLine>(first);
+        var polls = 1;
+        while (follower.HasMore || polls == 1)
+        {
+            seen.AddRange(follower.Poll());
+            polls++;
+        }
+
+        Assert.Equal(Enumerable.Range(0, rows + 1).Select(Row), seen.Where(l => !l.IsHeader).Select(l => l.Text));
+        Assert.False(follower.HasMore);
+    }
+
+    /// <summary>About how many rows of <see cref="Row"/> fill <paramref name="bytes"/>.</summary>
+    private static int LogFileReaderRowsFor(int bytes) => bytes / (Row(123456).Length + 1);
+
+    [Fact]
     public void A_day_written_in_pieces_with_a_rotation_is_seen_row_by_row_exactly_once_in_order()
     {
         using var temp = new TempFiles();

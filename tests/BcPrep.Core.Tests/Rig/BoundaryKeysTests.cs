@@ -87,8 +87,52 @@ public class BoundaryKeysTests
             plane = "inlet"
             radius = "60 mm"
             """);
-        Assert.Contains(problems, p => p.Message.Contains("rake thermocouple", StringComparison.Ordinal));
+        Assert.Contains(problems, p => p.Message.Contains("belongs to a rake sensor", StringComparison.Ordinal));
         Assert.Contains(problems, p => p.Message.Contains("outside the duct", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Rake_is_accepted_at_any_plane_with_distinct_radii()
+    {
+        // Rakes at the outlet and at any named plane carry a radius (common practice: a rake samples a section).
+        var rig = RigLoader.Load(SyntheticDay.Header + Channels + """
+            [[channel]]
+            id = "t_o1"
+            measures = "bulk_temperature"
+            plane = "outlet"
+            radius = "0 mm"
+
+            [[channel]]
+            id = "t_o2"
+            measures = "bulk_temperature"
+            plane = "outlet"
+            radius = "40 mm"
+
+            [[channel]]
+            id = "t_m1"
+            measures = "bulk_temperature"
+            plane = "meter"
+            radius = "40 mm"
+            """, "rig.toml");
+        Assert.Equal(0.04, rig.Channel("t_o2")!.RadiusM!.Value, 1e-12);
+        Assert.Equal("meter", rig.Channel("t_m1")!.Plane);
+
+        var problems = Problems("""
+            [[channel]]
+            id = "t_o1"
+            measures = "bulk_temperature"
+            plane = "outlet"
+            radius = "40 mm"
+
+            [[channel]]
+            id = "t_o2"
+            measures = "bulk_temperature"
+            plane = "outlet"
+            radius = "40 mm"
+            """);
+        var problem = Assert.Single(problems);
+        Assert.Contains("'t_o1' and 't_o2' both sit at radius 40 mm of the outlet plane", problem.Message, StringComparison.Ordinal);
+        Assert.Equal("channel 't_o2'.radius", problem.Location.Key);
     }
 
     [Fact]

@@ -2,7 +2,7 @@ using BcPrep.Steady;
 
 namespace BcPrep.Tests.Steady;
 
-/// <summary>Where a steady stretch ends before a set-point change, and the operating minimum of a key channel.</summary>
+/// <summary>Where a plateau's window ends before a set-point change, and the operating minimum of a key channel (PlateauDetector).</summary>
 public class StretchEdgeTests
 {
     private const double NoiseSd = 0.01;
@@ -20,7 +20,7 @@ public class StretchEdgeTests
         var y = t.Select(ti => 10.0 + (ti >= 2400 ? 0.5 * (1 - Math.Exp(-(ti - 2400) / 15.0)) : 0.0) + (NoiseSd * SteadyTestData.Gaussian(rng))).ToArray();
         var channel = new KeyChannel("q", y, 0.05 / 300.0, 0.05, 0.2);
 
-        var result = SteadyStateDetector.Detect(t, [channel], new SteadySettings());
+        var result = PlateauDetector.Detect(t, [channel], new SteadySettings());
 
         var first = result.Accepted[0];
         Assert.InRange(first.EndS, 2100.0, 2401.0);
@@ -35,7 +35,7 @@ public class StretchEdgeTests
         var flow = t.Select(_ => 0.0001 * SteadyTestData.Gaussian(rng)).ToArray();
         var channel = new KeyChannel("mdot", flow, 1e-6, 4e-4, 2e-3, MinimumValue: 0.005);
 
-        var result = SteadyStateDetector.Detect(t, [channel], new SteadySettings());
+        var result = PlateauDetector.Detect(t, [channel], new SteadySettings());
 
         Assert.Empty(result.Accepted);
         var rejected = Assert.Single(result.Rejected);
@@ -52,7 +52,7 @@ public class StretchEdgeTests
         var rng = new Random(6);
         var flow = t.Select(_ => 0.0001 * SteadyTestData.Gaussian(rng)).ToArray();
 
-        var result = SteadyStateDetector.Detect(t, [new KeyChannel("mdot", flow, 1e-6, 4e-4, 2e-3)], new SteadySettings());
+        var result = PlateauDetector.Detect(t, [new KeyChannel("mdot", flow, 1e-6, 4e-4, 2e-3)], new SteadySettings());
 
         Assert.Single(result.Accepted);
     }
