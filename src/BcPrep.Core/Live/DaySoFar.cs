@@ -31,6 +31,8 @@ public sealed class DaySoFar
     private readonly Dictionary<string, Dictionary<string, ChannelWindowStats>> _stats = new(StringComparer.Ordinal);
     private readonly Dictionary<string, Problem> _lost = new(StringComparer.Ordinal);
     private readonly Dictionary<TimeWindow, Dictionary<string, ChannelWindowStats>> _detectedStats = [];
+    private readonly Dictionary<(TimeWindow, WindowOrigin), PointResult> _points = [];
+    private (int Tares, int EndTares) _pointsTares;
     private readonly WindowStatsBook _book = new();
     private readonly DayExtentSink _extent = new();
     private readonly ScanIndex _index = new();
@@ -41,10 +43,7 @@ public sealed class DaySoFar
     /// <summary>What is known once the first rows are in: the logger's channels, the day's start and the sinks.</summary>
     private sealed record Started(
         IReadOnlyList<ChannelSpec> Channels, DayStart Start, BlockMeanSink Blocks, DetectionFeed Feed, WindowCollector FirstPass,
-        IReadOnlyList<TimeWindow> Pinned, IReadOnlyList<TimeWindow> TareWindows)
-    {
-        public double DayStartS => Start.FirstSample.Value;
-    }
+        IReadOnlyList<TimeWindow> Pinned, IReadOnlyList<TimeWindow> TareWindows);
 
     public DaySoFar(RigDescription rig, ProcessOptions options)
     {
@@ -113,13 +112,13 @@ public sealed class DaySoFar
             throw new InvalidOperationException("one followed file makes one logger");
         }
         // Fail at once when a sensor was already out of calibration on the first sample's date, as process does.
-        CalibrationCheck.Evaluate(_rig, TestDates.FromLogs(_rig.Log, plan.DayStartS, plan.DayStartS), _options.AllowExpired);
-        var blocks = new BlockMeanSink(plan.DayStartS, _rig.Steady.BlockS);
+        CalibrationCheck.Evaluate(_rig, TestDates.FromLogs(_rig.Log, plan.Start.FirstSample.Value, plan.Start.FirstSample.Value), _options.AllowExpired);
+        var blocks = new BlockMeanSink(plan.Start.FirstSample.Value, _rig.Steady.BlockS);
         var feed = DetectionFeed.For(_rig, blocks);
-        var tareWindows = DayProcessor.TareWindows(_rig, plan.DayStartS);
-        var pinned = _rig.Points.Select(p => new TimeWindow(p.Id, DayProcessor.Resolve(p.Start, plan.DayStartS), DayProcessor.Resolve(p.End, plan.DayStartS))).ToList();
+        var tareWindows = DayProcessor.TareWindows(_rig, plan.Start);
+        var pinned = _rig.Points.Select(p => new TimeWindow(p.Id, plan.Start.Resolve(p.Start).Value, plan.Start.Resolve(p.End).Value)).ToList();
         var firstPass = new WindowCollector([.. pinned, .. tareWindows],
-            (w, c, t, v) => DayProcessor.Collect(_rig, plan.DayStartS, _book, w, c, t, v, DayProcessor.PinnedLocation(_rig, w)),
+            (w, c, t, v) => DayProcessor.Collect(_rig, plan.Start, _book, w, c, t, v, DayProcessor.PinnedLocation(_rig, w)),
             collects: (w, c) => w.Serves(c));
         return new Started(plan.Loggers[0].Channels, plan.Start, blocks, feed, firstPass, pinned, tareWindows);
     }
@@ -134,7 +133,7 @@ public sealed class DaySoFar
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)"), "no complete row has been logged yet");
         }
         var rig = _rig;
-        var dayStartS = _day.DayStartS;
+        var dayStart = _day.Start;
         _book.DrainInto(_stats, lost: _lost);
         var calibration = CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, _extent.FirstS, _extent.LastS), _options.AllowExpired);
         _day.Feed.Settle(); // the blocks the de-spiking holds back belong to the day so far
@@ -146,9 +145,9 @@ public sealed class DaySoFar
         if (WindowFinder.IsEnabled(rig) || _day.Pinned.Count == 0)
         {
             WindowFinder.RequireBlocks(rig, series);
-            detection = WindowFinder.Detect(rig, series, dayStartS);
+            detection = WindowFinder.Detect(rig, series, dayStart);
         }
-        var windowPlan = PointWindows.Plan(pinned, detection, _day.Start);
+        var windowPlan = PointWindows.Plan(pinned, detection, dayStart);
         if (windowPlan.Points.Count == 0)
         {
             throw new BcPrepFailure(FailureKind.NoSteadyPoint, WindowFinder.NoSteadyProblems(rig, detection!));
@@ -158,7 +157,7 @@ public sealed class DaySoFar
         var detected = windowPlan.Points.Where(p => p.Origin == WindowOrigin.Detected).Select(p => p.Window).ToList();
         var book = new WindowStatsBook();
         var plan = new DayPlan([new LoggerFiles(_day.Channels, ReadPlan())], _day.Start);
-        var secondRead = new SeekingSecondRead(rig, plan, _converters, _index, null, (w, c, t, v) => DayProcessor.Collect(rig, dayStartS, book, w, c, t, v));
+        var secondRead = new SeekingSecondRead(rig, plan, _converters, _index, null, (w, c, t, v) => DayProcessor.Collect(rig, dayStart, book, w, c, t, v));
         foreach (var window in detected.Where(w => !_detectedStats.ContainsKey(w)))
         {
             secondRead.TryGather(window);
@@ -189,7 +188,7 @@ public sealed class DaySoFar
         }
         else if (detection is not null)
         {
-            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, _day.Start));
+            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, dayStart));
         }
         var tareStats = DayProcessor.TareStats(tareWindows, stats);
         var endTares = DayProcessor.EndTares(tareWindows, stats);
@@ -200,8 +199,24 @@ public sealed class DaySoFar
         {
             throw new BcPrepFailure(FailureKind.InputData, failed.Select(f => lost[f.Id]).ToList());
         }
-        IReadOnlyList<PointResult> points = DayProcessor.InOrder(reduced,
-            p => DayProcessor.EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, endTares, _options));
+        // A point whose window, origin and tares are those of an earlier reduction is that reduction's point (its
+        // window statistics are the same, see above): only new points are propagated.
+        if (_pointsTares != (tareStats.Count, endTares.Count))
+        {
+            _points.Clear();
+            _pointsTares = (tareStats.Count, endTares.Count);
+        }
+        var evaluated = DayProcessor.InOrder(reduced.Where(p => !_points.ContainsKey((p.Window, p.Origin))).ToList(),
+            p => (p, DayProcessor.EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, endTares, _options)));
+        foreach (var (p, point) in evaluated)
+        {
+            _points[(p.Window, p.Origin)] = point;
+        }
+        IReadOnlyList<PointResult> points = reduced.Select(p => _points[(p.Window, p.Origin)]).ToList();
+        foreach (var gone in _points.Keys.Where(k => !reduced.Any(p => (p.Window, p.Origin) == k)).ToList())
+        {
+            _points.Remove(gone);
+        }
         MatrixReport? matrix = null;
         if (_options.Matrix is not null)
         {

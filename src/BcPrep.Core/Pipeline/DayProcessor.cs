@@ -1,11 +1,12 @@
-using System.Globalization;
-using System.Runtime.ExceptionServices;
 using BcPrep.Lab;
 using BcPrep.Physics;
 using BcPrep.Reading;
 using BcPrep.Rig;
 using BcPrep.Steady;
 using BcPrep.Uncertainty;
+using BcPrep.Values;
+using System.Globalization;
+using System.Runtime.ExceptionServices;
 
 namespace BcPrep.Pipeline;
 
@@ -24,14 +25,14 @@ public static class DayProcessor
     {
         var plan = DayPlan.Create(rig, logs);
         // Fail before the long scan when a sensor was already out of calibration on the first sample's date.
-        CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, plan.DayStartS, plan.DayStartS), options.AllowExpired);
+        CalibrationCheck.Evaluate(rig, TestDates.FromLogs(rig.Log, plan.Start.FirstSample.Value, plan.Start.FirstSample.Value), options.AllowExpired);
         var converters = rig.Channels.ToDictionary(c => c.Id, BlockConverter.For, StringComparer.Ordinal);
-        var blocks = new BlockMeanSink(plan.DayStartS, rig.Steady.BlockS);
+        var blocks = new BlockMeanSink(plan.Start.FirstSample.Value, rig.Steady.BlockS);
         var stats = new Dictionary<string, Dictionary<string, ChannelWindowStats>>(StringComparer.Ordinal);
-        var tareWindows = TareWindows(rig, plan.DayStartS);
-        var pinned = rig.Points.Select(p => new TimeWindow(p.Id, Resolve(p.Start, plan.DayStartS), Resolve(p.End, plan.DayStartS))).ToList();
+        var tareWindows = TareWindows(rig, plan.Start);
+        var pinned = rig.Points.Select(p => new TimeWindow(p.Id, plan.Start.Resolve(p.Start).Value, plan.Start.Resolve(p.End).Value)).ToList();
         var book = new WindowStatsBook();
-        var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v, PinnedLocation(rig, w)),
+        var firstPass = new WindowCollector([.. pinned, .. tareWindows], (w, c, t, v) => Collect(rig, plan.Start, book, w, c, t, v, PinnedLocation(rig, w)),
             collects: (w, c) => w.Serves(c));
         var extent = new DayExtentSink();
         var feed = DetectionFeed.For(rig, blocks);
@@ -39,7 +40,7 @@ public static class DayProcessor
         var liveBook = new WindowStatsBook();
         var detects = WindowFinder.IsEnabled(rig) || pinned.Count == 0;
         var live = ReadsLive(rig, plan, detects, options)
-            ? new LiveDetection(rig, plan.DayStartS, feed.BlockSink, blocks, pinned, (w, c, t, v) => Collect(rig, plan.DayStartS, liveBook, w, c, t, v), options.KeptRowsS)
+            ? new LiveDetection(rig, plan.Start, feed.BlockSink, blocks, pinned, (w, c, t, v) => Collect(rig, plan.Start, liveBook, w, c, t, v), options.KeptRowsS)
             : null;
         DayScan.Run(rig, plan, converters, [firstPass, extent], (IBlockSink?)live ?? feed.BlockSink, options.Progress, index);
         feed.Complete();
@@ -59,7 +60,7 @@ public static class DayProcessor
             }
             else
             {
-                detection = WindowFinder.Detect(rig, series, plan.DayStartS);
+                detection = WindowFinder.Detect(rig, series, plan.Start);
             }
         }
         // Point ids are given here, once: a window pinned by hand replaces the detected ones it overlaps.
@@ -69,7 +70,7 @@ public static class DayProcessor
             throw new BcPrepFailure(FailureKind.NoSteadyPoint, WindowFinder.NoSteadyProblems(rig, detection!));
         }
         // Each detected window's samples come from the rows kept back during the read, else from a second read.
-        var secondRead = new SeekingSecondRead(rig, plan, converters, index, options.Progress, (w, c, t, v) => Collect(rig, plan.DayStartS, book, w, c, t, v));
+        var secondRead = new SeekingSecondRead(rig, plan, converters, index, options.Progress, (w, c, t, v) => Collect(rig, plan.Start, book, w, c, t, v));
         var fromKeptRows = new Dictionary<TimeWindow, TimeWindow>();
         foreach (var window in windowPlan.Points.Where(p => p.Origin == WindowOrigin.Detected).Select(p => p.Window))
         {
@@ -149,15 +150,13 @@ public static class DayProcessor
         return [.. results];
     }
 
-    public static double Resolve(TimeBound bound, double dayStartS) => bound.IsAbsolute ? bound.Seconds : dayStartS + bound.Seconds;
-
     private const string EndTarePrefix = "tare-end:";
 
-    internal static List<TimeWindow> TareWindows(RigDescription rig, double dayStartS) =>
+    internal static List<TimeWindow> TareWindows(RigDescription rig, DayStart dayStart) =>
         [.. rig.Channels.Where(c => c.Tare is not null)
-            .Select(c => TimeWindow.Tare(c.Id, Resolve(c.Tare!.Start, dayStartS), Resolve(c.Tare.End, dayStartS))),
+            .Select(c => TimeWindow.Tare(c.Id, dayStart.Resolve(c.Tare!.Start).Value, dayStart.Resolve(c.Tare.End).Value)),
          .. rig.Channels.Where(c => c.Tare is not null && c.TareEnd is not null)
-            .Select(c => new TimeWindow(EndTarePrefix + c.Id, Resolve(c.TareEnd!.Start, dayStartS), Resolve(c.TareEnd.End, dayStartS)) { TareOf = c.Id })];
+            .Select(c => new TimeWindow(EndTarePrefix + c.Id, dayStart.Resolve(c.TareEnd!.Start).Value, dayStart.Resolve(c.TareEnd.End).Value) { TareOf = c.Id })];
 
     /// <summary>Channels tared at both ends of the day: the end tare's statistics and both tare mid-times.</summary>
     internal static Dictionary<string, EndTare> EndTares(IReadOnlyList<TimeWindow> tareWindows, Dictionary<string, Dictionary<string, ChannelWindowStats>> stats)
@@ -174,7 +173,7 @@ public static class DayProcessor
         return result;
     }
 
-    internal static void Collect(RigDescription rig, double dayStartS, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,
+    internal static void Collect(RigDescription rig, DayStart dayStart, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,
         SourceLocation? pinnedAt = null)
     {
         if (pinnedAt is null)
@@ -183,18 +182,18 @@ public static class DayProcessor
             // when its statistics are filed under that id.
             book.Add(window, channel, named =>
             {
-                RequireSamples(named, channel, times, dayStartS, null);
-                return FaultPolicy.Evaluate(rig, channel, named, times, values, dayStartS);
+                RequireSamples(named, channel, times, dayStart, null);
+                return FaultPolicy.Evaluate(rig, channel, named, times, values, dayStart);
             });
             return;
         }
-        RequireSamples(window, channel, times, dayStartS, pinnedAt);
+        RequireSamples(window, channel, times, dayStart, pinnedAt);
         WindowCoverage.Require(window, channel, times, rig.Conditioning.MaxBridgeS, pinnedAt);
         book.Add(window, channel, _ =>
         {
             try
             {
-                return FaultPolicy.Evaluate(rig, channel, window, times, values, dayStartS);
+                return FaultPolicy.Evaluate(rig, channel, window, times, values, dayStart);
             }
             catch (WindowLostFailure failure)
             {
@@ -209,13 +208,13 @@ public static class DayProcessor
         });
     }
 
-    private static void RequireSamples(TimeWindow window, string channel, double[] times, double dayStartS, SourceLocation? pinnedAt)
+    private static void RequireSamples(TimeWindow window, string channel, double[] times, DayStart dayStart, SourceLocation? pinnedAt)
     {
         if (times.Length == 0)
         {
             var where = pinnedAt is null ? new SourceLocation("(logs)", Key: channel) : pinnedAt with { Key = $"{pinnedAt.Key}, channel '{channel}'" };
             throw new BcPrepFailure(FailureKind.InputData, where, string.Create(CultureInfo.InvariantCulture,
-                $"window '{window.Id}' ({window.StartS - dayStartS:F1}–{window.EndS - dayStartS:F1} s since the first sample of the day) holds no samples of '{channel}': is the window inside the day?"));
+                $"window '{window.Id}' ({dayStart.Since(window.Start).Value:F1}–{dayStart.Since(window.End).Value:F1} s since the first sample of the day) holds no samples of '{channel}': is the window inside the day?"));
         }
     }
 

@@ -58,11 +58,4 @@ public static class FaultPolicy
         }
         return stats with { Conditioning = report with { Faults = verdicts } };
     }
-
-    /// <summary>
-    /// <see cref="Evaluate(RigDescription, string, TimeWindow, double[], double[], DayStart)"/> for the day processor, which
-    /// still holds the day start as bare log-clock seconds; goes when it takes a <see cref="DayStart"/>.
-    /// </summary>
-    public static ChannelWindowStats Evaluate(RigDescription rig, string channelId, TimeWindow window, double[] timesS, double[] values, double dayStartS) =>
-        Evaluate(rig, channelId, window, timesS, values, new DayStart(new LoggerSeconds(dayStartS)));
 }

@@ -1,5 +1,6 @@
 using BcPrep.Rig;
 using BcPrep.Steady;
+using BcPrep.Values;
 
 namespace BcPrep.Pipeline;
 
@@ -24,7 +25,7 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource
 {
     private readonly IBlockSink _detectionFeed;
     private readonly BlockMeanSink _blocks;
-    private readonly double _dayStartS;
+    private readonly DayStart _dayStart;
     private readonly IReadOnlyList<TimeWindow> _pinned;
     private readonly IReadOnlyList<string> _channels;
     private readonly PlateauScan _scan;
@@ -38,18 +39,18 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource
     private int _finalCount;
 
     /// <param name="rig">The rig: key channels and detection settings.</param>
-    /// <param name="dayStartS">Log-clock time of the day's first sample (s).</param>
+    /// <param name="dayStart">The day's first sample: the scan counts from it, the rows are on the log clock.</param>
     /// <param name="detectionFeed">The block sink the block means come from (directly or through conditioning).</param>
     /// <param name="blocks">The block means that sink fills.</param>
     /// <param name="pinned">Windows pinned in the rig file, which replace the detected windows whose stretch they overlap.</param>
     /// <param name="onWindow">Receives (window interval, channel, times, values) of each gathered window and channel.</param>
     /// <param name="keptSpanS">At most how far back from the latest block rows are kept (s); null for no limit but the kept values' budget.</param>
-    public LiveDetection(RigDescription rig, double dayStartS, IBlockSink detectionFeed, BlockMeanSink blocks, IReadOnlyList<TimeWindow> pinned,
+    public LiveDetection(RigDescription rig, DayStart dayStart, IBlockSink detectionFeed, BlockMeanSink blocks, IReadOnlyList<TimeWindow> pinned,
         Action<TimeWindow, string, double[], double[]> onWindow, double? keptSpanS = null)
     {
         _detectionFeed = detectionFeed;
         _blocks = blocks;
-        _dayStartS = dayStartS;
+        _dayStart = dayStart;
         _pinned = pinned;
         _onWindow = onWindow;
         var channels = DetectionKeys.For(rig, _ => []);
@@ -68,7 +69,7 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource
         GatherFinal();
         if (_fedBlocks > 0)
         {
-            _rows.DropBefore(Math.Max(_dayStartS + _scan.OpenSinceS, _blocks.TimeAt(_fedBlocks - 1) - _keptSpanS));
+            _rows.DropBefore(Math.Max(_dayStart.OnClock(new DaySeconds(_scan.OpenSinceS)).Value, _blocks.TimeAt(_fedBlocks - 1) - _keptSpanS));
         }
     }
 
@@ -101,7 +102,7 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource
                 _means[k] = _blocks.MeanAt(_channels[k], _fedBlocks);
             }
             // The same expression as the day's detection over the whole series (WindowFinder.Detect).
-            _scan.Add(_blocks.TimeAt(_fedBlocks) - _dayStartS, _means);
+            _scan.Add(_dayStart.Since(new LoggerSeconds(_blocks.TimeAt(_fedBlocks))).Value, _means);
         }
     }
 
@@ -123,13 +124,13 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource
 
     private void Gather(SteadyWindow window)
     {
-        var stretch = Interval(_dayStartS + window.StretchStartS, _dayStartS + window.StretchEndS);
+        var stretch = Interval(_dayStart.OnClock(window.StretchStart).Value, _dayStart.OnClock(window.StretchEnd).Value);
         if (_pinned.Any(p => PointWindows.Overlap(p, stretch) > 0))
         {
             return;
         }
         // The same expression as the day's plan (PointWindows.Plan), so the interval is the point's bit for bit.
-        var interval = Interval(_dayStartS + window.StartS, _dayStartS + window.EndS);
+        var interval = Interval(_dayStart.OnClock(window.Start).Value, _dayStart.OnClock(window.End).Value);
         if (!_gathered.Contains(interval) && _rows.Covers(interval))
         {
             _rows.Gather(interval, (channel, times, values) => _onWindow(interval, channel, times, values));

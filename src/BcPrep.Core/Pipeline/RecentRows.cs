@@ -13,7 +13,14 @@ internal sealed class RecentRows
     /// </summary>
     public const long MaxKeptValues = 12_000_000;
 
+    private readonly long _maxKeptValues;
     private long _keptValues;
+
+    /// <param name="maxKeptValues">Values kept at most; <see cref="MaxKeptValues"/> by default.</param>
+    public RecentRows(long maxKeptValues = MaxKeptValues)
+    {
+        _maxKeptValues = maxKeptValues;
+    }
     private readonly Queue<Kept> _kept = new();
     private readonly Stack<Kept> _free = new();
     private IReadOnlyList<string> _channels = [];
@@ -43,7 +50,7 @@ internal sealed class RecentRows
         _kept.Enqueue(kept);
         _keptValues += Values(kept);
         _newestS = timeS[count - 1];
-        while (_keptValues > MaxKeptValues && _kept.Count > 1)
+        while (_keptValues > _maxKeptValues && _kept.Count > 1)
         {
             DropOldest();
         }

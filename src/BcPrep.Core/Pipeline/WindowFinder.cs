@@ -32,11 +32,11 @@ public static class WindowFinder
         ArgumentNullException.ThrowIfNull(rig);
         var plan = DayPlan.Create(rig, logs);
         var converters = rig.Channels.ToDictionary(c => c.Id, BlockConverter.For, StringComparer.Ordinal);
-        var feed = DetectionFeed.For(rig, new BlockMeanSink(plan.DayStartS, rig.Steady.BlockS));
+        var feed = DetectionFeed.For(rig, new BlockMeanSink(plan.Start.FirstSample.Value, rig.Steady.BlockS));
         DayScan.Run(rig, plan, converters, [], feed.BlockSink);
         feed.Complete();
         var series = Series(rig, feed.Blocks);
-        return new DayWindows(plan.Start, series, Detect(rig, series, plan.DayStartS));
+        return new DayWindows(plan.Start, series, Detect(rig, series, plan.Start));
     }
 
     /// <summary>Block means of every rig channel on the common block grid (NaN where a block has no sample).</summary>
@@ -53,7 +53,7 @@ public static class WindowFinder
     /// are shifted to the day's first sample so that reports read "in [2820, 3120] s", not in seconds since 1970.
     /// </summary>
     /// <exception cref="BcPrepFailure">Configuration when [steady] names no key channel.</exception>
-    public static SteadyDetectionResult Detect(RigDescription rig, BlockSeries series, double dayStartS)
+    public static SteadyDetectionResult Detect(RigDescription rig, BlockSeries series, DayStart dayStart)
     {
         ArgumentNullException.ThrowIfNull(rig);
         ArgumentNullException.ThrowIfNull(series);
@@ -63,7 +63,7 @@ public static class WindowFinder
                 "no [[point]] windows are pinned, [steady] names no key channel, and the rig has no mass flow, outlet or wall temperature channel to detect them with by default");
         }
         RequireBlocks(rig, series);
-        var times = series.TimesS.Select(t => t - dayStartS).ToArray();
+        var times = series.TimesS.Select(t => dayStart.Since(new LoggerSeconds(t)).Value).ToArray();
         return PlateauDetector.Detect(times, DetectionKeys.For(rig, channel => series.Means[channel]), Settings(rig.Steady), rig.Steady.BlockS);
     }
 

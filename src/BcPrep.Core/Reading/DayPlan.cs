@@ -9,8 +9,6 @@ namespace BcPrep.Reading;
 /// </summary>
 public sealed record DayPlan(IReadOnlyList<LoggerFiles> Loggers, DayStart Start)
 {
-    /// <summary>The first sample on the logger clock as bare seconds, for the pipeline code that does not take a <see cref="DayStart"/> yet.</summary>
-    public double DayStartS => Start.FirstSample.Value;
 
     /// <summary>Groups and orders the inputs; fails naming the channel or file when a column is missing or doubled.</summary>
     public static DayPlan Create(RigDescription rig, IReadOnlyList<LogInput> inputs)

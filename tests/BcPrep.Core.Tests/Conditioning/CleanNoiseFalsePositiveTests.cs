@@ -2,6 +2,7 @@ using BcPrep.Conditioning;
 using BcPrep.Pipeline;
 using BcPrep.Rig;
 using BcPrep.Tests.Rig;
+using BcPrep.Values;
 
 namespace BcPrep.Tests.Conditioning;
 
@@ -94,14 +95,14 @@ public class CleanNoiseFalsePositiveTests
     {
         // The sample rig's barometer: 0.01 hPa resolution term, no declared rails; an hour at 2 Hz of σ = 0.6 Pa noise.
         var rig = RigLoader.Load(File.ReadAllText(RigLoaderTests.SampleRigPath), "marten-rig.toml");
-        const double dayStartS = 0.0;
+        var dayStart = new DayStart(new LoggerSeconds(0.0));
         var window = new TimeWindow("OP1", 0.0, 3600.0);
         for (var seed = 20; seed < 25; seed++)
         {
             var noise = Ar1(7201, 0.6, seed);
             var t = Enumerable.Range(0, noise.Length).Select(i => 0.5 * i).ToArray();
             var x = noise.Select(v => 98_652.0 + Math.Round(0.6 * v)).ToArray();
-            var stats = FaultPolicy.Evaluate(rig, "p_baro", window, t, x, dayStartS);
+            var stats = FaultPolicy.Evaluate(rig, "p_baro", window, t, x, dayStart);
             Assert.Empty(stats.Conditioning!.Faults);
             Assert.True(stats.SpikesReplaced <= MaxReplacedFraction * x.Length, $"seed {seed}: {stats.SpikesReplaced} spikes");
         }

@@ -49,4 +49,21 @@ public class RecentRowsTests
         rows.Complete();
         Assert.True(rows.Covers(new TimeWindow("w", 20, 29)));
     }
+
+    // Common practice (a memory budget, no standard): beyond its budget of values the oldest blocks go first, and a
+    // window that starts in them is no longer covered, so it is read again instead of gathered with rows missing.
+    [Fact]
+    public void Beyond_its_budget_the_oldest_blocks_are_dropped_and_windows_in_them_refused()
+    {
+        var rows = new RecentRows(maxKeptValues: 75); // 10 rows × (time + 2 channels) = 30 values a block: two blocks fit
+        AddBlock(rows, 0, 10);
+        AddBlock(rows, 10, 10);
+        Assert.True(rows.Covers(new TimeWindow("w", 0, 15)));
+
+        AddBlock(rows, 20, 10);
+
+        Assert.False(rows.Covers(new TimeWindow("w", 0, 15)));
+        Assert.False(rows.Covers(new TimeWindow("w", 9, 15)));
+        Assert.True(rows.Covers(new TimeWindow("w", 9.5, 25)));
+    }
 }
