@@ -84,6 +84,9 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource
         FeedBlocks(_blocks.Length);
         var detection = _scan.Finish();
         GatherFinal();
+        // The day's last windows are gathered: the kept rows (up to 96 MB) must not live on through the second read
+        // and the propagation that follow.
+        _rows.Release();
         return detection;
     }
 

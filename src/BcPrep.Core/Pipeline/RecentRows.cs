@@ -72,6 +72,13 @@ internal sealed class RecentRows
     /// <summary>No row will follow: a window reaching past the last row is covered all the same.</summary>
     public void Complete() => _newestS = double.PositiveInfinity;
 
+    /// <summary>Lets go of every kept row and of the blocks kept for reuse: nothing more will be gathered.</summary>
+    public void Release()
+    {
+        DropBefore(double.PositiveInfinity);
+        _free.Clear();
+    }
+
     /// <summary>Drops the blocks whose last row lies before <paramref name="timeS"/>.</summary>
     public void DropBefore(double timeS)
     {

@@ -13,6 +13,22 @@ public class RecentRowsTests
         rows.Add(Channels, times, [times, times.Select(t => -t).ToArray()], count);
     }
 
+    // Common practice: once the day's last windows are gathered, nothing kept may outlive the read.
+    [Fact]
+    public void Release_lets_go_of_every_kept_row()
+    {
+        var rows = new RecentRows();
+        AddBlock(rows, 0, 10);
+        AddBlock(rows, 10, 10);
+        rows.Complete();
+        Assert.True(rows.Covers(new TimeWindow("w", 2, 15)));
+
+        rows.Release();
+
+        Assert.False(rows.Covers(new TimeWindow("w", 2, 15)));
+        Assert.False(rows.Covers(new TimeWindow("w", 19, 19)));
+    }
+
     // Reference: the window collector, which gathers every row with start ≤ t ≤ end from the log block by block.
     [Fact]
     public void Gathers_a_covered_window_as_the_collector_would_and_refuses_one_whose_start_was_dropped()
