@@ -68,7 +68,7 @@ public class DaySoFarTests
             var followed = day.Reduce();
 
             Assert.Equal(3, followed.Points.Count);
-            AssertSamePoints(reference, followed);
+            SameDayAssert.Points(reference, followed);
         }
     }
 
@@ -86,7 +86,7 @@ public class DaySoFarTests
         var followed = day.Reduce();
 
         Assert.Equal(2, followed.Points.Count);
-        AssertSamePoints(reference, followed);
+        SameDayAssert.Points(reference, followed);
     }
 
     [Fact]
@@ -125,28 +125,6 @@ public class DaySoFarTests
     }
 
     private static RigDescription SampleRig() => RigLoader.Load(File.ReadAllText(Tests.Rig.RigLoaderTests.SampleRigPath), Tests.Rig.RigLoaderTests.SampleRigPath);
-
-    private static void AssertSamePoints(DayResult expected, DayResult actual)
-    {
-        Assert.Equal(expected.Detection is null, actual.Detection is null);
-        if (expected.Detection is { } expectedDetection && actual.Detection is { } actualDetection)
-        {
-            Assert.Equal(expectedDetection.Accepted.Select(w => (w.StartS, w.EndS)), actualDetection.Accepted.Select(w => (w.StartS, w.EndS)));
-            Assert.Equal(expectedDetection.Rejected.Select(r => (r.StartS, r.EndS, r.Reason)), actualDetection.Rejected.Select(r => (r.StartS, r.EndS, r.Reason)));
-        }
-        Assert.Equal(expected.Points.Select(p => p.Window), actual.Points.Select(p => p.Window));
-        for (var i = 0; i < expected.Points.Count; i++)
-        {
-            foreach (var (channel, reference) in expected.Points[i].Channels)
-            {
-                var stats = actual.Points[i].Channels[channel];
-                Assert.Equal(reference.SampleCount, stats.SampleCount);
-                Assert.Equal(reference.Mean, stats.Mean);
-                Assert.Equal(reference.TypeA.StandardUncertainty, stats.TypeA.StandardUncertainty);
-            }
-            Assert.Equal(expected.Points[i].Gum.Outputs.Select(o => (o.Estimate, o.ExpandedUncertainty)), actual.Points[i].Gum.Outputs.Select(o => (o.Estimate, o.ExpandedUncertainty)));
-        }
-    }
 
     /// <summary>The first lines of a log in a temporary file of the same name.</summary>
     private sealed class TempCopy : IDisposable

@@ -24,7 +24,7 @@ public class SinglePassTests
         Assert.Equal(0, single.WindowsReadAgain);
         Assert.Equal(0, single.SecondPassSeeks);
         Assert.Equal(3, twoPasses.WindowsReadAgain);
-        AssertSamePoints(twoPasses, single);
+        SameDayAssert.Points(twoPasses, single);
     }
 
     // Reference: the two-pass reduction again. Rows are kept in whole read blocks (8192 rows, 819 s at 10 Hz); with
@@ -45,7 +45,7 @@ public class SinglePassTests
             Assert.Equal(3, shortKept.Points.Count);
             Assert.InRange(shortKept.WindowsReadAgain, 1, 3);
             Assert.True(shortKept.SecondPassSeeks >= 1);
-            AssertSamePoints(twoPasses, shortKept);
+            SameDayAssert.Points(twoPasses, shortKept);
         }
         finally
         {
@@ -65,7 +65,7 @@ public class SinglePassTests
 
         Assert.Equal(3, single.Points.Count);
         Assert.Equal(0, single.WindowsReadAgain);
-        AssertSamePoints(twoPasses, single);
+        SameDayAssert.Points(twoPasses, single);
     }
 
     // The pinned copy of the sample rig pins its three points, which replace the detected windows they overlap: nothing is gathered
@@ -80,32 +80,6 @@ public class SinglePassTests
 
         Assert.All(single.Points, p => Assert.Equal(WindowOrigin.RigFile, p.Origin));
         Assert.Equal(0, single.WindowsReadAgain);
-        AssertSamePoints(twoPasses, single);
-    }
-
-    private static void AssertSamePoints(DayResult expected, DayResult actual)
-    {
-        // The one pass's detection is the scan that ran during the read; the two passes' is WindowFinder.Detect over
-        // the block means afterwards. They must agree to the bit, rejected stretches included.
-        Assert.Equal(expected.Detection is null, actual.Detection is null);
-        if (expected.Detection is { } expectedDetection && actual.Detection is { } actualDetection)
-        {
-            Assert.Equal(expectedDetection.Accepted.Select(w => (w.StartS, w.EndS, w.StretchStartS, w.StretchEndS, w.AcceptedBy)), actualDetection.Accepted.Select(w => (w.StartS, w.EndS, w.StretchStartS, w.StretchEndS, w.AcceptedBy)));
-            Assert.Equal(expectedDetection.Rejected.Select(r => (r.StartS, r.EndS, r.Reason)), actualDetection.Rejected.Select(r => (r.StartS, r.EndS, r.Reason)));
-        }
-        Assert.Equal(expected.Points.Select(p => p.Window), actual.Points.Select(p => p.Window));
-        for (var i = 0; i < expected.Points.Count; i++)
-        {
-            foreach (var (channel, reference) in expected.Points[i].Channels)
-            {
-                var stats = actual.Points[i].Channels[channel];
-                Assert.Equal(reference.SampleCount, stats.SampleCount);
-                Assert.Equal(reference.SpikesReplaced, stats.SpikesReplaced);
-                Assert.Equal(reference.Mean, stats.Mean);
-                Assert.Equal(reference.StandardDeviation, stats.StandardDeviation);
-                Assert.Equal(reference.TypeA.StandardUncertainty, stats.TypeA.StandardUncertainty);
-            }
-            Assert.Equal(expected.Points[i].Gum.Outputs.Select(o => (o.Estimate, o.ExpandedUncertainty)), actual.Points[i].Gum.Outputs.Select(o => (o.Estimate, o.ExpandedUncertainty)));
-        }
+        SameDayAssert.Points(twoPasses, single);
     }
 }
