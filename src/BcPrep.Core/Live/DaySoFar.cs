@@ -181,24 +181,10 @@ public sealed class DaySoFar
         {
             _detectedStats.Remove(gone);
         }
-        var dayWarnings = new List<string>();
-        if (detection is { Accepted.Count: 0 })
-        {
-            dayWarnings.Add("steady detection accepted no window (see the manifest's rejected stretches); only the pinned points are processed");
-        }
-        else if (detection is not null)
-        {
-            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, dayStart));
-        }
+        var dayWarnings = DayProcessor.DetectionWarnings(detection, windowPlan, dayStart);
         var tareStats = DayProcessor.TareStats(tareWindows, stats);
         var endTares = DayProcessor.EndTares(tareWindows, stats);
-        var failed = windowPlan.Points.Where(p => lost.ContainsKey(p.Window.Id))
-            .Select(p => new FailedPoint(p.Window.Id, p.Window.StartS, p.Window.EndS, lost[p.Window.Id].Message)).ToList();
-        var reduced = windowPlan.Points.Where(p => !lost.ContainsKey(p.Window.Id)).ToList();
-        if (reduced.Count == 0)
-        {
-            throw new BcPrepFailure(FailureKind.InputData, failed.Select(f => lost[f.Id]).ToList());
-        }
+        var (failed, reduced) = DayProcessor.SplitLost(windowPlan, lost);
         // A point whose window, origin and tares are those of an earlier reduction is that reduction's point (its
         // window statistics are the same, see above): only new points are propagated.
         if (_pointsTares != (tareStats.Count, endTares.Count))
@@ -217,11 +203,8 @@ public sealed class DaySoFar
         {
             _points.Remove(gone);
         }
-        MatrixReport? matrix = null;
-        if (_options.Matrix is not null)
-        {
-            (points, matrix) = MatrixNaming.Apply(_options.Matrix, points);
-        }
+        MatrixReport? matrix;
+        (points, matrix) = DayProcessor.NameByMatrix(_options, points);
         return new DayResult(rig, _day.Start, points, series, detection, dayWarnings)
         {
             FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = _index.Seeks, WindowsReadAgain = secondRead.Count,

@@ -86,19 +86,37 @@ public static class DayProcessor
         liveBook.DrainInto(stats, lost, fromKeptRows);
         secondRead.Complete();
         book.DrainInto(stats, lost: lost);
-        var dayWarnings = new List<string>();
+        var dayWarnings = DetectionWarnings(detection, windowPlan, plan.Start);
+        var tareStats = TareStats(tareWindows, stats);
+        var endTares = EndTares(tareWindows, stats);
+        var (failed, reduced) = SplitLost(windowPlan, lost);
+        IReadOnlyList<PointResult> points = InOrder(reduced, p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, endTares, options));
+        MatrixReport? matrix;
+        (points, matrix) = NameByMatrix(options, points);
+        return new DayResult(rig, plan.Start, points, series, detection, dayWarnings) { FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = secondRead.Count };
+    }
+
+    /// <summary>The day's warnings about detection: none accepted, or pinned windows that detection does not support.</summary>
+    internal static List<string> DetectionWarnings(SteadyDetectionResult? detection, WindowPlan windowPlan, DayStart dayStart)
+    {
+        var warnings = new List<string>();
         if (detection is { Accepted.Count: 0 })
         {
-            dayWarnings.Add("steady detection accepted no window (see the manifest's rejected stretches); only the pinned points are processed");
+            warnings.Add("steady detection accepted no window (see the manifest's rejected stretches); only the pinned points are processed");
         }
         else if (detection is not null)
         {
-            dayWarnings.AddRange(PointWindows.PinnedWarnings(windowPlan, plan.Start));
+            warnings.AddRange(PointWindows.PinnedWarnings(windowPlan, dayStart));
         }
+        return warnings;
+    }
 
-        var tareStats = TareStats(tareWindows, stats);
-        var endTares = EndTares(tareWindows, stats);
-        // A point whose window lost too much to gaps fails alone; the others are reduced and written.
+    /// <summary>
+    /// A point whose window lost too much to gaps fails alone; the others are reduced and written. Fails the day only
+    /// when no point is left.
+    /// </summary>
+    internal static (List<FailedPoint> Failed, List<PlannedPoint> Reduced) SplitLost(WindowPlan windowPlan, IReadOnlyDictionary<string, Problem> lost)
+    {
         var failed = windowPlan.Points.Where(p => lost.ContainsKey(p.Window.Id))
             .Select(p => new FailedPoint(p.Window.Id, p.Window.StartS, p.Window.EndS, lost[p.Window.Id].Message)).ToList();
         var reduced = windowPlan.Points.Where(p => !lost.ContainsKey(p.Window.Id)).ToList();
@@ -106,14 +124,12 @@ public static class DayProcessor
         {
             throw new BcPrepFailure(FailureKind.InputData, failed.Select(f => lost[f.Id]).ToList());
         }
-        IReadOnlyList<PointResult> points = InOrder(reduced, p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, endTares, options));
-        MatrixReport? matrix = null;
-        if (options.Matrix is not null)
-        {
-            (points, matrix) = MatrixNaming.Apply(options.Matrix, points);
-        }
-        return new DayResult(rig, plan.Start, points, series, detection, dayWarnings) { FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = secondRead.Count };
+        return (failed, reduced);
     }
+
+    /// <summary>The points named by the test matrix when one is given, with its report; else the points as they are.</summary>
+    internal static (IReadOnlyList<PointResult> Points, MatrixReport? Matrix) NameByMatrix(ProcessOptions options, IReadOnlyList<PointResult> points) =>
+        options.Matrix is null ? (points, null) : MatrixNaming.Apply(options.Matrix, points);
 
     /// <summary>
     /// Whether the day's detection runs during the read (<see cref="LiveDetection"/>), its windows gathered from the
