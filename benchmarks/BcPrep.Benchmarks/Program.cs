@@ -4,9 +4,17 @@ namespace BcPrep.Benchmarks;
 
 /// <summary>
 /// Runs the benchmarks: <c>dotnet run -c Release --project benchmarks/BcPrep.Benchmarks -- --filter '*'</c>
-/// (or a class name, e.g. <c>--filter '*SteadyDetection*'</c>). Results go to BENCHMARKS.md by hand, with the machine.
+/// (or a class name, e.g. <c>--filter '*SteadyDetection*'</c>); <c>-- window-stats</c> runs <see cref="WindowStatisticsTiming"/>. Results go to BENCHMARKS.md by hand, with the machine.
 /// </summary>
 internal static class Program
 {
-    private static void Main(string[] args) => BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+    private static void Main(string[] args)
+    {
+        if (args.Length > 0 && args[0] == "window-stats")
+        {
+            WindowStatisticsTiming.Run(args.Length > 1 ? int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture) : 9);
+            return;
+        }
+        BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+    }
 }
