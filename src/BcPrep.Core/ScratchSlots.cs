@@ -10,6 +10,15 @@ internal static class ScratchSlots
     public const int ThermocoupleEmf = 4;
     public const int Deviations = 5;
 
+    /// <summary>A window's bridged, finite sample times (window statistics).</summary>
+    public const int WindowTimes = 6;
+
+    /// <summary>A window's bridged, finite sample values (window statistics).</summary>
+    public const int WindowValues = 7;
+
+    /// <summary>A window's de-spiked samples, rented at their exact length (<see cref="ThreadScratch.RentExact"/>).</summary>
+    public const int CleanSamples = 8;
+
     /// <summary>Number of slots.</summary>
-    public const int Count = 6;
+    public const int Count = 9;
 }
