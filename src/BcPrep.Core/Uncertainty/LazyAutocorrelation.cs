@@ -27,16 +27,18 @@ internal sealed class LazyAutocorrelation
     private int _known;
 
     public LazyAutocorrelation(double[] samples, double mean)
+        : this(samples, mean, SumOfSquares(samples, mean))
+    {
+    }
+
+    /// <param name="samples">The window.</param>
+    /// <param name="mean">Its mean.</param>
+    /// <param name="sumOfSquares">Σᵢ (xᵢ − mean)², summed in order (as <see cref="SumOfSquares"/> does), when the caller has it.</param>
+    public LazyAutocorrelation(double[] samples, double mean, double sumOfSquares)
     {
         _samples = samples;
         _mean = mean;
-        var ss = 0.0;
-        for (var i = 0; i < samples.Length; i++)
-        {
-            var d = samples[i] - mean;
-            ss += d * d;
-        }
-        _sumOfSquares = ss;
+        _sumOfSquares = sumOfSquares;
         // Scratch: the estimator is used and dropped within one window mean on one thread.
         _rho = ThreadScratch.Rent(ScratchSlots.Autocorrelation, Math.Min(samples.Length, DirectLagLimit));
         _rho[0] = 1.0;
@@ -151,6 +153,18 @@ internal sealed class LazyAutocorrelation
         {
             _rho[k] /= _sumOfSquares;
         }
+    }
+
+    /// <summary>Σᵢ (xᵢ − mean)², in order.</summary>
+    internal static double SumOfSquares(double[] samples, double mean)
+    {
+        var ss = 0.0;
+        for (var i = 0; i < samples.Length; i++)
+        {
+            var d = samples[i] - mean;
+            ss += d * d;
+        }
+        return ss;
     }
 
     private static int PowerOfTwoAtLeast(int value)
