@@ -1,5 +1,6 @@
 using System.Numerics;
 using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 
 namespace BcPrep.Uncertainty;
 
@@ -68,18 +69,23 @@ internal static class DirectLagSums
     {
         // The four lags' vector parts end within one vector of each other; sweep them together to the shortest.
         var common = Math.Min(stop, VectorEnd(n, k + 3, width)) - start;
+        if (common > 0 && common + k + 3 > d.Length)
+        {
+            throw new InvalidOperationException("The deviation buffer does not reach the lags swept.");
+        }
         var a0 = acc[0];
         var a1 = acc[1];
         var a2 = acc[2];
         var a3 = acc[3];
-        var i = 0;
-        for (; i < common; i += width)
+        ref var origin = ref MemoryMarshal.GetReference(d);
+        for (var i = 0; i < common; i += width)
         {
-            var x = new Vector<double>(d[i..]);
-            a0 += x * new Vector<double>(d[(i + k)..]);
-            a1 += x * new Vector<double>(d[(i + k + 1)..]);
-            a2 += x * new Vector<double>(d[(i + k + 2)..]);
-            a3 += x * new Vector<double>(d[(i + k + 3)..]);
+            // Unchecked loads: the check above keeps i + k + 3 + width − 1 ≤ common + k + 2 below d.Length.
+            var x = Vector.LoadUnsafe(ref origin, (nuint)i);
+            a0 += x * Vector.LoadUnsafe(ref origin, (nuint)(i + k));
+            a1 += x * Vector.LoadUnsafe(ref origin, (nuint)(i + k + 1));
+            a2 += x * Vector.LoadUnsafe(ref origin, (nuint)(i + k + 2));
+            a3 += x * Vector.LoadUnsafe(ref origin, (nuint)(i + k + 3));
         }
         var from = start + Math.Max(common, 0);
         acc[0] = Sweep(d, start, from, Math.Min(stop, VectorEnd(n, k, width)), k, width, a0);

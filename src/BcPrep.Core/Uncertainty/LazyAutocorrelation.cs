@@ -20,6 +20,9 @@ internal sealed class LazyAutocorrelation
     /// <summary>The first direct range: a sweep of up to 16 lags costs about what one of a single lag costs (memory-bound).</summary>
     private const int FirstDirectLags = 16;
 
+    /// <summary>The shortest section: 1024 lags, so a hum of a few tens of samples averages out of the prediction after one pass.</summary>
+    private const int MinimumSection = 1024;
+
     private readonly double[] _samples;
     private readonly double _sumOfSquares;
     private readonly double _mean;
@@ -27,16 +30,18 @@ internal sealed class LazyAutocorrelation
     private int _known;
 
     public LazyAutocorrelation(double[] samples, double mean)
+        : this(samples, mean, SumOfSquares(samples, mean))
+    {
+    }
+
+    /// <param name="samples">The window.</param>
+    /// <param name="mean">Its mean.</param>
+    /// <param name="sumOfSquares">Σᵢ (xᵢ − mean)², summed in order (as <see cref="SumOfSquares"/> does), when the caller has it.</param>
+    public LazyAutocorrelation(double[] samples, double mean, double sumOfSquares)
     {
         _samples = samples;
         _mean = mean;
-        var ss = 0.0;
-        for (var i = 0; i < samples.Length; i++)
-        {
-            var d = samples[i] - mean;
-            ss += d * d;
-        }
-        _sumOfSquares = ss;
+        _sumOfSquares = sumOfSquares;
         // Scratch: the estimator is used and dropped within one window mean on one thread.
         _rho = ThreadScratch.Rent(ScratchSlots.Autocorrelation, Math.Min(samples.Length, DirectLagLimit));
         _rho[0] = 1.0;
@@ -86,7 +91,9 @@ internal sealed class LazyAutocorrelation
             }
         }
         var target = Math.Min(n, Math.Max(lag + 1, 2 * _known));
-        var block = PowerOfTwoAtLeast(Math.Max(target, PredictedLags()));
+        // A first section of at least MinimumSection lags costs little more than a shorter one (log L) and gives the
+        // prediction long ranges to average over.
+        var block = PowerOfTwoAtLeast(Math.Max(Math.Max(target, PredictedLags()), MinimumSection));
         // The whole window's transform has PowerOfTwoAtLeast(n) complex points; once the blocks reach half of it,
         // two or three section transforms cost what the whole window's two do.
         if (block >= PowerOfTwoAtLeast(n) / 2)
@@ -106,29 +113,39 @@ internal sealed class LazyAutocorrelation
     }
 
     /// <summary>
-    /// Lags the cut-off will probably read, from how ρ̂ decays over the second half of the known lags: with
-    /// ρ̂ ≈ e^(−k/τ), the Sokal window (c = 5) stops near 5(1 + 2τ) and the Bartlett band sooner; 8(1 + 2τ) leaves
-    /// room for the estimate's scatter (a longer section costs only log L more, a second pass n·log L), and a section
-    /// that falls short is doubled. A correlation that has decayed (or oscillates) gives 0: plain doubling. One that
-    /// does not decay at all (a drift) asks for the whole window. Only the cost depends on this, never a value.
+    /// Lags the cut-off will probably read, from how ρ̂ decays between the means over two ranges of the known lags,
+    /// [K/4, K/2) and [K/2, K) (means, so that a hum's oscillation averages out): with ρ̂ ≈ e^(−k/τ), the Sokal window
+    /// (c = 5) stops near 5(1 + 2τ) and the Bartlett band sooner; 8(1 + 2τ) leaves room for the estimate's scatter (a
+    /// longer section costs only log L more, a second pass n·log L), and a section that falls short is doubled. A
+    /// correlation that has decayed (or oscillates about zero) gives 0: plain doubling. One that does not decay (a
+    /// drift) asks for the whole window. Only the cost depends on this, never a value.
     /// </summary>
     private int PredictedLags()
     {
-        var late = _known - 1;
-        var early = late / 2;
-        var rLate = _rho[late];
-        var rEarly = _rho[early];
-        if (!(rLate > 0.05 && rEarly > 0.05))
+        var early = MeanRho(_known / 4, _known / 2);
+        var late = MeanRho(_known / 2, _known);
+        if (!(late > 0.05 && early > 0.05))
         {
             return 0;
         }
-        if (rLate >= rEarly)
+        if (late >= early)
         {
             return Length;
         }
-        var tau = (late - early) / Math.Log(rEarly / rLate);
+        // The ranges' centres lie 3K/8 apart.
+        var tau = (3.0 * _known / 8.0) / Math.Log(early / late);
         var lags = 8.0 * (1.0 + (2.0 * tau));
         return lags >= Length ? Length : (int)lags;
+    }
+
+    private double MeanRho(int from, int to)
+    {
+        var sum = 0.0;
+        for (var k = from; k < to; k++)
+        {
+            sum += _rho[k];
+        }
+        return sum / (to - from);
     }
 
     private void Grow(int length)
@@ -151,6 +168,18 @@ internal sealed class LazyAutocorrelation
         {
             _rho[k] /= _sumOfSquares;
         }
+    }
+
+    /// <summary>Σᵢ (xᵢ − mean)², in order.</summary>
+    internal static double SumOfSquares(double[] samples, double mean)
+    {
+        var ss = 0.0;
+        for (var i = 0; i < samples.Length; i++)
+        {
+            var d = samples[i] - mean;
+            ss += d * d;
+        }
+        return ss;
     }
 
     private static int PowerOfTwoAtLeast(int value)
