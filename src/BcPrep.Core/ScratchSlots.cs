@@ -14,6 +14,15 @@ internal static class ScratchSlots
     public const int SectionSumImaginary = 8;
     public const int Autocorrelation = 9;
 
+    /// <summary>A window's bridged, finite sample times (window statistics).</summary>
+    public const int WindowTimes = 10;
+
+    /// <summary>A window's bridged, finite sample values (window statistics).</summary>
+    public const int WindowValues = 11;
+
+    /// <summary>A window's de-spiked samples, rented at their exact length (<see cref="ThreadScratch.RentExact"/>).</summary>
+    public const int CleanSamples = 12;
+
     /// <summary>Number of slots.</summary>
-    public const int Count = 10;
+    public const int Count = 13;
 }

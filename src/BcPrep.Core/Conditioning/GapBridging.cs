@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Numerics;
 
 namespace BcPrep.Conditioning;
 
@@ -31,6 +32,9 @@ public sealed record GapReport(
 
 /// <summary>Series after gap bridging: new time axis (s), values, and a per-sample flag for interpolated values.</summary>
 public sealed record GapBridgeResult(double[] TimesS, double[] Values, bool[] Interpolated, GapReport Report);
+
+/// <summary>What the gap search found: the report, the pairs of valid samples (indices) whose gap is bridged, the nominal interval and jump limit.</summary>
+internal sealed record GapSearch(GapReport Report, IReadOnlyList<(int A, int B)> BridgedPairs, double NominalIntervalS, double JumpS);
 
 /// <summary>Finds and bridges short gaps in a sampled channel.</summary>
 public static class GapBridging
@@ -65,47 +69,175 @@ public static class GapBridging
 
     private static GapBridgeResult Bridge(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values, double maxBridgeS, double[]? sameTimes, double[]? sameValues)
     {
-        Validate(timesS, values, maxBridgeS);
-        double nominal = NominalInterval(timesS);
-        double jumpS = JumpFactor * nominal;
-
-        var gaps = new List<DataGap>();
-        int nonFinite = 0, jumps = 0;
-        for (int i = 1; i < timesS.Length; i++)
+        var search = Search(timesS, values, maxBridgeS);
+        if (search.BridgedPairs.Count == 0 && sameTimes is not null && sameValues is not null)
         {
-            if (timesS[i] - timesS[i - 1] > jumpS)
-            {
-                jumps++;
-            }
+            return new GapBridgeResult(sameTimes, sameValues, new bool[sameValues.Length], search.Report);
         }
 
-        int previousValid = -1;
-        var bridgedPairs = new List<(int A, int B)>();
-        for (int i = 0; i < values.Length; i++)
-        {
-            if (!double.IsFinite(values[i]))
-            {
-                nonFinite++;
-                continue;
-            }
+        int n = values.Length + search.Report.InsertedSamples;
+        var t = new double[n];
+        var x = new double[n];
+        var flag = new bool[n];
+        AssembleInto(timesS, values, search, t, x, flag);
+        return new GapBridgeResult(t, x, flag, search.Report);
+    }
 
-            if (previousValid < 0 && i > 0)
+    /// <summary>
+    /// The gap search of <see cref="Bridge(ReadOnlySpan{double}, ReadOnlySpan{double}, double)"/> without the bridged
+    /// series: its report, and the pairs of valid samples whose gap it bridges. Nothing in it grows with the length.
+    /// </summary>
+    internal static GapSearch Search(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values, double maxBridgeS)
+    {
+        var steps = ValidateAndSummariseSteps(timesS, values, maxBridgeS);
+        double nominal = NominalInterval(timesS, steps);
+        double jumpS = JumpFactor * nominal;
+        int jumps = steps.Largest > jumpS ? CountStepsAbove(timesS, jumpS) : 0;
+        int nonFinite = CountNonFinite(values);
+
+        var gaps = new List<DataGap>();
+        var bridgedPairs = new List<(int A, int B)>();
+        if (jumps > 0 || nonFinite > 0)
+        {
+            FindGaps(timesS, values, maxBridgeS, nominal, jumpS, gaps, bridgedPairs);
+        }
+
+        int inserted = 0, interpolated = 0;
+        foreach (var (a, b) in bridgedPairs)
+        {
+            int inside = InsertedInside(timesS, a, b, nominal, jumpS);
+            inserted += inside;
+            interpolated += inside + (b - a - 1);
+        }
+
+        return new GapSearch(new GapReport(nominal, nonFinite, jumps, inserted, interpolated, gaps), bridgedPairs, nominal, jumpS);
+    }
+
+    /// <summary>
+    /// Writes the bridged series into <paramref name="t"/> and <paramref name="x"/> (at least
+    /// <c>values.Length + InsertedSamples</c> long) and, when <paramref name="flag"/> is not empty, marks the
+    /// interpolated samples in it (unmarked ones are left as they are). Returns the bridged length.
+    /// </summary>
+    internal static int AssembleInto(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values, GapSearch search, Span<double> t, Span<double> x, Span<bool> flag)
+    {
+        double nominal = search.NominalIntervalS, jumpS = search.JumpS;
+        int o = 0, from = 0;
+        foreach (var (a, b) in search.BridgedPairs)
+        {
+            // The samples up to and including a are kept as they are; then the gap up to b is filled.
+            int kept = a + 1 - from;
+            timesS.Slice(from, kept).CopyTo(t[o..]);
+            values.Slice(from, kept).CopyTo(x[o..]);
+            o += kept;
+            for (int j = a + 1; j <= b; j++)
             {
-                gaps.Add(new DataGap(timesS[0], timesS[i - 1], i, false, true));
-            }
-            else if (previousValid >= 0 && (i > previousValid + 1 || timesS[i] - timesS[previousValid] > jumpS))
-            {
-                double duration = timesS[i] - timesS[previousValid];
-                int missing = MissingInside(timesS, previousValid, i, nominal, jumpS);
-                bool bridge = duration <= maxBridgeS;
-                gaps.Add(new DataGap(timesS[previousValid], timesS[i], missing, bridge, false));
-                if (bridge)
+                int extra = Inserted(timesS[j] - timesS[j - 1], nominal, jumpS);
+                for (int m = 1; m <= extra; m++)
                 {
-                    bridgedPairs.Add((previousValid, i));
+                    t[o] = timesS[j - 1] + ((timesS[j] - timesS[j - 1]) * m / (extra + 1));
+                    x[o] = Line(timesS[a], values[a], timesS[b], values[b], t[o]);
+                    if (!flag.IsEmpty)
+                    {
+                        flag[o] = true;
+                    }
+
+                    o++;
+                }
+
+                if (j < b)
+                {
+                    t[o] = timesS[j];
+                    x[o] = Line(timesS[a], values[a], timesS[b], values[b], timesS[j]);
+                    if (!flag.IsEmpty)
+                    {
+                        flag[o] = true;
+                    }
+
+                    o++;
                 }
             }
 
-            previousValid = i;
+            from = b;
+        }
+
+        int rest = values.Length - from;
+        timesS.Slice(from, rest).CopyTo(t[o..]);
+        values.Slice(from, rest).CopyTo(x[o..]);
+        return o + rest;
+    }
+
+    /// <summary>The number of NaN/∞ values.</summary>
+    internal static int CountNonFinite(ReadOnlySpan<double> values)
+    {
+        int i = 0;
+        long count = 0;
+        if (Vector.IsHardwareAccelerated && values.Length >= Vector<double>.Count)
+        {
+            var counts = Vector<long>.Zero;
+            for (; i <= values.Length - Vector<double>.Count; i += Vector<double>.Count)
+            {
+                var v = new Vector<double>(values.Slice(i, Vector<double>.Count));
+                // v − v is 0 for a finite value and NaN for NaN/∞; the comparison is all ones (−1) where it is not 0.
+                counts += Vector.OnesComplement(Vector.Equals(v - v, Vector<double>.Zero));
+            }
+
+            count = -Vector.Sum(counts);
+        }
+
+        for (; i < values.Length; i++)
+        {
+            count += double.IsFinite(values[i]) ? 0 : 1;
+        }
+
+        return (int)count;
+    }
+
+    /// <summary>
+    /// Gaps between consecutive valid samples, the record edges, and the pairs bridged. Stretches without a NaN/∞
+    /// value or a time jump, nearly all of a record, are skipped a block at a time.
+    /// </summary>
+    private static void FindGaps(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values, double maxBridgeS, double nominal, double jumpS,
+        List<DataGap> gaps, List<(int A, int B)> bridgedPairs)
+    {
+        const int Block = 64;
+        int previousValid = -1;
+        int i = 0;
+        while (i < values.Length)
+        {
+            int end = Math.Min(values.Length, i + Block);
+            if (previousValid == i - 1 && end - i == Block && IsQuiet(timesS, values, i, end, jumpS))
+            {
+                // Every sample here is valid and follows the previous one within the jump limit: no gap starts or ends.
+                previousValid = end - 1;
+                i = end;
+                continue;
+            }
+
+            for (; i < end; i++)
+            {
+                if (!double.IsFinite(values[i]))
+                {
+                    continue;
+                }
+
+                if (previousValid < 0 && i > 0)
+                {
+                    gaps.Add(new DataGap(timesS[0], timesS[i - 1], i, false, true));
+                }
+                else if (previousValid >= 0 && (i > previousValid + 1 || timesS[i] - timesS[previousValid] > jumpS))
+                {
+                    double duration = timesS[i] - timesS[previousValid];
+                    int missing = MissingInside(timesS, previousValid, i, nominal, jumpS);
+                    bool bridge = duration <= maxBridgeS;
+                    gaps.Add(new DataGap(timesS[previousValid], timesS[i], missing, bridge, false));
+                    if (bridge)
+                    {
+                        bridgedPairs.Add((previousValid, i));
+                    }
+                }
+
+                previousValid = i;
+            }
         }
 
         if (previousValid < values.Length - 1)
@@ -113,67 +245,59 @@ public static class GapBridging
             int first = previousValid + 1;
             gaps.Add(new DataGap(timesS[first], timesS[^1], values.Length - first, false, true));
         }
-
-        if (bridgedPairs.Count == 0 && sameTimes is not null && sameValues is not null)
-        {
-            var report = new GapReport(nominal, nonFinite, jumps, 0, 0, gaps);
-            return new GapBridgeResult(sameTimes, sameValues, new bool[sameValues.Length], report);
-        }
-
-        return Assemble(timesS, values, nominal, jumpS, bridgedPairs, gaps, nonFinite, jumps);
     }
 
-    private static GapBridgeResult Assemble(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values, double nominal,
-        double jumpS, List<(int A, int B)> bridgedPairs, List<DataGap> gaps, int nonFinite, int jumps)
+    /// <summary>All values in [start, end) finite and every step into them (from start − 1, when there is one) at most <paramref name="jumpS"/>.</summary>
+    private static bool IsQuiet(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values, int start, int end, double jumpS)
     {
-        int inserted = 0;
-        foreach (var (a, b) in bridgedPairs)
+        int w = Vector<double>.Count;
+        var bad = Vector<long>.Zero;
+        var limit = new Vector<double>(jumpS);
+        int i = start;
+        for (; i <= end - w; i += w)
         {
-            inserted += InsertedInside(timesS, a, b, nominal, jumpS);
-        }
-
-        int n = values.Length + inserted;
-        var t = new double[n];
-        var x = new double[n];
-        var flag = new bool[n];
-        int interpolated = 0;
-        int o = 0, next = 0;
-        for (int i = 0; i < values.Length; i++)
-        {
-            t[o] = timesS[i];
-            x[o] = values[i];
-            o++;
-            if (next < bridgedPairs.Count && bridgedPairs[next].A == i)
+            var v = new Vector<double>(values.Slice(i, w));
+            bad |= Vector.OnesComplement(Vector.Equals(v - v, Vector<double>.Zero));
+            if (i > 0)
             {
-                var (a, b) = bridgedPairs[next++];
-                for (int j = a + 1; j <= b; j++)
+                var step = new Vector<double>(timesS.Slice(i, w)) - new Vector<double>(timesS.Slice(i - 1, w));
+                bad |= Vector.GreaterThan(step, limit);
+            }
+            else
+            {
+                for (int j = 1; j < w; j++)
                 {
-                    int extra = Inserted(timesS[j] - timesS[j - 1], nominal, jumpS);
-                    for (int m = 1; m <= extra; m++)
+                    if (timesS[j] - timesS[j - 1] > jumpS)
                     {
-                        t[o] = timesS[j - 1] + ((timesS[j] - timesS[j - 1]) * m / (extra + 1));
-                        x[o] = Line(timesS[a], values[a], timesS[b], values[b], t[o]);
-                        flag[o] = true;
-                        o++;
-                        interpolated++;
-                    }
-
-                    if (j < b)
-                    {
-                        t[o] = timesS[j];
-                        x[o] = Line(timesS[a], values[a], timesS[b], values[b], timesS[j]);
-                        flag[o] = true;
-                        o++;
-                        interpolated++;
+                        return false;
                     }
                 }
-
-                i = b - 1;
             }
         }
 
-        var report = new GapReport(nominal, nonFinite, jumps, inserted, interpolated, gaps);
-        return new GapBridgeResult(t, x, flag, report);
+        for (; i < end; i++)
+        {
+            if (!double.IsFinite(values[i]) || (i > 0 && timesS[i] - timesS[i - 1] > jumpS))
+            {
+                return false;
+            }
+        }
+
+        return bad == Vector<long>.Zero;
+    }
+
+    private static int CountStepsAbove(ReadOnlySpan<double> timesS, double limitS)
+    {
+        int count = 0;
+        for (int i = 1; i < timesS.Length; i++)
+        {
+            if (timesS[i] - timesS[i - 1] > limitS)
+            {
+                count++;
+            }
+        }
+
+        return count;
     }
 
     private static double Line(double ta, double xa, double tb, double xb, double t) => xa + ((xb - xa) * (t - ta) / (tb - ta));
@@ -195,19 +319,45 @@ public static class GapBridging
     private static int MissingInside(ReadOnlySpan<double> timesS, int a, int b, double nominal, double jumpS) =>
         (b - a - 1) + InsertedInside(timesS, a, b, nominal, jumpS);
 
-    private static double NominalInterval(ReadOnlySpan<double> timesS)
+    /// <summary>
+    /// The median of the time steps. The steps of a logger's clock take very few distinct values (at 1 kHz on the
+    /// epoch-seconds clock, two: 4194 or 4195 units of 2⁻²² s), so one pass that counts the steps below and equal
+    /// to a likely median (<see cref="StepSummary"/>) usually proves which values sit at the middle ranks. Only
+    /// when it does not is a copy of the steps reordered by selection, as before.
+    /// </summary>
+    private static double NominalInterval(ReadOnlySpan<double> timesS, StepSummary steps)
     {
-        // The selection reorders its input, so it works on a per-thread scratch copy of the steps.
-        var steps = ThreadScratch.Rent(ScratchSlots.TimeSteps, timesS.Length - 1);
-        for (int i = 1; i < timesS.Length; i++)
+        int count = timesS.Length - 1;
+        int upper = count / 2;
+        if (steps.Rank(upper) is { } upperValue)
         {
-            steps[i - 1] = timesS[i] - timesS[i - 1];
+            if (count % 2 == 1)
+            {
+                return upperValue;
+            }
+
+            if (steps.Rank(upper - 1) is { } lowerValue)
+            {
+                return 0.5 * (lowerValue + upperValue);
+            }
         }
 
-        return OrderStatistics.MedianInPlace(steps.AsSpan(0, timesS.Length - 1));
+        // The selection reorders its input, so it works on a per-thread scratch copy of the steps.
+        var copy = ThreadScratch.Rent(ScratchSlots.TimeSteps, count);
+        for (int i = 1; i < timesS.Length; i++)
+        {
+            copy[i - 1] = timesS[i] - timesS[i - 1];
+        }
+
+        return OrderStatistics.MedianInPlace(copy.AsSpan(0, count));
     }
 
-    private static void Validate(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values, double maxBridgeS)
+    /// <summary>
+    /// Refuses what <see cref="Bridge(ReadOnlySpan{double}, ReadOnlySpan{double}, double)"/> documents, with the same
+    /// messages as ever, and summarises the time steps in the same pass: the largest, and how many lie below and at
+    /// a candidate median (the median of a sample of 255 steps spread over the record), with their neighbours.
+    /// </summary>
+    private static StepSummary ValidateAndSummariseSteps(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values, double maxBridgeS)
     {
         if (timesS.Length != values.Length)
         {
@@ -226,6 +376,87 @@ public static class GapBridging
                 $"Maximum bridged gap {maxBridgeS} s must be zero or positive."));
         }
 
+        int count = timesS.Length - 1;
+        int sampled = Math.Min(count, 255);
+        Span<double> sample = stackalloc double[sampled];
+        for (int j = 0; j < sampled; j++)
+        {
+            int i = (int)((long)j * count / sampled) + 1;
+            sample[j] = timesS[i] - timesS[i - 1];
+        }
+
+        sample.Sort();
+        double candidate = sample[sampled / 2];
+
+        // One pass over the steps t[i] − t[i−1], i = 1…n−1: a non-finite stamp makes a step NaN or ±∞ and a
+        // non-increasing one a step ≤ 0, so "finite and > 0" holds for all of them exactly when time is valid.
+        int w = Vector<double>.Count;
+        var bad = Vector<long>.Zero;
+        var below = Vector<long>.Zero;
+        var equal = Vector<long>.Zero;
+        var largest = new Vector<double>(double.NegativeInfinity);
+        var largestBelow = new Vector<double>(double.NegativeInfinity);
+        var smallestAbove = new Vector<double>(double.PositiveInfinity);
+        var at = new Vector<double>(candidate);
+        int k = 1;
+        if (Vector.IsHardwareAccelerated)
+        {
+            for (; k <= timesS.Length - w; k += w)
+            {
+                var later = new Vector<double>(timesS.Slice(k, w));
+                var step = later - new Vector<double>(timesS.Slice(k - 1, w));
+                bad |= Vector.OnesComplement(Vector.Equals(later - later, Vector<double>.Zero)) | Vector.OnesComplement(Vector.GreaterThan(step, Vector<double>.Zero));
+                var isBelow = Vector.LessThan(step, at);
+                var isAbove = Vector.GreaterThan(step, at);
+                below -= isBelow;
+                equal -= Vector.Equals(step, at);
+                largest = Vector.Max(largest, step);
+                largestBelow = Vector.Max(largestBelow, Vector.ConditionalSelect(isBelow, step, new Vector<double>(double.NegativeInfinity)));
+                smallestAbove = Vector.Min(smallestAbove, Vector.ConditionalSelect(isAbove, step, new Vector<double>(double.PositiveInfinity)));
+            }
+        }
+
+        var summary = new StepSummary(candidate, Vector.Sum(below), Vector.Sum(equal), Max(largestBelow), Min(smallestAbove), Max(largest));
+        bool valid = bad == Vector<long>.Zero && double.IsFinite(timesS[0]);
+        for (; k < timesS.Length; k++)
+        {
+            double step = timesS[k] - timesS[k - 1];
+            valid &= double.IsFinite(timesS[k]) && step > 0.0;
+            summary = summary.Add(step);
+        }
+
+        if (!valid)
+        {
+            ThrowAtFirstInvalidTime(timesS);
+        }
+
+        return summary;
+    }
+
+    private static double Max(Vector<double> v)
+    {
+        double max = double.NegativeInfinity;
+        for (int i = 0; i < Vector<double>.Count; i++)
+        {
+            max = Math.Max(max, v[i]);
+        }
+
+        return max;
+    }
+
+    private static double Min(Vector<double> v)
+    {
+        double min = double.PositiveInfinity;
+        for (int i = 0; i < Vector<double>.Count; i++)
+        {
+            min = Math.Min(min, v[i]);
+        }
+
+        return min;
+    }
+
+    private static void ThrowAtFirstInvalidTime(ReadOnlySpan<double> timesS)
+    {
         for (int i = 0; i < timesS.Length; i++)
         {
             if (!double.IsFinite(timesS[i]) || (i > 0 && timesS[i] <= timesS[i - 1]))
@@ -234,5 +465,29 @@ public static class GapBridging
                     $"Time stamp {i} ({timesS[i]} s) is not finite or not after the previous one; time must increase strictly."));
             }
         }
+
+        throw new InvalidOperationException("A time stamp was found invalid but none is.");
+    }
+
+    /// <summary>
+    /// The time steps of a record against a candidate median: how many lie below it and at it, the largest below
+    /// and the smallest above it, and the largest step of all.
+    /// </summary>
+    private readonly record struct StepSummary(double Candidate, long Below, long Equal, double LargestBelow, double SmallestAbove, double Largest)
+    {
+        public StepSummary Add(double step) => new(
+            Candidate,
+            Below + (step < Candidate ? 1 : 0),
+            Equal + (step == Candidate ? 1 : 0),
+            step < Candidate ? Math.Max(LargestBelow, step) : LargestBelow,
+            step > Candidate ? Math.Min(SmallestAbove, step) : SmallestAbove,
+            Math.Max(Largest, step));
+
+        /// <summary>The step of 0-based rank <paramref name="rank"/> in ascending order, when the counts prove it; else null.</summary>
+        public double? Rank(long rank) =>
+            rank >= Below && rank < Below + Equal ? Candidate
+            : rank == Below - 1 ? LargestBelow
+            : rank == Below + Equal ? SmallestAbove
+            : null;
     }
 }

@@ -416,4 +416,84 @@ public static class HampelFilter
         [MethodImpl(MethodImplOptions.AggressiveInlining)]
         private int LowerBound(double value) => SortedSearch.FirstAtOrAfter(_sorted.AsSpan(0, Count), value);
     }
+
+    /// <summary>
+    /// As <see cref="Apply"/>, but the cleaned series goes into <paramref name="output"/> (as long as
+    /// <paramref name="x"/>, not overlapping it) instead of a new array, so a caller with a reusable buffer allocates
+    /// nothing in proportion to the length; returns the replaced indices. On finite samples it takes the loops of
+    /// <see cref="ApplySevenPoint"/> (k = 3) and <see cref="ApplyVectorWindow"/> (any other k), writing each sample
+    /// as it is decided; with NaN/∞ samples it goes through <see cref="Apply"/> and copies.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public static IReadOnlyList<int> ApplyInto(ReadOnlySpan<double> x, Span<double> output, int halfWindow = 3, double sigmaThreshold = 3.0, double scaleFloor = 0.0)
+    {
+        if (output.Length != x.Length || output.Overlaps(x))
+        {
+            throw new ArgumentException("The output must be as long as the samples and must not overlap them.", nameof(output));
+        }
+
+        Validate(halfWindow, sigmaThreshold, scaleFloor);
+        bool sevenPoint = halfWindow == SevenPointWindow.HalfWindow;
+        if (x.Length <= 2 * halfWindow || !(sevenPoint || Vector.IsHardwareAccelerated) || !AllFinite(x))
+        {
+            var result = Apply(x, halfWindow, sigmaThreshold, scaleFloor);
+            result.Values.CopyTo(output);
+            return result.ReplacedIndices;
+        }
+
+        int k = halfWindow;
+        int n = x.Length;
+        var replaced = new List<int>();
+        VectorSortedWindow? window = null;
+        for (int i = 0; i < n; i++)
+        {
+            double median;
+            double mad;
+            if (i < k || i >= n - k)
+            {
+                (median, mad) = TruncatedWindow(x, i, k);
+            }
+            else if (sevenPoint)
+            {
+                (median, mad) = SevenPointWindow.MedianAndMad(x.Slice(i - k, (2 * k) + 1));
+            }
+            else
+            {
+                if (window is null)
+                {
+                    window = new VectorSortedWindow(x.Slice(i - k, (2 * k) + 1));
+                }
+                else
+                {
+                    window.Slide(x[i - k - 1], x[i + k]);
+                }
+
+                median = window.Median;
+                double radius = Math.Abs(x[i] - median) / (sigmaThreshold * MadToSigma);
+                if (double.IsFinite(radius))
+                {
+                    double wide = WidenedRadius(median, radius);
+                    if (window.CountInside(median - wide, median + wide) <= k)
+                    {
+                        output[i] = x[i];
+                        continue; // as in the general path: well inside the window's spread
+                    }
+                }
+
+                mad = SortedMad(window.Sorted, median);
+            }
+
+            if (IsSpike(x[i], median, mad, sigmaThreshold, scaleFloor))
+            {
+                output[i] = median;
+                replaced.Add(i);
+            }
+            else
+            {
+                output[i] = x[i];
+            }
+        }
+
+        return replaced;
+    }
 }

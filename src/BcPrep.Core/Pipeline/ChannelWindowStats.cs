@@ -43,17 +43,26 @@ public static class WindowStatistics
     /// understate the Type A uncertainty. What was done is in <see cref="ChannelWindowStats.Conditioning"/>.
     /// </summary>
     /// <remarks>Messages give times since <paramref name="dayStart"/>, the first sample of the day (by default the clock's zero).</remarks>
+    /// <remarks>
+    /// Working arrays: the bridged, finite samples and the de-spiked ones live in per-thread scratch
+    /// (<see cref="ThreadScratch"/>; statistics run on the fixed <see cref="StatisticsWorkers"/> threads), and a window
+    /// whose times are evenly spaced and whose values are all finite, the usual one, is not copied at all. Nothing
+    /// that grows with the window reaches the result: it keeps scalars, gaps, spike times and flags.
+    /// </remarks>
     public static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, double[] values, ConditioningSettings settings, SensorFaultLimits limits, DayStart dayStart = default)
     {
         ArgumentNullException.ThrowIfNull(settings);
-        var finite = FiniteCount(values);
+        ArgumentNullException.ThrowIfNull(timesS);
+        ArgumentNullException.ThrowIfNull(values);
+        var finite = values.Length - GapBridging.CountNonFinite(values);
         if (finite < 3)
         {
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel),
                 $"window '{window.Id}' ({dayStart.Since(window.Start).Value:F1}–{dayStart.Since(window.End).Value:F1} s since the first sample of the day) holds {finite} valid samples of '{channel}'; at least 3 are needed");
         }
-        var bridged = GapBridging.Bridge(timesS, values, settings.MaxBridgeS);
-        var interior = bridged.Report.Unbridged.Where(g => !g.AtRecordEdge).ToList();
+        var search = GapBridging.Search(timesS, values, settings.MaxBridgeS);
+        var gaps = search.Report.Gaps;
+        var interior = gaps.Where(g => !g.Bridged && !g.AtRecordEdge).ToList();
         var lostS = interior.Sum(g => g.DurationS);
         if (window.DurationS > 0 && lostS > LostFractionLimit * window.DurationS)
         {
@@ -61,19 +70,18 @@ public static class WindowStatistics
             throw new WindowLostFailure(new SourceLocation("(logs)", Key: channel), string.Create(System.Globalization.CultureInfo.InvariantCulture,
                 $"channel '{channel}' lost {lostS:F1} s of window '{window.Id}' ({dayStart.Since(window.Start).Value:F1}–{dayStart.Since(window.End).Value:F1} s since the first sample of the day) to {interior.Count} gap(s) longer than the {settings.MaxBridgeS:G} s that may be bridged, the longest {gap.DurationS:F1} s from {dayStart.Since(new LoggerSeconds(gap.StartS)).Value:F1} s; more than {LostFractionLimit:P0} of the window is too little left to stand for it"));
         }
-        var (keptTimes, kept) = FiniteSamples(bridged.TimesS, bridged.Values);
-        var despiked = HampelFilter.Apply(kept, settings.HampelHalfWindow, settings.HampelSigmas, settings.HampelScaleFloor);
-        var clean = despiked.Values;
-        var faults = SensorFaults.Check(clean, limits).Flags;
+        var (keptTimes, kept) = BridgedFiniteSamples(timesS, values, search, finite);
+        var clean = ThreadScratch.RentExact(ScratchSlots.CleanSamples, kept.Length);
+        var replaced = HampelFilter.ApplyInto(kept.Span, clean, settings.HampelHalfWindow, settings.HampelSigmas, settings.HampelScaleFloor);
+        var faults = SensorFaults.Check(clean, limits, out var min, out var max).Flags;
         var typeA = WindowMean.Evaluate(clean);
-        var (min, max) = Range(clean);
         var report = new WindowConditioning(
-            bridged.Report.Bridged.ToList(), bridged.Report.Unbridged.Where(g => g.AtRecordEdge).ToList(),
-            despiked.ReplacedIndices.Select(i => keptTimes[i]).ToList(),
-            faults.Select(f => new FaultVerdict(f, FaultSeverity.Warning, f.FirstIndex >= 0 && f.FirstIndex < keptTimes.Length ? keptTimes[f.FirstIndex] : double.NaN)).ToList());
+            [.. gaps.Where(g => g.Bridged)], [.. gaps.Where(g => !g.Bridged && g.AtRecordEdge)],
+            SpikeTimes(replaced, keptTimes),
+            [.. faults.Select(f => new FaultVerdict(f, FaultSeverity.Warning, f.FirstIndex >= 0 && f.FirstIndex < keptTimes.Length ? keptTimes.Span[f.FirstIndex] : double.NaN))]);
         return new ChannelWindowStats(
-            channel, window.Id, clean.Length, values.Length - finite, bridged.Report.InterpolatedSamples,
-            despiked.ReplacedIndices.Count, typeA.Mean, typeA.StandardDeviation, min, max, typeA, faults)
+            channel, window.Id, clean.Length, values.Length - finite, search.Report.InterpolatedSamples,
+            replaced.Count, typeA.Mean, typeA.StandardDeviation, min, max, typeA, faults)
         {
             Conditioning = report with { UnbridgedGaps = interior },
         };
@@ -87,47 +95,52 @@ public static class WindowStatistics
     /// </summary>
     public const double LostFractionLimit = 0.25;
 
-    private static int FiniteCount(double[] values)
+    /// <summary>
+    /// The bridged series without its NaN/∞ cells (those of gaps left open), with times: the given arrays themselves
+    /// when nothing is bridged or dropped (the usual case), else the thread's scratch arrays, valid until its next window.
+    /// </summary>
+    private static (ReadOnlyMemory<double> TimesS, ReadOnlyMemory<double> Values) BridgedFiniteSamples(double[] timesS, double[] values, GapSearch search, int finite)
     {
-        var count = 0;
-        foreach (var v in values)
-        {
-            count += double.IsFinite(v) ? 1 : 0;
-        }
-        return count;
-    }
-
-    /// <summary>The finite samples with their times; the arrays themselves when all are finite (the usual case).</summary>
-    private static (double[] TimesS, double[] Values) FiniteSamples(double[] timesS, double[] values)
-    {
-        var finite = FiniteCount(values);
-        if (finite == values.Length)
+        if (search.BridgedPairs.Count == 0 && finite == values.Length)
         {
             return (timesS, values);
         }
-        var keptTimes = new double[finite];
-        var kept = new double[finite];
+        var length = values.Length + search.Report.InsertedSamples;
+        var t = ThreadScratch.Rent(ScratchSlots.WindowTimes, length);
+        var x = ThreadScratch.Rent(ScratchSlots.WindowValues, length);
         var o = 0;
-        for (var i = 0; i < values.Length; i++)
+        if (search.BridgedPairs.Count == 0)
         {
-            if (double.IsFinite(values[i]))
+            for (var i = 0; i < values.Length; i++)
             {
-                keptTimes[o] = timesS[i];
-                kept[o++] = values[i];
+                t[o] = timesS[i];
+                x[o] = values[i];
+                o += double.IsFinite(values[i]) ? 1 : 0;
             }
+            return (t.AsMemory(0, o), x.AsMemory(0, o));
         }
-        return (keptTimes, kept);
+        length = GapBridging.AssembleInto(timesS, values, search, t, x, []);
+        if (GapBridging.CountNonFinite(x.AsSpan(0, length)) == 0)
+        {
+            return (t.AsMemory(0, length), x.AsMemory(0, length));
+        }
+        for (var i = 0; i < length; i++)
+        {
+            t[o] = t[i];
+            x[o] = x[i];
+            o += double.IsFinite(x[i]) ? 1 : 0;
+        }
+        return (t.AsMemory(0, o), x.AsMemory(0, o));
     }
 
-    private static (double Min, double Max) Range(double[] values)
+    private static List<double> SpikeTimes(IReadOnlyList<int> replaced, ReadOnlyMemory<double> keptTimes)
     {
-        var min = double.PositiveInfinity;
-        var max = double.NegativeInfinity;
-        foreach (var v in values)
+        var times = keptTimes.Span;
+        var result = new List<double>(replaced.Count);
+        foreach (var i in replaced)
         {
-            min = Math.Min(min, v);
-            max = Math.Max(max, v);
+            result.Add(times[i]);
         }
-        return (min, max);
+        return result;
     }
 }
