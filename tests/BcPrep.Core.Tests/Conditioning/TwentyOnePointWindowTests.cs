@@ -40,9 +40,16 @@ public class TwentyOnePointWindowTests
     }
 
     // Reference: the definition (median and MAD of each 21-sample window by sorting, as HampelFilterTests.Definition),
-    // for centres straddling every position of the last, moved-back group: a lane decided twice, or skipped, shows up
-    // as a duplicate, a missing or an out-of-order index.
+    // for centres straddling every position of the last, moved-back group (4 … 33 centres), and for the four stretches
+    // of a long series with every remainder of its length by 4 (256 … 259: the last stretch moved back over the
+    // third): a lane decided twice, or skipped, shows up as a duplicate, a missing or an out-of-order index, a window
+    // slid wrongly as a wrong median. A third of the samples are spikes, so every lane replaces many.
     [Theory]
+    [InlineData(256)]
+    [InlineData(257)]
+    [InlineData(258)]
+    [InlineData(259)]
+    [InlineData(1001)]
     [InlineData(4)]
     [InlineData(5)]
     [InlineData(7)]
