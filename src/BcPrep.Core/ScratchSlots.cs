@@ -9,7 +9,11 @@ internal static class ScratchSlots
     public const int FftPower = 3;
     public const int ThermocoupleEmf = 4;
     public const int Deviations = 5;
+    public const int SectionPreviousReal = 6;
+    public const int SectionPreviousImaginary = 7;
+    public const int SectionSumImaginary = 8;
+    public const int Autocorrelation = 9;
 
     /// <summary>Number of slots.</summary>
-    public const int Count = 6;
+    public const int Count = 10;
 }
