@@ -56,6 +56,24 @@ public sealed class CsvOutput(TextWriter output) : TabularOutput
 
     public override void Empty() => Separator();
 
+    /// <summary>
+    /// A writer for the same columns whose rows stay in its own buffer until <see cref="Append(CsvOutput)"/> moves
+    /// them here: rows can be formatted on several threads, one part each, and written in order.
+    /// </summary>
+    public CsvOutput Part() => new(TextWriter.Null) { _columns = _columns };
+
+    /// <summary>Appends the complete rows of <paramref name="part"/> (see <see cref="Part"/>) and empties it.</summary>
+    public void Append(CsvOutput part)
+    {
+        ArgumentNullException.ThrowIfNull(part);
+        if (part._cell != 0)
+        {
+            throw new InvalidOperationException("a part ends inside a row");
+        }
+        Append(part._text.AsSpan(0, part._length));
+        part._length = 0;
+    }
+
     public override void EndRow()
     {
         if (_cell != _columns)

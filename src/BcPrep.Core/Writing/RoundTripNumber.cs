@@ -257,24 +257,62 @@ public static class RoundTripNumber
     /// <summary>Writes the decimal digits of <paramref name="v"/> right-aligned into the 20-character buffer; returns how many.</summary>
     private static int WriteDigits(ulong v, Span<char> text)
     {
-        var pairs = TwoDigits;
+        // At most 17 digits: the low eight in 32-bit arithmetic, then the rest (cheaper than 64-bit divisions).
         var i = 20;
-        while (v >= 100)
+        if (v >= 100_000_000)
         {
-            var r = (int)(v % 100);
-            v /= 100;
+            var high = v / 100_000_000;
+            WriteEight((uint)(v - (high * 100_000_000)), text[(i - 8)..i]);
+            i -= 8;
+            v = high;
+            if (v >= 100_000_000)
+            {
+                high = v / 100_000_000;
+                WriteEight((uint)(v - (high * 100_000_000)), text[(i - 8)..i]);
+                i -= 8;
+                v = high;
+            }
+        }
+        var pairs = TwoDigits;
+        var w = (uint)v;
+        while (w >= 100)
+        {
+            var q = w / 100;
+            var r = (int)(w - (q * 100));
+            w = q;
             text[--i] = (char)pairs[(2 * r) + 1];
             text[--i] = (char)pairs[2 * r];
         }
-        if (v >= 10)
+        if (w >= 10)
         {
-            text[--i] = (char)pairs[(2 * (int)v) + 1];
-            text[--i] = (char)pairs[2 * (int)v];
+            text[--i] = (char)pairs[(2 * (int)w) + 1];
+            text[--i] = (char)pairs[2 * (int)w];
         }
         else
         {
-            text[--i] = (char)('0' + (int)v);
+            text[--i] = (char)('0' + (int)w);
         }
         return 20 - i;
+    }
+
+    /// <summary>Exactly eight digits of <paramref name="v"/> (&lt; 10^8), leading zeros included.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void WriteEight(uint v, Span<char> eight)
+    {
+        var pairs = TwoDigits;
+        var high = v / 10_000;
+        var low = v - (high * 10_000);
+        var a = (int)(high / 100);
+        var b = (int)(high - ((uint)a * 100));
+        var c = (int)(low / 100);
+        var d = (int)(low - ((uint)c * 100));
+        eight[0] = (char)pairs[2 * a];
+        eight[1] = (char)pairs[(2 * a) + 1];
+        eight[2] = (char)pairs[2 * b];
+        eight[3] = (char)pairs[(2 * b) + 1];
+        eight[4] = (char)pairs[2 * c];
+        eight[5] = (char)pairs[(2 * c) + 1];
+        eight[6] = (char)pairs[2 * d];
+        eight[7] = (char)pairs[(2 * d) + 1];
     }
 }
