@@ -9,16 +9,20 @@ internal static class ScratchSlots
     public const int FftPower = 3;
     public const int ThermocoupleEmf = 4;
     public const int Deviations = 5;
+    public const int SectionPreviousReal = 6;
+    public const int SectionPreviousImaginary = 7;
+    public const int SectionSumImaginary = 8;
+    public const int Autocorrelation = 9;
 
     /// <summary>A window's bridged, finite sample times (window statistics).</summary>
-    public const int WindowTimes = 6;
+    public const int WindowTimes = 10;
 
     /// <summary>A window's bridged, finite sample values (window statistics).</summary>
-    public const int WindowValues = 7;
+    public const int WindowValues = 11;
 
     /// <summary>A window's de-spiked samples, rented at their exact length (<see cref="ThreadScratch.RentExact"/>).</summary>
-    public const int CleanSamples = 8;
+    public const int CleanSamples = 12;
 
     /// <summary>Number of slots.</summary>
-    public const int Count = 9;
+    public const int Count = 13;
 }

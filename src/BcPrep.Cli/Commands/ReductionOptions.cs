@@ -55,12 +55,18 @@ public sealed class ReductionOptions
     /// <summary>The test-matrix file, when given.</summary>
     public string? MatrixPath(ParseResult parse) => parse.GetValue(Matrix);
 
-    /// <summary>The reduction's options as chosen on the command line; reads and checks the test matrix against the rig.</summary>
+    /// <summary>
+    /// The reduction's options as chosen on the command line; reads and checks the test matrix against the rig. The
+    /// rows kept back during the read go to the system's temporary folder.
+    /// </summary>
     public ProcessOptions Read(ParseResult parse, RigDescription rig) =>
         new(MonteCarlo: MonteCarlo is not null && parse.GetValue(MonteCarlo), Seed: Seed is null ? 1 : parse.GetValue(Seed))
         {
             AllowExpired = Allowed(parse),
             Matrix = MatrixPath(parse) is { } path ? LabOptions.LoadMatrix(path, rig) : null,
+            // The rows of the plateau under way go to the system's temporary folder (TMPDIR), not to memory: a long
+            // plateau at a high rate is then gathered during the only read, in flat memory (README "Large days").
+            KeptRowsFolder = Path.GetTempPath(),
         };
 
     /// <summary>

@@ -1,3 +1,5 @@
+using System.Numerics;
+using System.Runtime.CompilerServices;
 using static System.FormattableString;
 
 namespace BcPrep.Calibration;
@@ -65,6 +67,50 @@ public static class CallendarVanDusen
         }
 
         return t + Its90Thermocouple.KelvinOffset;
+    }
+
+    /// <summary>
+    /// <see cref="TemperatureK"/> for a block of resistances, with the same operations in the same order, so each result
+    /// equals the single-value one bit for bit. Runs of samples at or above 0 °C (the closed-form root) go a vector at a
+    /// time; a vector with a sample below 0 °C (Newton on the quartic), NaN or out of range takes the single-value path
+    /// sample by sample. <paramref name="temperaturesK"/> may be <paramref name="resistanceOhm"/> itself.
+    /// </summary>
+    /// <exception cref="BcPrepDataException">A resistance outside <see cref="ResistanceRangeOhm"/>, as for the single value.</exception>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public static void TemperaturesK(RtdNominal nominal, ReadOnlySpan<double> resistanceOhm, Span<double> temperaturesK)
+    {
+        double r0 = CheckedR0(nominal);
+        var width = Vector<double>.Count;
+        var i = 0;
+        if (Vector.IsHardwareAccelerated)
+        {
+            var r0v = new Vector<double>(r0);
+            var maxRatio = new Vector<double>(Ratio(nominal, MaxC));
+            var a = new Vector<double>(nominal.A);
+            var aa = new Vector<double>(nominal.A * nominal.A);
+            var fourB = new Vector<double>(4.0 * nominal.B);
+            for (; i <= resistanceOhm.Length - width; i += width)
+            {
+                var ratio = new Vector<double>(resistanceOhm.Slice(i, width)) / r0v;
+                // NaN fails both comparisons, so NaN lanes take the single-value path too.
+                if (!Vector.GreaterThanOrEqualAll(ratio, Vector<double>.One) || !Vector.LessThanOrEqualAll(ratio, maxRatio))
+                {
+                    for (var j = i; j < i + width; j++)
+                    {
+                        temperaturesK[j] = TemperatureK(nominal, resistanceOhm[j]);
+                    }
+                    continue;
+                }
+                // QuadraticRootC: 2x / (A + √(A·A + 4B·x)) with x = ratio − 1, then + 273.15.
+                var x = ratio - Vector<double>.One;
+                var t = (new Vector<double>(2.0) * x) / (a + Vector.SquareRoot(aa + (fourB * x)));
+                (t + new Vector<double>(Its90Thermocouple.KelvinOffset)).CopyTo(temperaturesK.Slice(i, width));
+            }
+        }
+        for (; i < resistanceOhm.Length; i++)
+        {
+            temperaturesK[i] = TemperatureK(nominal, resistanceOhm[i]);
+        }
     }
 
     private static double QuadraticRootC(RtdNominal k, double ratio)

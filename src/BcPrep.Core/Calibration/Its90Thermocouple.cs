@@ -113,32 +113,68 @@ public static class Its90Thermocouple
         var i = 0;
         if (Vector.IsHardwareAccelerated)
         {
-            for (; i <= emfV.Length - width; i += width)
+            // Two vectors on one piece at a time: their Horner chains are independent, so one runs in the other's
+            // latency. Each lane still sees the single-value operations in their order.
+            var scale = new Vector<double>(MillivoltsPerVolt);
+            var kelvin = new Vector<double>(KelvinOffset);
+            for (; i <= emfV.Length - (2 * width); i += 2 * width)
             {
-                var emf = new Vector<double>(emfV.Slice(i, width));
-                var piece = SharedInversePiece(table, emf, limits);
-                if (piece is null)
+                var emf0 = new Vector<double>(emfV.Slice(i, width));
+                var emf1 = new Vector<double>(emfV.Slice(i + width, width));
+                var piece0 = SharedInversePiece(table, emf0, limits);
+                var piece1 = SharedInversePiece(table, emf1, limits);
+                if (piece0 is null || !ReferenceEquals(piece0, piece1))
                 {
-                    for (var j = i; j < i + width; j++)
-                    {
-                        temperaturesK[j] = TemperatureK(type, emfV[j]);
-                    }
+                    OneVector(type, piece0, emfV, temperaturesK, i);
+                    OneVector(type, piece1, emfV, temperaturesK, i + width);
                     continue;
                 }
-                var e = emf * new Vector<double>(MillivoltsPerVolt);
-                var c = piece.Coefficients;
-                var sum = Vector<double>.Zero;
+                var e0 = emf0 * scale;
+                var e1 = emf1 * scale;
+                var c = piece0.Coefficients;
+                var sum0 = Vector<double>.Zero;
+                var sum1 = Vector<double>.Zero;
                 for (var k = c.Length - 1; k >= 0; k--)
                 {
-                    sum = (sum * e) + new Vector<double>(c[k]);
+                    var ck = new Vector<double>(c[k]);
+                    sum0 = (sum0 * e0) + ck;
+                    sum1 = (sum1 * e1) + ck;
                 }
-                (sum + new Vector<double>(KelvinOffset)).CopyTo(temperaturesK.Slice(i, width));
+                (sum0 + kelvin).CopyTo(temperaturesK.Slice(i, width));
+                (sum1 + kelvin).CopyTo(temperaturesK.Slice(i + width, width));
+            }
+            for (; i <= emfV.Length - width; i += width)
+            {
+                OneVector(type, SharedInversePiece(table, new Vector<double>(emfV.Slice(i, width)), limits), emfV, temperaturesK, i);
             }
         }
         for (; i < emfV.Length; i++)
         {
             temperaturesK[i] = TemperatureK(type, emfV[i]);
         }
+    }
+
+    /// <summary>One vector of <see cref="TemperaturesK"/>: on <paramref name="piece"/>, or sample by sample when it is null.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void OneVector(ThermocoupleType type, InversePiece? piece, ReadOnlySpan<double> emfV, Span<double> temperaturesK, int i)
+    {
+        var width = Vector<double>.Count;
+        if (piece is null)
+        {
+            for (var j = i; j < i + width; j++)
+            {
+                temperaturesK[j] = TemperatureK(type, emfV[j]);
+            }
+            return;
+        }
+        var e = new Vector<double>(emfV.Slice(i, width)) * new Vector<double>(MillivoltsPerVolt);
+        var c = piece.Coefficients;
+        var sum = Vector<double>.Zero;
+        for (var k = c.Length - 1; k >= 0; k--)
+        {
+            sum = (sum * e) + new Vector<double>(c[k]);
+        }
+        (sum + new Vector<double>(KelvinOffset)).CopyTo(temperaturesK.Slice(i, width));
     }
 
     /// <summary>The inverse piece every lane falls on, or null when lanes differ, are NaN or are out of range.</summary>

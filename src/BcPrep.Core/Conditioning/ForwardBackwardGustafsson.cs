@@ -22,6 +22,29 @@ public static class ForwardBackwardGustafsson
     /// <exception cref="BcPrepDataException">Invalid coefficients, a NaN/∞ sample, or n ≤ 2m (too short to pin 2m end states).</exception>
     public static double[] Apply(IReadOnlyList<double> b, IReadOnlyList<double> a, ReadOnlySpan<double> x)
     {
+        var (y, _, _) = Solve(b, a, x);
+        return y;
+    }
+
+    /// <summary>
+    /// The initial states that <see cref="Apply"/> chooses: the forward pass's transposed-direct-form-II state before
+    /// the first sample and the backward pass's before the last. A long record's forward state depends only on its
+    /// first samples and its backward state on its last ones (each end's influence on the other decays like the
+    /// slowest pole), so a stream can take them from a head and a tail and filter in between with carried states.
+    /// </summary>
+    /// <exception cref="BcPrepDataException">As <see cref="Apply"/>; also for a filter of order 0 (no state).</exception>
+    public static (double[] Forward, double[] Backward) InitialStates(IReadOnlyList<double> b, IReadOnlyList<double> a, ReadOnlySpan<double> x)
+    {
+        var (_, forward, backward) = Solve(b, a, x);
+        if (forward.Length == 0)
+        {
+            throw new BcPrepDataException("A filter of order 0 has no initial state.");
+        }
+        return (forward, backward);
+    }
+
+    private static (double[] Y, double[] Forward, double[] Backward) Solve(IReadOnlyList<double> b, IReadOnlyList<double> a, ReadOnlySpan<double> x)
+    {
         ArgumentNullException.ThrowIfNull(b);
         ArgumentNullException.ThrowIfNull(a);
         if (b.Count == 0 || a.Count == 0 || a[0] == 0.0)
@@ -46,7 +69,7 @@ public static class ForwardBackwardGustafsson
         }
         if (m == 0)
         {
-            return x.ToArray().Select(v => bn[0] * bn[0] * v).ToArray();
+            return (x.ToArray().Select(v => bn[0] * bn[0] * v).ToArray(), [], []);
         }
         if (n <= 2 * m)
         {
@@ -99,7 +122,8 @@ public static class ForwardBackwardGustafsson
             }
             y[i] = yFb[i] + w;
         }
-        return y;
+        var states = ic.ToArray();
+        return (y, states[..m], states[m..]);
     }
 
     /// <summary>Row i, column k of the zero-input response matrix O: column 0 delayed by k.</summary>

@@ -31,12 +31,19 @@ public static class HampelFilter
     public static HampelResult Apply(ReadOnlySpan<double> x, int halfWindow = 3, double sigmaThreshold = 3.0, double scaleFloor = 0.0)
     {
         Validate(halfWindow, sigmaThreshold, scaleFloor);
-        if (halfWindow == SevenPointWindow.HalfWindow && x.Length > 2 * halfWindow && AllFinite(x))
+        bool finite = x.Length > 2 * halfWindow && AllFinite(x);
+        if (halfWindow == SevenPointWindow.HalfWindow && finite)
         {
             return ApplySevenPoint(x, sigmaThreshold, scaleFloor);
         }
 
-        if (Vector.IsHardwareAccelerated && x.Length > 2 * halfWindow && AllFinite(x))
+        if (halfWindow == TwentyOnePointWindow.HalfWindow && finite && TwentyOnePointWindow.IsAccelerated
+            && x.Length - (2 * halfWindow) >= TwentyOnePointWindow.Lanes)
+        {
+            return ApplyTwentyOnePoint(x, sigmaThreshold, scaleFloor);
+        }
+
+        if (Vector.IsHardwareAccelerated && finite)
         {
             return ApplyVectorWindow(x, halfWindow, sigmaThreshold, scaleFloor);
         }
@@ -122,6 +129,38 @@ public static class HampelFilter
         }
 
         return new HampelResult(output, replaced);
+    }
+
+    /// <summary>
+    /// The usual window (k = 10) on finite samples: the full windows are decided four at a time by
+    /// <see cref="TwentyOnePointWindow"/> (median and MAD from a sorting network, no branch on the data), the truncated
+    /// ones at the two ends by the general sorted window. Same values as the general path.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static HampelResult ApplyTwentyOnePoint(ReadOnlySpan<double> x, double sigmaThreshold, double scaleFloor)
+    {
+        const int k = TwentyOnePointWindow.HalfWindow;
+        int n = x.Length;
+        var output = x.ToArray();
+        var replaced = new List<int>();
+        TruncatedEnd(x, 0, k, k, sigmaThreshold, scaleFloor, output, replaced);
+        TwentyOnePointWindow.Apply(x, k, n - k, sigmaThreshold, scaleFloor, output, replaced);
+        TruncatedEnd(x, n - k, n, k, sigmaThreshold, scaleFloor, output, replaced);
+        return new HampelResult(output, replaced);
+    }
+
+    /// <summary>The rule for the centres <paramref name="from"/> … <paramref name="to"/> − 1 by the general sorted window.</summary>
+    private static void TruncatedEnd(ReadOnlySpan<double> x, int from, int to, int k, double sigmaThreshold, double scaleFloor, double[] output, List<int> replaced)
+    {
+        for (int i = from; i < to; i++)
+        {
+            var (median, mad) = TruncatedWindow(x, i, k);
+            if (IsSpike(x[i], median, mad, sigmaThreshold, scaleFloor))
+            {
+                output[i] = median;
+                replaced.Add(i);
+            }
+        }
     }
 
     /// <summary>

@@ -4,11 +4,14 @@ namespace BcPrep.Conditioning;
 
 /// <summary>
 /// The conditioning chain of <see cref="ChannelConditioner.Condition"/> applied to a channel of any length with
-/// bounded memory. Samples are conditioned in chunks of <c>coreLength</c> samples, each with
-/// <see cref="Overlap"/> samples of context on both sides that are conditioned but not emitted. The overlap covers
-/// the longest bridged gap, the Hampel window and the filters' settling to a 1e-14 residual, so chunk seams do
-/// not show: the output equals the whole-record result to rounding (tested to 1e-9). Memory: about
-/// coreLength + 2·overlap samples plus the output not yet taken.
+/// bounded memory, in two parts. Gap bridging and Hampel look only a few samples (and at most the longest bridged
+/// gap) away: they run on chunks of <c>coreLength</c> samples, each with <see cref="LocalOverlap"/> samples of context
+/// on both sides that are conditioned but not emitted. Notch and low-pass then run on the stream of bridged,
+/// de-spiked samples (<see cref="StreamedZeroPhase"/>): each section's forward pass carries its state across
+/// chunks, and its backward pass runs one settling length (to <see cref="SeamResidual"/>) beyond what it emits, so
+/// a sample is filtered about once forward and once backward instead of re-filtering overlaps of twice the
+/// settling on both sides. The output equals the whole-record result to rounding (tested to 1e-11 of the signal
+/// level). Memory: a chunk plus its context, and per section a core plus its overlap.
 /// </summary>
 public sealed class StreamingConditioner
 {
@@ -17,17 +20,18 @@ public sealed class StreamingConditioner
 
     private readonly ConditioningSettings _settings;
     private readonly int _coreOverlaps;
+    private readonly int _filterCore;
     private int _coreLength;
     private readonly List<double> _t = [];
     private readonly List<double> _x = [];
     private int _history;
+    private StreamedZeroPhase? _filters;
 
     /// <param name="settings">Conditioning settings (validated when the first chunk is conditioned).</param>
-    /// <param name="coreLength">Samples emitted per chunk (≥ 16; raised to the overlap when that is longer).</param>
+    /// <param name="coreLength">Samples emitted per chunk of the gap bridging and Hampel, and per backward stretch of a filter section (≥ 16).</param>
     /// <param name="coreOverlaps">
-    /// The chunk's core is also at least this many overlaps long (≥ 1). Every chunk filters its overlap on both sides
-    /// again, so a core of k overlaps costs (k + 2) / k times the samples it emits: 3 for k = 1, 1.5 for k = 4.
-    /// Memory grows with k; the output does not change beyond rounding (the seams move).
+    /// A chunk's core is also at least this many of its overlaps long (≥ 1), so that repeated context costs at most
+    /// 1/k of the samples emitted. Memory grows with k; the output does not change beyond rounding (the seams move).
     /// </param>
     public StreamingConditioner(ConditioningSettings settings, int coreLength = 65536, int coreOverlaps = 1)
     {
@@ -39,11 +43,18 @@ public sealed class StreamingConditioner
         ArgumentOutOfRangeException.ThrowIfLessThan(coreOverlaps, 1);
         _settings = settings;
         _coreLength = coreLength;
+        _filterCore = coreLength;
         _coreOverlaps = coreOverlaps;
     }
 
-    /// <summary>Context samples on each side of a chunk; 0 until the sample interval is known (first chunk).</summary>
-    public int Overlap { get; private set; }
+    /// <summary>Context samples on each side of a gap bridging and Hampel chunk; 0 until the sample interval is known (first chunk).</summary>
+    public int LocalOverlap { get; private set; }
+
+    /// <summary>
+    /// The longest context the chain looks at beyond what it emits: the chunks' context or the filters' backward
+    /// overlap, whichever is longer; 0 until the first chunk.
+    /// </summary>
+    public int Overlap => Math.Max(LocalOverlap, _filters?.Overlap ?? 0);
 
     /// <summary>Conditioned times (s) not yet taken by the caller.</summary>
     public List<double> OutputTimesS { get; } = [];
@@ -69,34 +80,34 @@ public sealed class StreamingConditioner
         }
         _t.AddRange(timesS);
         _x.AddRange(values);
-        if (Overlap == 0 && _t.Count >= 64)
+        if (LocalOverlap == 0 && _t.Count >= 64)
         {
-            Overlap = OverlapFor(_t);
-            // The kept context must lie inside what was emitted, and a long core amortises the repeated overlaps.
-            _coreLength = Math.Max(_coreLength, _coreOverlaps * Overlap);
+            LocalOverlap = LocalOverlapFor(_t);
+            // The kept context must lie inside what was emitted, and a long core amortises the repeated context.
+            _coreLength = Math.Max(_coreLength, _coreOverlaps * LocalOverlap);
         }
-        while (Overlap > 0 && _t.Count - _history >= _coreLength + Overlap)
+        while (LocalOverlap > 0 && _t.Count - _history >= _coreLength + LocalOverlap)
         {
-            ConditionChunk(_history + _coreLength + Overlap, _t[_history + _coreLength]);
+            ConditionChunk(_history + _coreLength + LocalOverlap, _t[_history + _coreLength]);
         }
     }
 
     /// <summary>Conditions what is left; call once after the last <see cref="Push"/>.</summary>
     public void Complete()
     {
-        if (_t.Count - _history <= 0)
+        if (_t.Count - _history > 0)
         {
-            return;
+            if (_filters is null && _t.Count < 2)
+            {
+                OutputTimesS.AddRange(_t);
+                OutputValues.AddRange(_x);
+            }
+            else
+            {
+                ConditionChunk(_t.Count, double.PositiveInfinity);
+            }
         }
-        if (_t.Count < 2)
-        {
-            OutputTimesS.AddRange(_t);
-            OutputValues.AddRange(_x);
-            _t.Clear();
-            _x.Clear();
-            return;
-        }
-        ConditionChunk(_t.Count, double.PositiveInfinity);
+        _filters?.Complete();
         _t.Clear();
         _x.Clear();
         _history = 0;
@@ -104,34 +115,62 @@ public sealed class StreamingConditioner
 
     private void ConditionChunk(int end, double emitBeforeS)
     {
-        var times = CollectionsMarshal.AsSpan(_t)[..end].ToArray();
-        var result = ChannelConditioner.Condition(times, CollectionsMarshal.AsSpan(_x)[..end].ToArray(), _settings);
-        NotchFrequenciesHz = result.Report.NotchFrequenciesHz;
+        var gaps = GapBridging.Bridge(CollectionsMarshal.AsSpan(_t)[..end], CollectionsMarshal.AsSpan(_x)[..end], _settings.MaxBridgeS);
+        var hampel = HampelFilter.Apply(gaps.Values, _settings.HampelHalfWindow, _settings.HampelSigmas, _settings.HampelScaleFloor);
+        _filters ??= Filters(gaps.Report.NominalIntervalS);
         var emitFromS = _history > 0 ? _t[_history] : double.NegativeInfinity;
-        var spikes = new HashSet<double>(result.Report.SpikeTimesS);
-        for (var i = 0; i < result.TimesS.Length; i++)
+        var times = gaps.TimesS;
+        var from = 0;
+        while (from < times.Length && times[from] < emitFromS)
         {
-            var t = result.TimesS[i];
-            if (t >= emitFromS && t < emitBeforeS)
-            {
-                OutputTimesS.Add(t);
-                OutputValues.Add(result.Values[i]);
-                BridgedSamples += result.Interpolated[i] ? 1 : 0;
-                SpikesReplaced += spikes.Contains(t) ? 1 : 0;
-            }
+            from++;
         }
+        var to = from;
+        while (to < times.Length && times[to] < emitBeforeS)
+        {
+            to++;
+        }
+        for (var i = from; i < to; i++)
+        {
+            BridgedSamples += gaps.Interpolated[i] ? 1 : 0;
+        }
+        foreach (var i in hampel.ReplacedIndices)
+        {
+            SpikesReplaced += i >= from && i < to ? 1 : 0;
+        }
+        _filters.Accept(times.AsSpan(from, to - from), hampel.Values.AsSpan(from, to - from));
         if (double.IsPositiveInfinity(emitBeforeS))
         {
             return;
         }
-        // Keep `Overlap` already emitted samples as the left context of the next chunk.
-        var drop = _history + _coreLength - Overlap;
+        // Keep `LocalOverlap` already emitted samples as the left context of the next chunk.
+        var drop = _history + _coreLength - LocalOverlap;
         _t.RemoveRange(0, drop);
         _x.RemoveRange(0, drop);
-        _history = Overlap;
+        _history = LocalOverlap;
     }
 
-    private int OverlapFor(List<double> times)
+    /// <summary>The notch and low-pass sections at the chunk's sample rate, as <see cref="ChannelConditioner.Condition"/> designs them.</summary>
+    private StreamedZeroPhase Filters(double nominalIntervalS)
+    {
+        var fs = 1.0 / nominalIntervalS;
+        var sections = new List<SecondOrderSection>();
+        var notches = new List<double>();
+        if (_settings.MainsHz is double mains && mains < fs / 2.0)
+        {
+            var notch = MainsNotch.WithHarmonics(mains, _settings.NotchQ, _settings.NotchHarmonics, fs);
+            sections.AddRange(notch.Sections);
+            notches.AddRange(Enumerable.Range(1, notch.Sections.Count).Select(k => k * mains));
+        }
+        if (_settings.LowPassCutoffHz is double cutoff)
+        {
+            sections.AddRange(ButterworthDesign.LowPass(_settings.LowPassOrder, cutoff, fs).Sections);
+        }
+        NotchFrequenciesHz = notches;
+        return new StreamedZeroPhase(sections, nominalIntervalS, _filterCore, _coreOverlaps, OutputTimesS, OutputValues);
+    }
+
+    private int LocalOverlapFor(List<double> times)
     {
         var steps = new double[times.Count - 1];
         for (var i = 1; i < times.Count; i++)
@@ -140,20 +179,7 @@ public sealed class StreamingConditioner
         }
         Array.Sort(steps);
         var nominal = steps[steps.Length / 2];
-        var fs = 1.0 / nominal;
-        var sections = new List<SecondOrderSection>();
-        if (_settings.MainsHz is double mains && mains < fs / 2.0)
-        {
-            sections.AddRange(MainsNotch.WithHarmonics(mains, _settings.NotchQ, _settings.NotchHarmonics, fs).Sections);
-        }
-        if (_settings.LowPassCutoffHz is double cutoff)
-        {
-            sections.AddRange(ButterworthDesign.LowPass(_settings.LowPassOrder, cutoff, fs).Sections);
-        }
-        // Twice the settling length: each section's edge states (Gustafsson) start a transient that the sections
-        // after it carry on, so one decay length of the slowest pole is not quite enough for the whole cascade.
-        var settle = sections.Count > 0 ? 2 * ZeroPhaseFilter.SettlingPadLength(sections, SeamResidual) : 0;
         var bridge = (int)Math.Ceiling(_settings.MaxBridgeS / nominal);
-        return settle + (2 * bridge) + (4 * _settings.HampelHalfWindow) + 16;
+        return (2 * bridge) + (4 * _settings.HampelHalfWindow) + 16;
     }
 }

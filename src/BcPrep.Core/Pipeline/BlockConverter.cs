@@ -8,19 +8,21 @@ namespace BcPrep.Pipeline;
 /// <summary>
 /// Converts a block of one channel's logged numbers to SI. Sensors whose conversion is a chain of straight lines
 /// (linear sensors, quantities logged directly in a unit) are converted with vector arithmetic, thermocouples through
-/// the block form of the ITS-90 inverse; both keep the per-sample function's order of operations, so the results are
-/// identical to it. The other sensors call it sample by sample.
+/// the block form of the ITS-90 inverse, RTDs through the block form of the IEC 60751 inverse; all keep the per-sample
+/// function's order of operations, so the results are identical to it. The other sensors call it sample by sample.
 /// </summary>
 public sealed class BlockConverter
 {
     private readonly LinearChain? _linear;
     private readonly ThermocoupleChain? _thermocouple;
+    private readonly RtdChain? _rtd;
 
-    private BlockConverter(SampleConverter perSample, LinearChain? linear, ThermocoupleChain? thermocouple)
+    private BlockConverter(SampleConverter perSample, LinearChain? linear, ThermocoupleChain? thermocouple, RtdChain? rtd)
     {
         PerSample = perSample;
         _linear = linear;
         _thermocouple = thermocouple;
+        _rtd = rtd;
     }
 
     /// <summary>The per-sample conversion, also used to find the sample behind a failed block.</summary>
@@ -36,7 +38,8 @@ public sealed class BlockConverter
             _ => null,
         };
         var thermocouple = channel.Sensor is ThermocoupleSensor tc ? new ThermocoupleChain(tc.Type, tc.RawToSi) : null;
-        return new BlockConverter(ChannelConversion.For(channel), linear, thermocouple);
+        var rtd = channel.Sensor is RtdSensor r ? new RtdChain(r.Nominal, r.RawToSi) : null;
+        return new BlockConverter(ChannelConversion.For(channel), linear, thermocouple, rtd);
     }
 
     /// <summary>
@@ -55,6 +58,11 @@ public sealed class BlockConverter
         if (_thermocouple is { } tc)
         {
             tc.Apply(raw, referenceEmfV, fixedReferenceEmfV, si);
+            return;
+        }
+        if (_rtd is { } rtd)
+        {
+            rtd.Apply(raw, si);
             return;
         }
         var convert = PerSample;
@@ -106,11 +114,40 @@ public sealed class BlockConverter
         public void Apply(ReadOnlySpan<double> raw, ReadOnlySpan<double> referenceEmfV, double fixedReferenceEmfV, Span<double> si)
         {
             var emf = ThreadScratch.Rent(ScratchSlots.ThermocoupleEmf, raw.Length).AsSpan(0, raw.Length);
-            for (var i = 0; i < raw.Length; i++)
+            var i = 0;
+            if (Vector.IsHardwareAccelerated)
+            {
+                // (s·x + h) + E_ref, the per-sample order; NaN stays NaN for the inverse to pass through.
+                var width = Vector<double>.Count;
+                var scale = new Vector<double>(RawToSi.Scale);
+                var shift = new Vector<double>(RawToSi.Shift);
+                var fixedReference = new Vector<double>(fixedReferenceEmfV);
+                for (; i <= raw.Length - width; i += width)
+                {
+                    var reference = referenceEmfV.IsEmpty ? fixedReference : new Vector<double>(referenceEmfV.Slice(i, width));
+                    ((scale * new Vector<double>(raw.Slice(i, width))) + shift + reference).CopyTo(emf.Slice(i, width));
+                }
+            }
+            for (; i < raw.Length; i++)
             {
                 emf[i] = RawToSi.Apply(raw[i]) + (referenceEmfV.IsEmpty ? fixedReferenceEmfV : referenceEmfV[i]);
             }
             Its90Thermocouple.TemperaturesK(Type, emf, si[..raw.Length]);
+        }
+    }
+
+    /// <summary>
+    /// T = CVD⁻¹(s·x + h): the logged signal to ohms, then the IEC 60751 inverse, as <see cref="ChannelConversion.For"/>
+    /// does it, a block at a time (the ohms are written into the output, which the inverse then overwrites).
+    /// </summary>
+    private sealed record RtdChain(RtdNominal Nominal, Affine RawToSi)
+    {
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+        public void Apply(ReadOnlySpan<double> raw, Span<double> si)
+        {
+            var ohm = si[..raw.Length];
+            new LinearChain(1.0, 0.0, RawToSi, Direct: true).Apply(raw, ohm);
+            CallendarVanDusen.TemperaturesK(Nominal, ohm, ohm);
         }
     }
 }

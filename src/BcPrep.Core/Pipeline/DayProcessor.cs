@@ -39,8 +39,10 @@ public static class DayProcessor
         var index = new ScanIndex();
         var liveBook = new WindowStatsBook();
         var detects = WindowFinder.IsEnabled(rig) || pinned.Count == 0;
-        var live = ReadsLive(rig, plan, detects, options)
-            ? new LiveDetection(rig, plan.Start, feed.BlockSink, blocks, pinned, (w, c, t, v) => Collect(rig, plan.Start, liveBook, w, c, t, v), options.KeptRowsS)
+        // The rows kept back for the single read go to temporary files when the caller names a folder for them.
+        using var live = ReadsLive(rig, plan, detects, options)
+            ? new LiveDetection(rig, plan.Start, feed.BlockSink, blocks, pinned, (w, c) => Collect(rig, plan.Start, liveBook, w, c), options.KeptRowsS,
+                options.KeptRowsFolder is { } folder ? new DiskRowBlocks(folder) : null)
             : null;
         DayScan.Run(rig, plan, converters, [firstPass, extent], (IBlockSink?)live ?? feed.BlockSink, options.Progress, index);
         feed.Complete();
@@ -93,7 +95,7 @@ public static class DayProcessor
         IReadOnlyList<PointResult> points = InOrder(reduced, p => EvaluatePoint(rig, p.Window, p.Origin, stats[p.Window.Id], tareStats, endTares, options));
         MatrixReport? matrix;
         (points, matrix) = NameByMatrix(options, points);
-        return new DayResult(rig, plan.Start, points, series, detection, dayWarnings) { FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = secondRead.Count };
+        return new DayResult(rig, plan.Start, points, series, detection, dayWarnings) { FailedPoints = failed, Calibration = calibration, Matrix = matrix, SecondPassSeeks = index.Seeks, WindowsReadAgain = secondRead.Count, PeakWindowChannelsLoaded = live?.Loaded.Peak ?? 0 };
     }
 
     /// <summary>The day's warnings about detection: none accepted, or pinned windows that detection does not support.</summary>
@@ -188,6 +190,17 @@ public static class DayProcessor
         }
         return result;
     }
+
+    /// <summary>
+    /// A detected window's channel gathered from the kept rows: its samples are loaded on the statistics thread when
+    /// its statistics start and let go when they are done. The same statistics as a window read again (below).
+    /// </summary>
+    internal static void Collect(RigDescription rig, DayStart dayStart, WindowStatsBook book, TimeWindow window, GatheredChannel channel) =>
+        book.Add(window, channel.Name, named => channel.Reduce((times, values) =>
+        {
+            RequireSamples(named, channel.Name, times, dayStart, null);
+            return FaultPolicy.Evaluate(rig, channel.Name, named, times, values, dayStart);
+        }));
 
     internal static void Collect(RigDescription rig, DayStart dayStart, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,
         SourceLocation? pinnedAt = null)

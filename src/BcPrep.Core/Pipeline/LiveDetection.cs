@@ -17,11 +17,15 @@ namespace BcPrep.Pipeline;
 /// window overlaps is not gathered (the pinned window replaces it). Rows are kept from the earliest moment a window
 /// not yet final may start (the start of the plateau under way, or of a window the next plateau may still extend);
 /// a window whose rows were no longer kept is left to the next source, a seeking second read. That happens when the
-/// rows since that moment exceed <see cref="RecentRows.MaxKeptValues"/> (a long plateau at a high rate) or
-/// <see cref="ProcessOptions.KeptRowsS"/>.
+/// rows since that moment exceed what the store keeps (<see cref="IRowBlockStore.MaxKeptValues"/>: 96 MB in memory,
+/// 2 GB in temporary files; a long plateau at a high rate) or <see cref="ProcessOptions.KeptRowsS"/>.
+/// </para>
+/// <para>
+/// A gathered window is handed over one channel at a time (<see cref="GatheredChannel"/>): each channel's samples are
+/// loaded from the store when its statistics start, so the whole window is never in memory at once.
 /// </para>
 /// </summary>
-internal sealed class LiveDetection : IBlockSink, IWindowSource
+internal sealed class LiveDetection : IBlockSink, IWindowSource, IDisposable
 {
     private readonly IBlockSink _detectionFeed;
     private readonly BlockMeanSink _blocks;
@@ -30,7 +34,7 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource
     private readonly IReadOnlyList<string> _channels;
     private readonly PlateauScan _scan;
     private readonly double[] _means;
-    private readonly Action<TimeWindow, string, double[], double[]> _onWindow;
+    private readonly Action<TimeWindow, GatheredChannel> _onWindow;
     private readonly RecentRows _rows;
     private readonly double _keptSpanS;
     private readonly HashSet<TimeWindow> _gathered = [];
@@ -43,10 +47,11 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource
     /// <param name="detectionFeed">The block sink the block means come from (directly or through conditioning).</param>
     /// <param name="blocks">The block means that sink fills.</param>
     /// <param name="pinned">Windows pinned in the rig file, which replace the detected windows whose stretch they overlap.</param>
-    /// <param name="onWindow">Receives (window interval, channel, times, values) of each gathered window and channel.</param>
+    /// <param name="onWindow">Receives (window interval, channel to load and reduce) of each gathered window and channel.</param>
     /// <param name="keptSpanS">At most how far back from the latest block rows are kept (s); null for no limit but the kept values' budget.</param>
+    /// <param name="store">Where the rows are kept (owned from here on); in memory when null.</param>
     public LiveDetection(RigDescription rig, DayStart dayStart, IBlockSink detectionFeed, BlockMeanSink blocks, IReadOnlyList<TimeWindow> pinned,
-        Action<TimeWindow, string, double[], double[]> onWindow, double? keptSpanS = null)
+        Action<TimeWindow, GatheredChannel> onWindow, double? keptSpanS = null, IRowBlockStore? store = null)
     {
         _detectionFeed = detectionFeed;
         _blocks = blocks;
@@ -58,7 +63,7 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource
         _means = new double[_channels.Count];
         _scan = new PlateauScan(channels, WindowFinder.Settings(rig.Steady), rig.Steady.BlockS);
         _keptSpanS = keptSpanS ?? double.PositiveInfinity;
-        _rows = new RecentRows();
+        _rows = new RecentRows(store);
     }
 
     public void AcceptBlock(IReadOnlyList<string> channels, double[] timeS, IReadOnlyList<double[]> valuesSi, int count)
@@ -84,11 +89,17 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource
         FeedBlocks(_blocks.Length);
         var detection = _scan.Finish();
         GatherFinal();
-        // The day's last windows are gathered: the kept rows (up to 96 MB) must not live on through the second read
-        // and the propagation that follow.
+        // The day's last windows are gathered: the kept rows (up to 96 MB in memory) must not live on through the
+        // second read and the propagation that follow; the gathered windows hold what they still have to load.
         _rows.Release();
         return detection;
     }
+
+    /// <summary>Window channels loaded from the kept rows and not yet reduced (now and at most).</summary>
+    public LoadedChannels Loaded => _rows.Loaded;
+
+    /// <summary>Lets go of the kept rows and their store, also when the read failed before <see cref="Finish"/>.</summary>
+    public void Dispose() => _rows.Release();
 
     /// <summary>True when <paramref name="window"/>'s interval was gathered from the kept rows; false when it must be read again.</summary>
     public bool TryGather(TimeWindow window) => _gathered.Contains(Interval(window.StartS, window.EndS));
@@ -136,7 +147,10 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource
         var interval = Interval(_dayStart.OnClock(window.Start).Value, _dayStart.OnClock(window.End).Value);
         if (!_gathered.Contains(interval) && _rows.Covers(interval))
         {
-            _rows.Gather(interval, (channel, times, values) => _onWindow(interval, channel, times, values));
+            foreach (var channel in _rows.Gather(interval).Channels)
+            {
+                _onWindow(interval, channel);
+            }
             _gathered.Add(interval);
         }
     }

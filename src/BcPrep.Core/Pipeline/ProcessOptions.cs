@@ -23,4 +23,12 @@ public sealed record ProcessOptions(
 
     /// <summary>How long (s) rows are kept back for the single pass; null for the span the steady settings need.</summary>
     internal double? KeptRowsS { get; init; }
+
+    /// <summary>
+    /// The folder for the temporary files that keep the rows of the plateau under way during the single read (8 bytes ×
+    /// (channels + 1) × rate × seconds; deleted as soon as no window needs them, and by the system if the run is
+    /// killed); the command line gives the system's temporary folder. Null keeps them in memory, at most 96 MB: a
+    /// longer plateau's window is then read a second time from the log. The results are the same either way.
+    /// </summary>
+    public string? KeptRowsFolder { get; init; }
 }

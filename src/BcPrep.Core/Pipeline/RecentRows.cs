@@ -1,31 +1,35 @@
 namespace BcPrep.Pipeline;
 
 /// <summary>
-/// Keeps copies of the latest calibrated row blocks of one logger, so that a window found after its rows have
-/// streamed past can still be gathered without reading the log again. Memory is what the kept span of time holds,
-/// at most <see cref="MaxKeptValues"/> values (the oldest blocks go first); blocks dropped are reused for the next rows.
+/// Keeps the latest calibrated row blocks of one logger, so that a window found after its rows have streamed past can
+/// still be gathered without reading the log again. The blocks go to a store (<see cref="IRowBlockStore"/>): memory,
+/// or temporary files when the caller names a folder for them. What is kept is bounded by the store's
+/// <see cref="IRowBlockStore.MaxKeptValues"/> (the oldest blocks go first), and by <see cref="DropBefore"/>.
 /// </summary>
 internal sealed class RecentRows
 {
-    /// <summary>
-    /// Values (times and samples) kept at most: 12 M doubles, 96 MB, e.g. 45 min of 13 channels at 200 Hz or 11 min
-    /// of 17 channels at 1 kHz. A window that starts before what is left is read again instead.
-    /// </summary>
-    public const long MaxKeptValues = 12_000_000;
+    /// <summary>Values kept at most in memory (96 MB): <see cref="MemoryRowBlocks.DefaultMaxKeptValues"/>.</summary>
+    public const long MaxKeptValues = MemoryRowBlocks.DefaultMaxKeptValues;
 
+    private readonly IRowBlockStore _store;
     private readonly long _maxKeptValues;
+    private readonly Queue<StoredBlock> _kept = new();
     private long _keptValues;
-
-    /// <param name="maxKeptValues">Values kept at most; <see cref="MaxKeptValues"/> by default.</param>
-    public RecentRows(long maxKeptValues = MaxKeptValues)
-    {
-        _maxKeptValues = maxKeptValues;
-    }
-    private readonly Queue<Kept> _kept = new();
-    private readonly Stack<Kept> _free = new();
     private IReadOnlyList<string> _channels = [];
     private double _droppedThroughS = double.NegativeInfinity;
     private double _newestS = double.NegativeInfinity;
+    private double[] _searchTimes = [];
+
+    /// <param name="store">Where the blocks are kept; in memory when null. Released (disposed) by <see cref="Release"/>.</param>
+    /// <param name="maxKeptValues">Values kept at most; the store's own bound by default.</param>
+    public RecentRows(IRowBlockStore? store = null, long? maxKeptValues = null)
+    {
+        _store = store ?? new MemoryRowBlocks();
+        _maxKeptValues = maxKeptValues ?? _store.MaxKeptValues;
+    }
+
+    /// <summary>Window channels loaded and not yet reduced, now and at most (a check that windows are loaded one channel at a time).</summary>
+    public LoadedChannels Loaded { get; } = new();
 
     public void Add(IReadOnlyList<string> channels, double[] timeS, IReadOnlyList<double[]> valuesSi, int count)
     {
@@ -37,18 +41,10 @@ internal sealed class RecentRows
         {
             // Another channel list is another logger: what was kept cannot be replayed beside it.
             DropBefore(double.PositiveInfinity);
-            _free.Clear();
             _channels = [.. channels];
         }
-        var kept = _free.Count > 0 && _free.Peek().Capacity >= count ? _free.Pop() : new Kept(channels.Count, Math.Max(count, timeS.Length));
-        kept.Count = count;
-        Array.Copy(timeS, kept.TimeS, count);
-        for (var c = 0; c < channels.Count; c++)
-        {
-            Array.Copy(valuesSi[c], kept.ValuesSi[c], count);
-        }
-        _kept.Enqueue(kept);
-        _keptValues += Values(kept);
+        _kept.Enqueue(_store.Write(timeS, valuesSi, count));
+        _keptValues += (long)count * (_channels.Count + 1);
         _newestS = timeS[count - 1];
         while (_keptValues > _maxKeptValues && _kept.Count > 1)
         {
@@ -56,14 +52,13 @@ internal sealed class RecentRows
         }
     }
 
-    private long Values(Kept kept) => (long)kept.Count * (_channels.Count + 1);
-
     private void DropOldest()
     {
         var dropped = _kept.Dequeue();
-        _keptValues -= Values(dropped);
+        _keptValues -= (long)dropped.Count * dropped.Columns;
         _droppedThroughS = dropped.LastS;
-        _free.Push(dropped);
+        // A gathered window that still reads the block holds its own reference: the block is freed after its load.
+        dropped.Release();
     }
 
     /// <summary>True when every row from <paramref name="window"/>'s start to past its end is kept.</summary>
@@ -72,11 +67,14 @@ internal sealed class RecentRows
     /// <summary>No row will follow: a window reaching past the last row is covered all the same.</summary>
     public void Complete() => _newestS = double.PositiveInfinity;
 
-    /// <summary>Lets go of every kept row and of the blocks kept for reuse: nothing more will be gathered.</summary>
+    /// <summary>
+    /// Lets go of every kept row and of the store: nothing more will be gathered. Windows already gathered still load
+    /// their channels; the store frees their blocks as they finish.
+    /// </summary>
     public void Release()
     {
         DropBefore(double.PositiveInfinity);
-        _free.Clear();
+        _store.Dispose();
     }
 
     /// <summary>Drops the blocks whose last row lies before <paramref name="timeS"/>.</summary>
@@ -89,54 +87,54 @@ internal sealed class RecentRows
     }
 
     /// <summary>
-    /// Hands over each channel's kept samples inside <paramref name="window"/> (start ≤ t ≤ end), as a window
-    /// collector would, in exactly sized arrays; the channels share one array of times, which nobody writes to.
+    /// The kept rows inside <paramref name="window"/> (start ≤ t ≤ end), as a window collector would gather them, to be
+    /// loaded one channel at a time when its statistics start (<see cref="GatheredWindow"/>). The blocks it reads stay
+    /// in the store until every channel is loaded.
+    /// </summary>
+    public GatheredWindow Gather(TimeWindow window)
+    {
+        var runs = new List<GatheredWindow.Run>();
+        foreach (var kept in _kept)
+        {
+            if (kept.LastS < window.StartS || kept.FirstS > window.EndS)
+            {
+                continue;
+            }
+            int first = 0, end = kept.Count;
+            if (kept.FirstS < window.StartS || kept.LastS > window.EndS)
+            {
+                // A block the window starts or ends in: the same search over its times as the collector makes.
+                if (_searchTimes.Length < kept.Count)
+                {
+                    _searchTimes = new double[kept.Count];
+                }
+                var times = _searchTimes.AsSpan(0, kept.Count);
+                _store.Read(kept, 0, 0, times);
+                first = SortedSearch.FirstAtOrAfter(times, window.StartS);
+                end = SortedSearch.FirstAfter(times, window.EndS);
+            }
+            if (end > first)
+            {
+                kept.AddReference();
+                runs.Add(new GatheredWindow.Run(kept, first, end));
+            }
+        }
+        return new GatheredWindow(_store, _channels, runs, Loaded);
+    }
+
+    /// <summary>
+    /// Hands over each channel's kept samples inside <paramref name="window"/> at once, in exactly sized arrays; the
+    /// channels share one array of times, which nobody writes to.
     /// </summary>
     public void Gather(TimeWindow window, Action<string, double[], double[]> onChannel)
     {
-        var runs = new List<(Kept Block, int First, int End)>();
-        var count = 0;
-        foreach (var kept in _kept)
+        foreach (var channel in Gather(window).Channels)
         {
-            var times = kept.TimeS.AsSpan(0, kept.Count);
-            var first = SortedSearch.FirstAtOrAfter(times, window.StartS);
-            var end = SortedSearch.FirstAfter(times, window.EndS);
-            if (end > first)
+            channel.Reduce((times, values) =>
             {
-                runs.Add((kept, first, end));
-                count += end - first;
-            }
+                onChannel(channel.Name, times, values);
+                return 0;
+            });
         }
-        var timesS = new double[count];
-        var at = 0;
-        foreach (var (block, first, end) in runs)
-        {
-            block.TimeS.AsSpan(first, end - first).CopyTo(timesS.AsSpan(at));
-            at += end - first;
-        }
-        for (var c = 0; c < _channels.Count; c++)
-        {
-            var values = new double[count];
-            at = 0;
-            foreach (var (block, first, end) in runs)
-            {
-                block.ValuesSi[c].AsSpan(first, end - first).CopyTo(values.AsSpan(at));
-                at += end - first;
-            }
-            onChannel(_channels[c], timesS, values);
-        }
-    }
-
-    private sealed class Kept(int channels, int capacity)
-    {
-        public int Capacity { get; } = capacity;
-
-        public double[] TimeS { get; } = new double[capacity];
-
-        public double[][] ValuesSi { get; } = [.. Enumerable.Range(0, channels).Select(_ => new double[capacity])];
-
-        public int Count { get; set; }
-
-        public double LastS => TimeS[Count - 1];
     }
 }

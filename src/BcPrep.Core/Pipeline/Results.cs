@@ -72,6 +72,9 @@ public sealed record DayResult(
 
     /// <summary>Detected windows read in a second pass because they were not gathered during the first read.</summary>
     public int WindowsReadAgain { get; init; }
+
+    /// <summary>Most channels of gathered windows loaded at once (each is loaded when its statistics start); for tests.</summary>
+    internal int PeakWindowChannelsLoaded { get; init; }
 }
 
 /// <summary>Block means of every channel over the day (for detection evidence and plots).</summary>

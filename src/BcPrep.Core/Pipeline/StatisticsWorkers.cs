@@ -11,6 +11,9 @@ namespace BcPrep.Pipeline;
 /// </summary>
 internal static class StatisticsWorkers
 {
+    /// <summary>How many statistics threads there are: one per core. (Set before <see cref="Queue"/>, which starts them.)</summary>
+    public static int Threads { get; } = Math.Max(1, Environment.ProcessorCount);
+
     private static readonly BlockingCollection<Action> Queue = Start();
 
     /// <summary>Runs <paramref name="work"/> on a statistics thread; the task carries its result or its exception.</summary>
@@ -34,7 +37,7 @@ internal static class StatisticsWorkers
     private static BlockingCollection<Action> Start()
     {
         var queue = new BlockingCollection<Action>();
-        for (var i = 0; i < Math.Max(1, Environment.ProcessorCount); i++)
+        for (var i = 0; i < Threads; i++)
         {
             var thread = new Thread(() =>
             {

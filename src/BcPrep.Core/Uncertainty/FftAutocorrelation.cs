@@ -10,10 +10,22 @@ internal static class FftAutocorrelation
 {
     public static double[] Compute(ReadOnlySpan<double> samples, double mean)
     {
+        var rho = new double[samples.Length];
+        Compute(samples, mean, rho);
+        return rho;
+    }
+
+    /// <summary>Writes ρ̂(k), k &lt; n, into the first n elements of <paramref name="rho"/>.</summary>
+    public static void Compute(ReadOnlySpan<double> samples, double mean, Span<double> rho)
+    {
         var n = samples.Length;
         if (n == 0)
         {
-            return [];
+            return;
+        }
+        if (rho.Length < n)
+        {
+            throw new ArgumentException($"The output holds {rho.Length} lags, fewer than the window's {n}.", nameof(rho));
         }
         var size = 2;
         while (size < 2 * n)
@@ -23,13 +35,11 @@ internal static class FftAutocorrelation
         var half = size / 2;
         var re = ThreadScratch.Rent(ScratchSlots.FftReal, half);
         var im = ThreadScratch.Rent(ScratchSlots.FftImaginary, half);
-        var power = ThreadScratch.Rent(ScratchSlots.FftPower, half + 1);
         Pack(samples, mean, re, im, half);
         RadixTwoFft.Transform(re, im, half, inverse: false);
-        PowerSpectrum(re, im, power, size);
-        PackSymmetricSpectrum(power, re, im, size);
+        PowerSpectrumPacked(re, im, size);
         RadixTwoFft.Transform(re, im, half, inverse: true);
-        return Normalised(re, im, n);
+        Normalised(re, im, rho[..n]);
     }
 
     private static void Pack(ReadOnlySpan<double> samples, double mean, double[] re, double[] im, int half)
@@ -50,63 +60,68 @@ internal static class FftAutocorrelation
     }
 
     /// <summary>
-    /// |X[k]|² for k = 0…N/2 from the half-length transform Z of the packed sequence: X[k] = E[k] + e^(−2πik/N)·O[k]
-    /// with E = (Z[k] + Z*[N/2−k])/2 and O = (Z[k] − Z*[N/2−k])/(2i), the transforms of the even and odd samples.
+    /// In place, from the half-length transform Z of the packed sequence to the packed power spectrum for the
+    /// half-length inverse transform. |X[k]|² for k = 0…N/2, with X[k] = E[k] + e^(−2πik/N)·O[k],
+    /// E = (Z[k] + Z*[N/2−k])/2 and O = (Z[k] − Z*[N/2−k])/(2i), the transforms of the even and odd samples. The real,
+    /// even spectrum P is then packed so that the inverse transform holds the even lags in its real part and the odd
+    /// lags in its imaginary part: Y[k] = E[k] + i·e^(+2πik/N)·O[k] with E = (P[k] + P[N/2−k])/2 and
+    /// O = (P[k] − P[N/2−k])/2. Both steps read only the pair k, N/2 − k, so the pair is done together, in place.
     /// </summary>
-    private static void PowerSpectrum(double[] re, double[] im, double[] power, int size)
+    private static void PowerSpectrumPacked(double[] re, double[] im, int size)
     {
         var half = size / 2;
         var (cos, sin) = RadixTwoFft.TwiddlesFor(size);
-        for (var k = 0; k <= half; k++)
+        // k = 0 and k = N/2 both come from Z[0] alone (the twiddle of N/2 is −1).
+        var p0 = Power(re[0], im[0], re[0], -im[0], cos[0], -sin[0]);
+        var pHalf = Power(re[0], im[0], re[0], -im[0], -1.0, 0.0);
+        (re[0], im[0]) = Packed(p0, pHalf, cos[0], sin[0]);
+        for (var k = 1; k <= half / 2; k++)
         {
-            var k1 = k % half;
-            var k2 = (half - k) % half;
-            var zr = re[k1];
-            var zi = im[k1];
-            var cr = re[k2];
-            var ci = -im[k2];
-            var evenRe = 0.5 * (zr + cr);
-            var evenIm = 0.5 * (zi + ci);
-            var oddRe = 0.5 * (zi - ci);
-            var oddIm = -0.5 * (zr - cr);
-            var wr = k < half ? cos[k] : -1.0;
-            var wi = k < half ? -sin[k] : 0.0;
-            var xr = evenRe + ((wr * oddRe) - (wi * oddIm));
-            var xi = evenIm + ((wr * oddIm) + (wi * oddRe));
-            power[k] = (xr * xr) + (xi * xi);
+            var j = half - k;
+            var zkRe = re[k];
+            var zkIm = im[k];
+            var zjRe = re[j];
+            var zjIm = im[j];
+            var pk = Power(zkRe, zkIm, zjRe, -zjIm, cos[k], -sin[k]);
+            var pj = Power(zjRe, zjIm, zkRe, -zkIm, cos[j], -sin[j]);
+            (re[k], im[k]) = Packed(pk, pj, cos[k], sin[k]);
+            if (j != k)
+            {
+                (re[j], im[j]) = Packed(pj, pk, cos[j], sin[j]);
+            }
         }
     }
 
-    /// <summary>
-    /// Packs the real, even spectrum P for the half-length inverse transform, whose output then holds the even lags
-    /// in its real part and the odd lags in its imaginary part: Y[k] = E[k] + i·e^(+2πik/N)·O[k] with
-    /// E = (P[k] + P[N/2−k])/2 and O = (P[k] − P[N/2−k])/2.
-    /// </summary>
-    private static void PackSymmetricSpectrum(double[] power, double[] re, double[] im, int size)
+    /// <summary>|X[k]|² from Z[k] = (zr, zi), Z*[N/2−k] = (cr, ci) and the twiddle e^(−2πik/N) = (wr, wi).</summary>
+    private static double Power(double zr, double zi, double cr, double ci, double wr, double wi)
     {
-        var half = size / 2;
-        var (cos, sin) = RadixTwoFft.TwiddlesFor(size);
-        for (var k = 0; k < half; k++)
-        {
-            var even = 0.5 * (power[k] + power[half - k]);
-            var odd = 0.5 * (power[k] - power[half - k]);
-            re[k] = even - (odd * sin[k]);
-            im[k] = odd * cos[k];
-        }
+        var evenRe = 0.5 * (zr + cr);
+        var evenIm = 0.5 * (zi + ci);
+        var oddRe = 0.5 * (zi - ci);
+        var oddIm = -0.5 * (zr - cr);
+        var xr = evenRe + ((wr * oddRe) - (wi * oddIm));
+        var xi = evenIm + ((wr * oddIm) + (wi * oddRe));
+        return (xr * xr) + (xi * xi);
     }
 
-    private static double[] Normalised(double[] re, double[] im, int n)
+    /// <summary>Y[k] from P[k], P[N/2−k] and cos, sin(2πk/N).</summary>
+    private static (double Re, double Im) Packed(double pk, double pMirror, double cos, double sin)
     {
-        var rho = new double[n];
-        for (var i = 0; i < n; i++)
+        var even = 0.5 * (pk + pMirror);
+        var odd = 0.5 * (pk - pMirror);
+        return (even - (odd * sin), odd * cos);
+    }
+
+    private static void Normalised(double[] re, double[] im, Span<double> rho)
+    {
+        for (var i = 0; i < rho.Length; i++)
         {
             rho[i] = (i & 1) == 0 ? re[i >> 1] : im[i >> 1];
         }
         var zeroLag = rho[0];
-        for (var i = 0; i < n; i++)
+        for (var i = 0; i < rho.Length; i++)
         {
             rho[i] /= zeroLag;
         }
-        return rho;
     }
 }

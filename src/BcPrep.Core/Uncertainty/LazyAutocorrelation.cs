@@ -1,57 +1,69 @@
-using System.Numerics;
-using System.Runtime.CompilerServices;
-
 namespace BcPrep.Uncertainty;
 
 /// <summary>
 /// The biased sample autocorrelation ρ̂(k) = Σᵢ dᵢ dᵢ₊ₖ / Σᵢ dᵢ² (d = x − mean; the estimator of MathNet's
-/// Correlation.Auto), computed only as far as it is read. The Sokal and Bartlett cut-offs stop after a few times
-/// the correlation time, usually tens of lags, so direct sums over those lags cost far less than an FFT of the
-/// whole window; when many lags are needed (a slow or drifting channel) it switches to one FFT of the whole window.
+/// Correlation.Auto), computed only as far as it is read. The Sokal and Bartlett cut-offs stop after a few times the
+/// correlation time, so the lags are computed in growing ranges: the first ones by direct sums
+/// (<see cref="DirectLagSums"/>), then by sectioned correlation over blocks a little longer than the lags wanted
+/// (<see cref="SectionedAutocorrelation"/>, about n·log L for L lags), and only when the lags wanted come near the
+/// window's length by one FFT of the whole window (<see cref="FftAutocorrelation"/>). The lags live in the thread's
+/// scratch, so one estimator at a time per thread: it is made and dropped within one window mean.
 /// </summary>
 internal sealed class LazyAutocorrelation
 {
     /// <summary>
-    /// Beyond this many lags the whole window goes through one FFT. Lags are extended by doubling, so a channel that
-    /// needs more than 256 lags (most slow ones) paid for 256 direct sums before its FFT; with the vectorised FFT at
-    /// about three times the cost of 64 direct lags (n = 150 000), stopping the sums at 64 costs a channel with a
-    /// cut-off between 64 and 128 a little and saves each slow channel more (measured on the benchmark day: five
-    /// slow channels and one between 64 and 128 per window).
+    /// Lags up to this many are summed directly; beyond it, sectioned correlation is cheaper (measured on 1 M samples:
+    /// see <see cref="DirectLagSums"/>' benchmark in BcPrep.Benchmarks).
     /// </summary>
     internal const int DirectLagLimit = 64;
 
+    /// <summary>The first direct range: a sweep of up to 16 lags costs about what one of a single lag costs (memory-bound).</summary>
+    private const int FirstDirectLags = 16;
+
+    /// <summary>The shortest section: 1024 lags, so a hum of a few tens of samples averages out of the prediction after one pass.</summary>
+    private const int MinimumSection = 1024;
+
     private readonly double[] _samples;
-    private readonly double[] _deviations;
     private readonly double _sumOfSquares;
     private readonly double _mean;
     private double[] _rho;
     private int _known;
 
     public LazyAutocorrelation(double[] samples, double mean)
+        : this(samples, mean, SumOfSquares(samples, mean))
+    {
+    }
+
+    /// <param name="samples">The window.</param>
+    /// <param name="mean">Its mean.</param>
+    /// <param name="sumOfSquares">Σᵢ (xᵢ − mean)², summed in order (as <see cref="SumOfSquares"/> does), when the caller has it.</param>
+    public LazyAutocorrelation(double[] samples, double mean, double sumOfSquares)
     {
         _samples = samples;
         _mean = mean;
+        _sumOfSquares = sumOfSquares;
         // Scratch: the estimator is used and dropped within one window mean on one thread.
-        _deviations = ThreadScratch.Rent(ScratchSlots.Deviations, samples.Length);
-        var ss = 0.0;
-        for (var i = 0; i < samples.Length; i++)
-        {
-            var d = samples[i] - mean;
-            _deviations[i] = d;
-            ss += d * d;
-        }
-        _sumOfSquares = ss;
-        _rho = new double[Math.Min(samples.Length, 64)];
+        _rho = ThreadScratch.Rent(ScratchSlots.Autocorrelation, Math.Min(samples.Length, DirectLagLimit));
         _rho[0] = 1.0;
         _known = 1;
     }
 
     public int Length => _samples.Length;
 
+    /// <summary>How the lags were last extended (for tests and benchmarks).</summary>
+    internal AutocorrelationRoute LastRoute { get; private set; } = AutocorrelationRoute.None;
+
+    /// <summary>How many sectioned passes ran (for tests and benchmarks).</summary>
+    internal int SectionPasses { get; private set; }
+
     public double this[int lag]
     {
         get
         {
+            if ((uint)lag >= (uint)Length)
+            {
+                throw new ArgumentOutOfRangeException(nameof(lag), lag, $"Lag must lie within [0, {Length}).");
+            }
             if (lag >= _known)
             {
                 Extend(lag);
@@ -62,41 +74,130 @@ internal sealed class LazyAutocorrelation
 
     private void Extend(int lag)
     {
-        var target = Math.Min(Length, Math.Max(lag + 1, 2 * _known));
-        if (target > DirectLagLimit)
+        var n = Length;
+        var directLimit = Math.Min(n, DirectLagLimit);
+        if (_known < directLimit)
         {
-            _rho = FftAutocorrelation.Compute(_samples, _mean);
-            _known = Length;
+            // The direct lags come first even when a far lag is read, so the prediction below has them to go by.
+            var end = Math.Min(directLimit, Math.Max(lag + 1, Math.Max(2 * _known, FirstDirectLags)));
+            Grow(end);
+            DirectLagSums.Compute(_samples, _mean, _known, end, _rho);
+            Normalise(_known, end);
+            _known = end;
+            LastRoute = AutocorrelationRoute.Direct;
+            if (lag < _known)
+            {
+                return;
+            }
+        }
+        var target = Math.Min(n, Math.Max(lag + 1, 2 * _known));
+        // A first section of at least MinimumSection lags costs little more than a shorter one (log L) and gives the
+        // prediction long ranges to average over.
+        var block = PowerOfTwoAtLeast(Math.Max(Math.Max(target, PredictedLags()), MinimumSection));
+        // The whole window's transform has PowerOfTwoAtLeast(n) complex points; once the blocks reach half of it,
+        // two or three section transforms cost what the whole window's two do.
+        if (block >= PowerOfTwoAtLeast(n) / 2)
+        {
+            Grow(n);
+            FftAutocorrelation.Compute(_samples, _mean, _rho);
+            _known = n;
+            LastRoute = AutocorrelationRoute.WholeWindow;
             return;
         }
-        if (_rho.Length < target)
-        {
-            Array.Resize(ref _rho, target);
-        }
-        for (var k = _known; k < target; k++)
-        {
-            _rho[k] = LaggedProduct(_deviations.AsSpan(0, Length), k) / _sumOfSquares;
-        }
-        _known = target;
+        Grow(block);
+        SectionedAutocorrelation.Compute(_samples, _mean, block, _known, _rho);
+        Normalise(_known, block);
+        _known = block;
+        LastRoute = AutocorrelationRoute.Sectioned;
+        SectionPasses++;
     }
 
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static double LaggedProduct(ReadOnlySpan<double> d, int lag)
+    /// <summary>
+    /// Lags the cut-off will probably read, from how ρ̂ decays between the means over two ranges of the known lags,
+    /// [K/4, K/2) and [K/2, K) (means, so that a hum's oscillation averages out): with ρ̂ ≈ e^(−k/τ), the Sokal window
+    /// (c = 5) stops near 5(1 + 2τ) and the Bartlett band sooner; 8(1 + 2τ) leaves room for the estimate's scatter (a
+    /// longer section costs only log L more, a second pass n·log L), and a section that falls short is doubled. A
+    /// correlation that has decayed (or oscillates about zero) gives 0: plain doubling. One that does not decay (a
+    /// drift) asks for the whole window. Only the cost depends on this, never a value.
+    /// </summary>
+    private int PredictedLags()
     {
-        var a = d[..^lag];
-        var b = d[lag..];
-        var width = Vector<double>.Count;
-        var acc = Vector<double>.Zero;
-        var i = 0;
-        for (; i <= a.Length - width; i += width)
+        var early = MeanRho(_known / 4, _known / 2);
+        var late = MeanRho(_known / 2, _known);
+        if (!(late > 0.05 && early > 0.05))
         {
-            acc += new Vector<double>(a.Slice(i, width)) * new Vector<double>(b.Slice(i, width));
+            return 0;
         }
-        var sum = Vector.Sum(acc);
-        for (; i < a.Length; i++)
+        if (late >= early)
         {
-            sum += a[i] * b[i];
+            return Length;
         }
-        return sum;
+        // The ranges' centres lie 3K/8 apart.
+        var tau = (3.0 * _known / 8.0) / Math.Log(early / late);
+        var lags = 8.0 * (1.0 + (2.0 * tau));
+        return lags >= Length ? Length : (int)lags;
     }
+
+    private double MeanRho(int from, int to)
+    {
+        var sum = 0.0;
+        for (var k = from; k < to; k++)
+        {
+            sum += _rho[k];
+        }
+        return sum / (to - from);
+    }
+
+    private void Grow(int length)
+    {
+        if (_rho.Length >= length)
+        {
+            return;
+        }
+        var grown = ThreadScratch.Rent(ScratchSlots.Autocorrelation, length);
+        if (!ReferenceEquals(grown, _rho))
+        {
+            Array.Copy(_rho, grown, _known);
+        }
+        _rho = grown;
+    }
+
+    private void Normalise(int from, int to)
+    {
+        for (var k = from; k < to; k++)
+        {
+            _rho[k] /= _sumOfSquares;
+        }
+    }
+
+    /// <summary>Σᵢ (xᵢ − mean)², in order.</summary>
+    internal static double SumOfSquares(double[] samples, double mean)
+    {
+        var ss = 0.0;
+        for (var i = 0; i < samples.Length; i++)
+        {
+            var d = samples[i] - mean;
+            ss += d * d;
+        }
+        return ss;
+    }
+
+    private static int PowerOfTwoAtLeast(int value)
+    {
+        var p = 1;
+        while (p < value)
+        {
+            p <<= 1;
+        }
+        return p;
+    }
+}
+
+/// <summary>Which computation gave a <see cref="LazyAutocorrelation"/> its latest lags.</summary>
+internal enum AutocorrelationRoute
+{
+    None,
+    Direct,
+    Sectioned,
+    WholeWindow,
 }

@@ -7,7 +7,8 @@ namespace BcPrep.Uncertainty;
 /// Type A uncertainty of the mean of an autocorrelated steady window (reference sheet 4.1):
 /// var(x̄) = σ²γ_n/n with γ_n = 1 + 2 Σ (1 − k/n) ρ(k); n_eff = n/γ_n; the unbiased estimate
 /// u(x̄) = s·√[(n − 1)/(n(n_eff − 1))] corrects for E[s²] = σ²(n − γ_n)/(n − 1) (Zhang 2006, Metrologia 43 S276).
-/// ρ̂(k) is summed directly over the first lags and by one FFT when the cut-off needs many, so the cost is at most O(n log n).
+/// ρ̂(k) is computed only as far as the cut-off reads it (<see cref="LazyAutocorrelation"/>): directly over the first
+/// lags, by sectioned correlation further on, by one FFT of the whole window when the cut-off needs most of it.
 /// </summary>
 /// <remarks>
 /// Degrees of freedom: ν = min(n_eff − 1, n/(2M + 1)). The first term is the common practice; alone it ignores that
@@ -38,14 +39,14 @@ public static class WindowMean
             throw new BcPrepDataException($"Sokal window factor {options.SokalFactor} must be > 0.");
         }
 
-        var (mean, s, isConstant) = MeanAndStandardDeviation(samples);
+        var (mean, s, sumOfSquares, isConstant) = MeanAndStandardDeviation(samples);
         var naive = s / Math.Sqrt(n);
         if (isConstant)
         {
             return new WindowMeanResult(mean, 0.0, n, 0, true, 1.0, 1.0, n, 0.0, n - 1.0, n - 1.0, double.PositiveInfinity, 0.0, true, options.Cutoff);
         }
 
-        var rho = new LazyAutocorrelation(samples, mean);
+        var rho = new LazyAutocorrelation(samples, mean, sumOfSquares);
         var (cutoff, gammaRaw, converged) = options.Cutoff == AutocorrelationCutoff.SokalWindow
             ? SokalWindow(k => rho[k], rho.Length, n, options.SokalFactor)
             : BartlettBand(k => rho[k], rho.Length, n);
@@ -63,7 +64,8 @@ public static class WindowMean
             Math.Min(nEff - 1.0, nuGamma), nEff - 1.0, nuGamma, naive, false, options.Cutoff);
     }
 
-    private static (double Mean, double StandardDeviation, bool IsConstant) MeanAndStandardDeviation(double[] x)
+    /// <summary>x̄, s and Σ(xᵢ − x̄)² (the autocorrelation's denominator, summed once for both).</summary>
+    private static (double Mean, double StandardDeviation, double SumOfSquares, bool IsConstant) MeanAndStandardDeviation(double[] x)
     {
         var min = double.PositiveInfinity;
         var max = double.NegativeInfinity;
@@ -84,18 +86,12 @@ public static class WindowMean
 
         if (min == max)
         {
-            return (min, 0.0, true);
+            return (min, 0.0, 0.0, true);
         }
 
         var mean = sum / x.Length;
-        var ss = 0.0;
-        for (var i = 0; i < x.Length; i++)
-        {
-            var d = x[i] - mean;
-            ss += d * d;
-        }
-
-        return (mean, Math.Sqrt(ss / (x.Length - 1.0)), false);
+        var ss = LazyAutocorrelation.SumOfSquares(x, mean);
+        return (mean, Math.Sqrt(ss / (x.Length - 1.0)), ss, false);
     }
 
     /// <summary>Smallest M with M ≥ c·γ̂(M); returns (M, γ̂(M), converged).</summary>

@@ -90,4 +90,43 @@ public sealed class CsvOutputTests
         Assert.Equal(string.Join(',', columns), lines[0]);
         Assert.Equal(string.Join(',', Enumerable.Repeat("-1.7976931348623157E+308", columns.Count)), lines[1]);
     }
+
+    [Fact]
+    public void Rows_formatted_in_parts_on_several_threads_are_written_in_order_as_if_written_directly()
+    {
+        var random = new Random(5);
+        var rows = Enumerable.Range(0, 5000).Select(i => new[] { i * 0.001, 290.0 + random.NextDouble(), -random.NextDouble() }).ToArray();
+        var direct = new StringWriter();
+        var one = new CsvOutput(direct);
+        one.Header(["t", "a", "b"]);
+        foreach (var r in rows)
+        {
+            one.Number(r[0]);
+            one.Number(r[1]);
+            one.Number(r[2]);
+            one.EndRow();
+        }
+        one.Flush();
+
+        var inParts = new StringWriter();
+        var csv = new CsvOutput(inParts);
+        csv.Header(["t", "a", "b"]);
+        var parts = Enumerable.Range(0, 3).Select(_ => csv.Part()).ToArray();
+        Parallel.For(0, parts.Length, p =>
+        {
+            for (var i = p * 2000; i < Math.Min(rows.Length, (p + 1) * 2000); i++)
+            {
+                parts[p].Number(rows[i][0]);
+                parts[p].Number(rows[i][1]);
+                parts[p].Number(rows[i][2]);
+                parts[p].EndRow();
+            }
+        });
+        foreach (var part in parts)
+        {
+            csv.Append(part);
+        }
+        csv.Flush();
+        Assert.Equal(direct.ToString(), inParts.ToString());
+    }
 }

@@ -44,4 +44,39 @@ public class ForwardBackwardGustafssonTests
         Assert.Throws<BcPrepDataException>(() => ForwardBackwardGustafsson.Apply(filter.B, filter.A, new double[4]));
         Assert.Throws<BcPrepDataException>(() => ForwardBackwardGustafsson.Apply(filter.B, filter.A, [1, 2, double.NaN, 4, 5, 6]));
     }
+
+    [Fact]
+    public void The_initial_states_are_those_of_the_forward_and_backward_passes_of_Apply()
+    {
+        // Filtering forward from the forward state and backward from the backward state, in transposed direct form II,
+        // must give Apply's result: the streamed chain relies on that meaning of the two states.
+        var section = ButterworthDesign.LowPass(4, 2.0, 100.0).Sections[0];
+        double[] b = [section.B0, section.B1, section.B2];
+        double[] a = [1.0, section.A1, section.A2];
+        var random = new Random(3);
+        var x = Enumerable.Range(0, 600).Select(i => 20.0 + Math.Sin(i / 15.0) + random.NextDouble()).ToArray();
+        var expected = ForwardBackwardGustafsson.Apply(b, a, x);
+        var (forward, backward) = ForwardBackwardGustafsson.InitialStates(b, a, x);
+        var y = (double[])x.Clone();
+        double z0 = forward[0], z1 = forward[1];
+        for (var i = 0; i < y.Length; i++)
+        {
+            var yi = (b[0] * y[i]) + z0;
+            z0 = (b[1] * y[i]) - (a[1] * yi) + z1;
+            z1 = (b[2] * y[i]) - (a[2] * yi);
+            y[i] = yi;
+        }
+        (z0, z1) = (backward[0], backward[1]);
+        for (var i = y.Length - 1; i >= 0; i--)
+        {
+            var yi = (b[0] * y[i]) + z0;
+            z0 = (b[1] * y[i]) - (a[1] * yi) + z1;
+            z1 = (b[2] * y[i]) - (a[2] * yi);
+            y[i] = yi;
+        }
+        for (var i = 0; i < y.Length; i++)
+        {
+            Assert.Equal(expected[i], y[i], 1e-11);
+        }
+    }
 }

@@ -15,6 +15,7 @@ public class BlockConverterTests
     [InlineData("mdot", 4.0, 20.0)]
     [InlineData("heater_v", 0.0, 5.0)]
     [InlineData("t_cj", 105.0, 115.0)]
+    [InlineData("t_cj", 95.0, 104.0)] // an RTD across 0 °C (R0 = 100 Ω): the quartic's Newton below, the closed form above
     [InlineData("t_in", -0.5, 2.0)]
     public void Block_conversion_equals_the_per_sample_conversion_bit_for_bit(string channelId, double rawLow, double rawHigh)
     {
@@ -32,11 +33,24 @@ public class BlockConverterTests
             var expected = double.IsNaN(raw[i]) ? double.NaN : converter.PerSample(raw[i], reference[i]);
             Assert.Equal(BitConverter.DoubleToInt64Bits(expected), BitConverter.DoubleToInt64Bits(si[i]));
         }
+
+        // Without a junction channel: the fixed reference emf for every sample.
+        converter.Convert(raw, default, 0.0007, si);
+        for (var i = 0; i < raw.Length; i++)
+        {
+            var expected = double.IsNaN(raw[i]) ? double.NaN : converter.PerSample(raw[i], 0.0007);
+            Assert.Equal(BitConverter.DoubleToInt64Bits(expected), BitConverter.DoubleToInt64Bits(si[i]));
+        }
     }
 
     [Fact]
     public void A_sample_outside_the_calibration_range_fails_the_block()
     {
+        // IEC 60751: 400 Ω is beyond a Pt100's 390.48 Ω at 850 °C.
+        var rtd = BlockConverter.For(Rig.Channel("t_cj")!);
+        double[] ohm = [108.0, 109.0, 110.0, 111.0, 400.0, 112.0, 113.0, 114.0];
+        Assert.Throws<BcPrepDataException>(() => rtd.Convert(ohm, default, 0.0, new double[ohm.Length]));
+
         var converter = BlockConverter.For(Rig.Channel("t_in")!);
         double[] raw = [0.1, 0.2, 90.0, 0.3]; // 90 mV is beyond type K's inverse range (NIST Monograph 175: 54.886 mV at 1372 °C)
 

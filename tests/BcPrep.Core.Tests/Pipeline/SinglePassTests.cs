@@ -82,4 +82,67 @@ public class SinglePassTests
         Assert.Equal(0, single.WindowsReadAgain);
         SameDayAssert.Points(twoPasses, single);
     }
+
+    // Reference: the same single read with the rows kept in memory. Kept in temporary files instead, and loaded one
+    // channel at a time when each channel's statistics start, the rows must give the same points, bit for bit; the
+    // folder is left empty, and no more channels are loaded at once than there are statistics threads.
+    [Fact]
+    public void Rows_kept_in_temporary_files_give_the_points_of_rows_kept_in_memory()
+    {
+        var rig = SeekingSecondPassTests.DetectingRig();
+        var folder = Path.Combine(Path.GetTempPath(), "bcprep-kept-" + Guid.NewGuid().ToString("N"));
+        Directory.CreateDirectory(folder);
+        try
+        {
+            var inMemory = DayProcessor.Process(rig, SampleDay(), new ProcessOptions());
+            var onDisk = DayProcessor.Process(rig, SampleDay(), new ProcessOptions { KeptRowsFolder = folder });
+
+            Assert.Equal(3, onDisk.Points.Count);
+            Assert.Equal(0, onDisk.WindowsReadAgain);
+            SameDayAssert.Points(inMemory, onDisk);
+            Assert.Empty(Directory.EnumerateFileSystemEntries(folder));
+            // Gathering a whole window at once would load every channel of it (more than there are threads here).
+            var channels = onDisk.Points[0].Channels.Count;
+            Assert.True(channels > StatisticsWorkers.Threads, $"{channels} channels cannot tell one at a time from all at once on {StatisticsWorkers.Threads} threads");
+            Assert.InRange(onDisk.PeakWindowChannelsLoaded, 1, StatisticsWorkers.Threads);
+        }
+        finally
+        {
+            Directory.Delete(folder, recursive: true);
+        }
+    }
+
+    // The same with the detection a conditioning chunk behind the rows (a low-pass): the rows are kept longer, and
+    // the points are still those of rows kept in memory.
+    [Fact]
+    public void Rows_kept_in_temporary_files_behind_a_conditioning_chunk_give_the_same_points()
+    {
+        var rig = SeekingSecondPassTests.DetectingRig("\n[conditioning]\nlowpass_cutoff = \"0.2 Hz\"\n");
+        var folder = Path.Combine(Path.GetTempPath(), "bcprep-kept-" + Guid.NewGuid().ToString("N"));
+        Directory.CreateDirectory(folder);
+        try
+        {
+            var inMemory = DayProcessor.Process(rig, SampleDay(), new ProcessOptions());
+            var onDisk = DayProcessor.Process(rig, SampleDay(), new ProcessOptions { KeptRowsFolder = folder });
+
+            Assert.Equal(0, onDisk.WindowsReadAgain);
+            SameDayAssert.Points(inMemory, onDisk);
+        }
+        finally
+        {
+            Directory.Delete(folder, recursive: true);
+        }
+    }
+
+    // A folder for the kept rows that does not exist fails the run before the read, as an output failure naming it.
+    [Fact]
+    public void A_missing_folder_for_the_kept_rows_is_an_output_failure()
+    {
+        var missing = Path.Combine(Path.GetTempPath(), "bcprep-missing-" + Guid.NewGuid().ToString("N"));
+
+        var failure = Assert.Throws<BcPrepFailure>(() => DayProcessor.Process(SeekingSecondPassTests.DetectingRig(), SampleDay(), new ProcessOptions { KeptRowsFolder = missing }));
+
+        Assert.Equal(FailureKind.Output, failure.Kind);
+        Assert.Equal(missing, failure.Problems[0].Location.File);
+    }
 }

@@ -22,4 +22,71 @@ public class LazyAutocorrelationTests
             Assert.Equal(reference[lag], lazy[lag], 1e-12);
         }
     }
+
+    // Reference: the estimator's definition ρ̂(k) = Σᵢ dᵢ dᵢ₊ₖ / Σᵢ dᵢ², summed directly, held within 1e-12 (of ρ̂(0) = 1)
+    // at every lag as a cut-off reads them (in order, one past the last): AR(1) noise of correlation time 1, 30 and
+    // 300 samples, a 50 Hz hum at 1 kHz with a slowly wandering phase, a drift and a steep ramp; window lengths just
+    // above the switch points (64 direct lags; sections of half the whole window's transform, 4097 = 2¹² + 1) and
+    // not near them. The route says which computation gave the last lags, so each route is exercised (none is named
+    // where the predicted reach of a slow decay decides it).
+    [Theory]
+    [InlineData("ar1-tau1", 65, 64, "Direct")]
+    [InlineData("ar1-tau1", 65, 65, "WholeWindow")]
+    [InlineData("ar1-tau1", 20_000, 64, "Direct")]
+    [InlineData("ar1-tau1", 20_000, 65, "Sectioned")]
+    [InlineData("ar1-tau30", 20_000, 600, "Sectioned")]
+    [InlineData("ar1-tau300", 30_000, 5000, "Sectioned")]
+    [InlineData("ar1-tau1", 4097, 2048, "Sectioned")]
+    [InlineData("ar1-tau1", 4097, 2049, "WholeWindow")]
+    [InlineData("ar1-tau300", 4097, 2049, "any")]
+    [InlineData("hum", 20_000, 1000, "Sectioned")]
+    [InlineData("hum", 20_000, 1500, "any")]
+    [InlineData("hum", 129, 128, "WholeWindow")]
+    [InlineData("drift", 8193, 3000, "any")]
+    [InlineData("ramp", 20_000, 3000, "WholeWindow")]
+    public void Equals_the_definition_at_every_lag_read(string series, int n, int lagsRead, string route)
+    {
+        var x = CorrelatedSeries.Named(series, n, lagsRead);
+        var mean = x.Average();
+        var zeroLag = CorrelatedSeries.LaggedProduct(x, mean, 0);
+        var lazy = new LazyAutocorrelation(x, mean);
+
+        for (var k = 0; k < lagsRead; k++)
+        {
+            Assert.Equal(CorrelatedSeries.LaggedProduct(x, mean, k) / zeroLag, lazy[k], 1e-12);
+        }
+
+        if (route != "any")
+        {
+            Assert.Equal(Enum.Parse<AutocorrelationRoute>(route), lazy.LastRoute);
+        }
+    }
+
+    // Common practice (cost only, no value depends on it): a correlation that has not decayed by the last direct lag
+    // goes straight to the whole window, and an exponential decay is extended once, past its expected cut-off.
+    [Fact]
+    public void Predicts_the_lags_a_slow_correlation_needs()
+    {
+        // One estimator at a time: each holds its lags in the thread's scratch.
+        var ramp = CorrelatedSeries.Named("ramp", 100_000, 1);
+        var slow = new LazyAutocorrelation(ramp, ramp.Average());
+        _ = slow[64];
+        Assert.Equal(AutocorrelationRoute.WholeWindow, slow.LastRoute);
+
+        var ar1 = CorrelatedSeries.Named("ar1-tau300", 100_000, 1);
+        var decaying = new LazyAutocorrelation(ar1, ar1.Average());
+        _ = decaying[64];
+        Assert.Equal(AutocorrelationRoute.Sectioned, decaying.LastRoute);
+        _ = decaying[4000];
+        Assert.Equal(AutocorrelationRoute.Sectioned, decaying.LastRoute);
+        Assert.Equal(1, decaying.SectionPasses);
+    }
+
+    [Fact]
+    public void Refuses_a_lag_outside_the_window()
+    {
+        var lazy = new LazyAutocorrelation([1.0, 2.0, 4.0], 7.0 / 3.0);
+        Assert.Throws<ArgumentOutOfRangeException>(() => lazy[3]);
+        Assert.Throws<ArgumentOutOfRangeException>(() => lazy[-1]);
+    }
 }

@@ -57,6 +57,69 @@ public class RadixTwoFftTests
         Assert.Throws<ArgumentException>(() => RadixTwoFft.Transform(buffer, buffer.ToArray(), n, inverse: false));
     }
 
+    // Reference: the same radix-2 transform run stage by stage over the whole array (the form before the short stages
+    // ran block by block in cache); every butterfly is the same, so the result must be the same to the bit, both ways.
+    [Theory]
+    [InlineData(8192, false)]
+    [InlineData(32768, true)]
+    public void Cache_blocked_stages_equal_whole_array_stages_to_the_bit(int n, bool inverse)
+    {
+        var random = new Random(n);
+        var re = Enumerable.Range(0, n).Select(_ => random.NextDouble() - 0.5).ToArray();
+        var im = Enumerable.Range(0, n).Select(_ => random.NextDouble() - 0.5).ToArray();
+        var expectedRe = (double[])re.Clone();
+        var expectedIm = (double[])im.Clone();
+        StageByStage(expectedRe, expectedIm, inverse);
+
+        RadixTwoFft.Transform(re, im, n, inverse);
+
+        Assert.Equal(expectedRe, re);
+        Assert.Equal(expectedIm, im);
+    }
+
+    /// <summary>Bit reversal, then each stage over the whole array, twiddles cos, sin(2π·k·(n/L)/n) as the transform's table holds them.</summary>
+    private static void StageByStage(double[] re, double[] im, bool inverse)
+    {
+        var n = re.Length;
+        for (int i = 1, j = 0; i < n; i++)
+        {
+            var bit = n >> 1;
+            for (; (j & bit) != 0; bit >>= 1)
+            {
+                j ^= bit;
+            }
+            j ^= bit;
+            if (i < j)
+            {
+                (re[i], re[j]) = (re[j], re[i]);
+                (im[i], im[j]) = (im[j], im[i]);
+            }
+        }
+        var (cos, sin) = RadixTwoFft.TwiddlesFor(n);
+        var sign = inverse ? 1.0 : -1.0;
+        for (var length = 2; length <= n; length <<= 1)
+        {
+            var half = length >> 1;
+            var stride = n / length;
+            for (var start = 0; start < n; start += length)
+            {
+                for (var k = 0; k < half; k++)
+                {
+                    var wr = cos[k * stride];
+                    var wi = sign * sin[k * stride];
+                    var a = start + k;
+                    var b = a + half;
+                    var tr = (re[b] * wr) - (im[b] * wi);
+                    var ti = (re[b] * wi) + (im[b] * wr);
+                    re[b] = re[a] - tr;
+                    im[b] = im[a] - ti;
+                    re[a] += tr;
+                    im[a] += ti;
+                }
+            }
+        }
+    }
+
     private static (double[] Re, double[] Im) Dft(double[] re, double[] im)
     {
         var n = re.Length;

@@ -134,4 +134,45 @@ public class WindowMeanTests
         var r = WindowMean.Evaluate(x);
         Assert.InRange(r.IntegratedAutocorrelation, 19.0 * 0.9, 19.0 * 1.1);
     }
+    // Reference: the values this evaluation gave before the lags beyond the first 64 came from sections (BcPrep at
+    // 94c0c0e: direct sums up to lag 63, then one FFT of the whole window), on seeded series whose cut-offs fall in each
+    // route: AR(1) of correlation time 1 to 300 samples, a 50 Hz hum at 1 kHz, a drift and a steep ramp, window lengths
+    // just above powers of two among them. ρ̂ moves only by rounding (within 1e-12, DirectLagSumsTests and
+    // LazyAutocorrelationTests), so the cut-off must be the same lag and γ, u and ν the same within 1e-12 relative.
+    [Theory]
+    [InlineData("ar1-tau1", 100000, 1, AutocorrelationCutoff.SokalWindow, 11, 2.160899414822694, 0.004996246804091153, 4347.826086956522)]
+    [InlineData("ar1-tau1", 100000, 1, AutocorrelationCutoff.BartlettBand, 5, 2.1574162662044554, 0.004992218374012443, 9090.90909090909)]
+    [InlineData("ar1-tau30", 100000, 2, AutocorrelationCutoff.SokalWindow, 311, 62.0738766334533, 0.09785562728030311, 160.51364365971108)]
+    [InlineData("ar1-tau30", 100000, 2, AutocorrelationCutoff.BartlettBand, 91, 57.334951588280575, 0.0940439364460238, 546.448087431694)]
+    [InlineData("ar1-tau300", 100000, 3, AutocorrelationCutoff.SokalWindow, 4530, 905.9784913935969, 1.119679841287411, 11.036309458117206)]
+    [InlineData("ar1-tau300", 100000, 3, AutocorrelationCutoff.BartlettBand, 674, 549.7055620776414, 0.8706040265100768, 74.12898443291327)]
+    [InlineData("ar1-tau300", 65537, 4, AutocorrelationCutoff.SokalWindow, 2400, 479.7693947766734, 0.993456104580311, 13.650697771297647)]
+    [InlineData("ar1-tau300", 65537, 4, AutocorrelationCutoff.BartlettBand, 482, 431.88949161016876, 0.9422344461563484, 67.9139896373057)]
+    [InlineData("ar1-tau10", 4097, 5, AutocorrelationCutoff.SokalWindow, 86, 16.981230690456286, 0.1491303964626313, 23.68208092485549)]
+    [InlineData("ar1-tau10", 4097, 5, AutocorrelationCutoff.BartlettBand, 22, 18.215467876778245, 0.15447829078016156, 91.04444444444445)]
+    [InlineData("hum", 100000, 6, AutocorrelationCutoff.SokalWindow, 11, 1.5494243639064917, 0.007867927851888305, 4347.826086956522)]
+    [InlineData("hum", 100000, 6, AutocorrelationCutoff.BartlettBand, 14, -0.07156166464178804, 0.0063208281855936296, 3448.2758620689656)]
+    [InlineData("drift", 100000, 7, AutocorrelationCutoff.SokalWindow, 113, 22.554496422264677, 0.026718621496644317, 440.52863436123346)]
+    [InlineData("drift", 100000, 7, AutocorrelationCutoff.BartlettBand, 2967, 335.74818956999115, 0.10324894733671988, 16.849199663016005)]
+    [InlineData("drift", 30001, 8, AutocorrelationCutoff.SokalWindow, 183, 36.56555105679802, 0.06341131602948383, 81.7465940054496)]
+    [InlineData("drift", 30001, 8, AutocorrelationCutoff.BartlettBand, 573, 90.02830051007724, 0.09958822980006185, 26.156059285091544)]
+    [InlineData("ar1-tau100", 20000, 9, AutocorrelationCutoff.SokalWindow, 940, 187.8128866805204, 0.6807662997133227, 10.63264221158958)]
+    [InlineData("ar1-tau100", 20000, 9, AutocorrelationCutoff.BartlettBand, 233, 185.79491462200363, 0.6770646655807577, 42.82655246252676)]
+    [InlineData("ramp", 100000, 10, AutocorrelationCutoff.SokalWindow, 91985, 18396.924839780135, 2.849047531450036, 0.5435639312717765)]
+    [InlineData("ramp", 100000, 10, AutocorrelationCutoff.BartlettBand, 8894, 13528.962896617313, 2.373434545627765, 5.6214514587666535)]
+    [InlineData("ramp", 4097, 11, AutocorrelationCutoff.SokalWindow, 3766, 753.1311537061067, 2.8478016121214274, 0.5438736227266693)]
+    [InlineData("ramp", 4097, 11, AutocorrelationCutoff.BartlettBand, 368, 561.7901158773386, 2.392095357959524, 5.559023066485753)]
+    [InlineData("hum", 3000, 12, AutocorrelationCutoff.SokalWindow, 11, 1.8264046955686157, 0.04797628412734455, 130.43478260869566)]
+    [InlineData("hum", 3000, 12, AutocorrelationCutoff.BartlettBand, 5, 5.662482976988393, 0.0845297465230577, 272.72727272727275)]
+    public void Gives_the_former_evaluation_on_correlated_series(string series, int n, int seed, AutocorrelationCutoff cutoff, int cutoffLag, double gamma, double u, double nu)
+    {
+        var x = CorrelatedSeries.Named(series, n, seed);
+
+        var r = WindowMean.Evaluate(x, new WindowMeanOptions(cutoff));
+
+        Assert.Equal(cutoffLag, r.CutoffLag);
+        Assert.Equal(1.0, r.RawIntegratedAutocorrelation / gamma, 12);
+        Assert.Equal(1.0, r.StandardUncertainty / u, 12);
+        Assert.Equal(1.0, r.DegreesOfFreedom / nu, 12);
+    }
 }

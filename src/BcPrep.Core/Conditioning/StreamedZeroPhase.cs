@@ -1,0 +1,147 @@
+using System.Runtime.InteropServices;
+
+namespace BcPrep.Conditioning;
+
+/// <summary>
+/// The notch and low-pass of the conditioning chain on a stream of gap-bridged, de-spiked samples: cut into gap-free
+/// segments as <see cref="ChannelConditioner.Condition"/> cuts them (a missing value or a time step longer than
+/// <see cref="GapBridging.JumpFactor"/> nominal intervals), each segment filtered zero-phase one section after the
+/// other (<see cref="StreamedSectionPass"/>), a segment not longer than the default pad set to NaN. Conditioned
+/// samples are appended to the output lists in order, with a delay of about the sections' cores and overlaps.
+/// </summary>
+internal sealed class StreamedZeroPhase
+{
+    private readonly StreamedSectionPass[] _passes;
+    private readonly int _minimumPad;
+    private readonly double _jumpS;
+    private readonly List<double> _outTimes;
+    private readonly List<double> _outValues;
+    private readonly List<double> _times = [];
+    private readonly List<double> _segmentStart = [];
+    private bool _open;
+    private bool _streaming;
+    private double _lastS;
+
+    /// <param name="sections">The cascade (notches, then low-pass); empty passes samples through.</param>
+    /// <param name="nominalIntervalS">The sample interval, for the jump that cuts a segment.</param>
+    /// <param name="core">Samples emitted per backward stretch of a section (at least its overlap).</param>
+    /// <param name="coreOverlaps">A stretch is also at least this many of the section's overlaps long.</param>
+    /// <param name="outTimes">Receives the times of conditioned samples.</param>
+    /// <param name="outValues">Receives the conditioned values.</param>
+    public StreamedZeroPhase(IReadOnlyList<SecondOrderSection> sections, double nominalIntervalS, int core, int coreOverlaps, List<double> outTimes, List<double> outValues)
+    {
+        _outTimes = outTimes;
+        _outValues = outValues;
+        _jumpS = GapBridging.JumpFactor * nominalIntervalS;
+        _minimumPad = sections.Count > 0 ? ZeroPhaseFilter.DefaultPadLength(sections) : 0;
+        _passes = new StreamedSectionPass[sections.Count];
+        for (var k = sections.Count - 1; k >= 0; k--)
+        {
+            var overlap = ZeroPhaseFilter.SettlingPadLength([sections[k]], StreamingConditioner.SeamResidual);
+            var next = k + 1 < sections.Count ? _passes[k + 1] : null;
+            Action<ReadOnlySpan<double>> emit = next is null ? Emit : next.Push;
+            _passes[k] = new StreamedSectionPass(sections[k], overlap, Math.Max(core, coreOverlaps * overlap), emit, next);
+        }
+    }
+
+    /// <summary>The longest backward overlap of the sections (0 without sections).</summary>
+    public int Overlap => _passes.Length == 0 ? 0 : _passes.Max(p => p.Overlap);
+
+    /// <summary>Gap-free segments filtered so far.</summary>
+    public int Segments { get; private set; }
+
+    /// <summary>Samples of segments too short to filter, set to NaN.</summary>
+    public long Unfiltered { get; private set; }
+
+    /// <summary>Samples in time order (after those of earlier calls).</summary>
+    public void Accept(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values)
+    {
+        if (_passes.Length == 0)
+        {
+            _outTimes.AddRange(timesS);
+            _outValues.AddRange(values);
+            return;
+        }
+        var i = 0;
+        while (i < values.Length)
+        {
+            if (!double.IsFinite(values[i]))
+            {
+                EndSegment();
+                _outTimes.Add(timesS[i]);
+                _outValues.Add(values[i]);
+                i++;
+                continue;
+            }
+            if (_open && timesS[i] - _lastS > _jumpS)
+            {
+                EndSegment();
+            }
+            var end = i + 1;
+            while (end < values.Length && double.IsFinite(values[end]) && timesS[end] - timesS[end - 1] <= _jumpS)
+            {
+                end++;
+            }
+            Feed(timesS[i..end], values[i..end]);
+            i = end;
+        }
+    }
+
+    /// <summary>Ends the open segment (the end of the stream).</summary>
+    public void Complete() => EndSegment();
+
+    private void Feed(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values)
+    {
+        _open = true;
+        _lastS = timesS[^1];
+        _times.AddRange(timesS);
+        if (_streaming)
+        {
+            _passes[0].Push(values);
+            return;
+        }
+        // The first samples wait until the segment is known to be longer than the pad (else it stays unfiltered).
+        _segmentStart.AddRange(values);
+        if (_segmentStart.Count > _minimumPad)
+        {
+            _streaming = true;
+            _passes[0].Push(CollectionsMarshal.AsSpan(_segmentStart));
+            _segmentStart.Clear();
+        }
+    }
+
+    private void EndSegment()
+    {
+        if (!_open)
+        {
+            return;
+        }
+        if (_streaming)
+        {
+            _passes[0].End();
+            Segments++;
+        }
+        else
+        {
+            Unfiltered += _segmentStart.Count;
+            var nan = new double[_segmentStart.Count];
+            Array.Fill(nan, double.NaN);
+            Emit(nan);
+            _segmentStart.Clear();
+        }
+        if (_times.Count != 0)
+        {
+            throw new InvalidOperationException($"{_times.Count} samples of a segment were not emitted");
+        }
+        _open = false;
+        _streaming = false;
+    }
+
+    private void Emit(ReadOnlySpan<double> values)
+    {
+        var times = CollectionsMarshal.AsSpan(_times)[..values.Length];
+        _outTimes.AddRange(times);
+        _outValues.AddRange(values);
+        _times.RemoveRange(0, values.Length);
+    }
+}

@@ -1,0 +1,63 @@
+using System.Runtime.ExceptionServices;
+
+namespace BcPrep.Pipeline;
+
+/// <summary>
+/// One channel of a <see cref="GatheredWindow"/>, reduced once on a statistics thread. Its samples are loaded when the
+/// reduction starts and let go when it succeeds; a reduction that fails keeps them (or the load's failure), so that a
+/// second reduction for the failure's message (<see cref="WindowStatsBook"/>) sees the same samples after the store
+/// has let the blocks go.
+/// </summary>
+internal sealed class GatheredChannel(GatheredWindow window, string name, int index)
+{
+    private readonly object _gate = new();
+    private bool _started;
+    private (double[] TimesS, double[] Values)? _kept;
+    private ExceptionDispatchInfo? _loadFailure;
+
+    public string Name { get; } = name;
+
+    /// <summary>Reduces the channel's samples (times, values), loading them the first time.</summary>
+    public T Reduce<T>(Func<double[], double[], T> reduce)
+    {
+        bool again;
+        lock (_gate)
+        {
+            again = _started;
+            _started = true;
+        }
+        if (again)
+        {
+            if (_kept is { } kept)
+            {
+                return reduce(kept.TimesS, kept.Values);
+            }
+            _loadFailure?.Throw();
+            throw new InvalidOperationException($"channel '{Name}' of a gathered window was reduced already and its samples let go");
+        }
+        (double[] TimesS, double[] Values) samples;
+        try
+        {
+            samples = window.Load(index);
+        }
+        catch (Exception e)
+        {
+            _loadFailure = ExceptionDispatchInfo.Capture(e);
+            window.Finish(loaded: false);
+            throw;
+        }
+        try
+        {
+            return reduce(samples.TimesS, samples.Values);
+        }
+        catch
+        {
+            _kept = samples;
+            throw;
+        }
+        finally
+        {
+            window.Finish(loaded: true);
+        }
+    }
+}
