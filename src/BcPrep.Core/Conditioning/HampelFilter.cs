@@ -420,9 +420,10 @@ public static class HampelFilter
     /// <summary>
     /// As <see cref="Apply"/>, but the cleaned series goes into <paramref name="output"/> (as long as
     /// <paramref name="x"/>, not overlapping it) instead of a new array, so a caller with a reusable buffer allocates
-    /// nothing in proportion to the length; returns the replaced indices. On finite samples it takes the loops of
-    /// <see cref="ApplySevenPoint"/> (k = 3) and <see cref="ApplyVectorWindow"/> (any other k), writing each sample
-    /// as it is decided; with NaN/∞ samples it goes through <see cref="Apply"/> and copies.
+    /// nothing in proportion to the length; returns the replaced indices. On finite samples it takes the paths of
+    /// <see cref="ApplySevenPoint"/> (k = 3), <see cref="ApplyTwentyOnePoint"/> (k = 10) and
+    /// <see cref="ApplyVectorWindow"/> (any other k), writing into the buffer; with NaN/∞ samples it goes through
+    /// <see cref="Apply"/> and copies.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static IReadOnlyList<int> ApplyInto(ReadOnlySpan<double> x, Span<double> output, int halfWindow = 3, double sigmaThreshold = 3.0, double scaleFloor = 0.0)
@@ -433,8 +434,22 @@ public static class HampelFilter
         }
 
         Validate(halfWindow, sigmaThreshold, scaleFloor);
+        bool finite = x.Length > 2 * halfWindow && AllFinite(x);
         bool sevenPoint = halfWindow == SevenPointWindow.HalfWindow;
-        if (x.Length <= 2 * halfWindow || !(sevenPoint || Vector.IsHardwareAccelerated) || !AllFinite(x))
+        if (finite && !sevenPoint && halfWindow == TwentyOnePointWindow.HalfWindow && TwentyOnePointWindow.IsAccelerated
+            && x.Length - (2 * halfWindow) >= TwentyOnePointWindow.Lanes)
+        {
+            // As ApplyTwentyOnePoint: the ends by the general sorted window, the middle four centres at a time.
+            x.CopyTo(output);
+            var decided = new List<int>();
+            int ends = halfWindow, count = x.Length;
+            TruncatedEndInto(x, 0, ends, ends, sigmaThreshold, scaleFloor, output, decided);
+            TwentyOnePointWindow.Apply(x, ends, count - ends, sigmaThreshold, scaleFloor, output, decided);
+            TruncatedEndInto(x, count - ends, count, ends, sigmaThreshold, scaleFloor, output, decided);
+            return decided;
+        }
+
+        if (!finite || !(sevenPoint || Vector.IsHardwareAccelerated))
         {
             var result = Apply(x, halfWindow, sigmaThreshold, scaleFloor);
             result.Values.CopyTo(output);
@@ -495,5 +510,19 @@ public static class HampelFilter
         }
 
         return replaced;
+    }
+
+    /// <summary>As <see cref="TruncatedEnd"/>, into a span.</summary>
+    private static void TruncatedEndInto(ReadOnlySpan<double> x, int from, int to, int k, double sigmaThreshold, double scaleFloor, Span<double> output, List<int> replaced)
+    {
+        for (int i = from; i < to; i++)
+        {
+            var (median, mad) = TruncatedWindow(x, i, k);
+            if (IsSpike(x[i], median, mad, sigmaThreshold, scaleFloor))
+            {
+                output[i] = median;
+                replaced.Add(i);
+            }
+        }
     }
 }
