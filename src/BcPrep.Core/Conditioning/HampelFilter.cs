@@ -150,7 +150,7 @@ public static class HampelFilter
     }
 
     /// <summary>The rule for the centres <paramref name="from"/> … <paramref name="to"/> − 1 by the general sorted window.</summary>
-    private static void TruncatedEnd(ReadOnlySpan<double> x, int from, int to, int k, double sigmaThreshold, double scaleFloor, double[] output, List<int> replaced)
+    private static void TruncatedEnd(ReadOnlySpan<double> x, int from, int to, int k, double sigmaThreshold, double scaleFloor, Span<double> output, List<int> replaced)
     {
         for (int i = from; i < to; i++)
         {
@@ -420,9 +420,10 @@ public static class HampelFilter
     /// <summary>
     /// As <see cref="Apply"/>, but the cleaned series goes into <paramref name="output"/> (as long as
     /// <paramref name="x"/>, not overlapping it) instead of a new array, so a caller with a reusable buffer allocates
-    /// nothing in proportion to the length; returns the replaced indices. On finite samples it takes the loops of
-    /// <see cref="ApplySevenPoint"/> (k = 3) and <see cref="ApplyVectorWindow"/> (any other k), writing each sample
-    /// as it is decided; with NaN/∞ samples it goes through <see cref="Apply"/> and copies.
+    /// nothing in proportion to the length; returns the replaced indices. On finite samples it takes the paths of
+    /// <see cref="ApplySevenPoint"/> (k = 3), <see cref="ApplyTwentyOnePoint"/> (k = 10) and
+    /// <see cref="ApplyVectorWindow"/> (any other k), writing into the buffer; with NaN/∞ samples it goes through
+    /// <see cref="Apply"/> and copies.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static IReadOnlyList<int> ApplyInto(ReadOnlySpan<double> x, Span<double> output, int halfWindow = 3, double sigmaThreshold = 3.0, double scaleFloor = 0.0)
@@ -433,8 +434,9 @@ public static class HampelFilter
         }
 
         Validate(halfWindow, sigmaThreshold, scaleFloor);
+        bool finite = x.Length > 2 * halfWindow && AllFinite(x);
         bool sevenPoint = halfWindow == SevenPointWindow.HalfWindow;
-        if (x.Length <= 2 * halfWindow || !(sevenPoint || Vector.IsHardwareAccelerated) || !AllFinite(x))
+        if (!finite || !(sevenPoint || Vector.IsHardwareAccelerated))
         {
             var result = Apply(x, halfWindow, sigmaThreshold, scaleFloor);
             result.Values.CopyTo(output);
@@ -444,6 +446,16 @@ public static class HampelFilter
         int k = halfWindow;
         int n = x.Length;
         var replaced = new List<int>();
+        if (k == TwentyOnePointWindow.HalfWindow && TwentyOnePointWindow.IsAccelerated && n - (2 * k) >= TwentyOnePointWindow.Lanes)
+        {
+            // As ApplyTwentyOnePoint: the kernel writes only the samples it replaces.
+            x.CopyTo(output);
+            TruncatedEnd(x, 0, k, k, sigmaThreshold, scaleFloor, output, replaced);
+            TwentyOnePointWindow.Apply(x, k, n - k, sigmaThreshold, scaleFloor, output, replaced);
+            TruncatedEnd(x, n - k, n, k, sigmaThreshold, scaleFloor, output, replaced);
+            return replaced;
+        }
+
         VectorSortedWindow? window = null;
         for (int i = 0; i < n; i++)
         {
