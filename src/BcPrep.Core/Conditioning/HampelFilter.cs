@@ -150,7 +150,7 @@ public static class HampelFilter
     }
 
     /// <summary>The rule for the centres <paramref name="from"/> … <paramref name="to"/> − 1 by the general sorted window.</summary>
-    private static void TruncatedEnd(ReadOnlySpan<double> x, int from, int to, int k, double sigmaThreshold, double scaleFloor, double[] output, List<int> replaced)
+    private static void TruncatedEnd(ReadOnlySpan<double> x, int from, int to, int k, double sigmaThreshold, double scaleFloor, Span<double> output, List<int> replaced)
     {
         for (int i = from; i < to; i++)
         {
@@ -436,19 +436,6 @@ public static class HampelFilter
         Validate(halfWindow, sigmaThreshold, scaleFloor);
         bool finite = x.Length > 2 * halfWindow && AllFinite(x);
         bool sevenPoint = halfWindow == SevenPointWindow.HalfWindow;
-        if (finite && !sevenPoint && halfWindow == TwentyOnePointWindow.HalfWindow && TwentyOnePointWindow.IsAccelerated
-            && x.Length - (2 * halfWindow) >= TwentyOnePointWindow.Lanes)
-        {
-            // As ApplyTwentyOnePoint: the ends by the general sorted window, the middle four centres at a time.
-            x.CopyTo(output);
-            var decided = new List<int>();
-            int ends = halfWindow, count = x.Length;
-            TruncatedEndInto(x, 0, ends, ends, sigmaThreshold, scaleFloor, output, decided);
-            TwentyOnePointWindow.Apply(x, ends, count - ends, sigmaThreshold, scaleFloor, output, decided);
-            TruncatedEndInto(x, count - ends, count, ends, sigmaThreshold, scaleFloor, output, decided);
-            return decided;
-        }
-
         if (!finite || !(sevenPoint || Vector.IsHardwareAccelerated))
         {
             var result = Apply(x, halfWindow, sigmaThreshold, scaleFloor);
@@ -459,6 +446,16 @@ public static class HampelFilter
         int k = halfWindow;
         int n = x.Length;
         var replaced = new List<int>();
+        if (k == TwentyOnePointWindow.HalfWindow && TwentyOnePointWindow.IsAccelerated && n - (2 * k) >= TwentyOnePointWindow.Lanes)
+        {
+            // As ApplyTwentyOnePoint: the kernel writes only the samples it replaces.
+            x.CopyTo(output);
+            TruncatedEnd(x, 0, k, k, sigmaThreshold, scaleFloor, output, replaced);
+            TwentyOnePointWindow.Apply(x, k, n - k, sigmaThreshold, scaleFloor, output, replaced);
+            TruncatedEnd(x, n - k, n, k, sigmaThreshold, scaleFloor, output, replaced);
+            return replaced;
+        }
+
         VectorSortedWindow? window = null;
         for (int i = 0; i < n; i++)
         {
@@ -510,19 +507,5 @@ public static class HampelFilter
         }
 
         return replaced;
-    }
-
-    /// <summary>As <see cref="TruncatedEnd"/>, into a span.</summary>
-    private static void TruncatedEndInto(ReadOnlySpan<double> x, int from, int to, int k, double sigmaThreshold, double scaleFloor, Span<double> output, List<int> replaced)
-    {
-        for (int i = from; i < to; i++)
-        {
-            var (median, mad) = TruncatedWindow(x, i, k);
-            if (IsSpike(x[i], median, mad, sigmaThreshold, scaleFloor))
-            {
-                output[i] = median;
-                replaced.Add(i);
-            }
-        }
     }
 }

@@ -4,7 +4,7 @@ namespace BcPrep.Tests.Conditioning;
 
 public class HampelApplyIntoTests
 {
-    public static TheoryData<int, bool> Cases() => new() { { 3, false }, { 3, true }, { 10, false }, { 10, true }, { 1, false } };
+    public static TheoryData<int, bool> Cases() => new() { { 3, false }, { 3, true }, { 10, false }, { 10, true }, { 1, false }, { 25, false } };
 
     [Theory]
     [MemberData(nameof(Cases))]
