@@ -48,7 +48,8 @@ public static class GapBridging
     /// <paramref name="maxBridgeS"/> are bridged: NaN cells keep their time stamps, each time jump inside the gap gets
     /// round(Δt/nominal) − 1 evenly spaced new samples, and all of them take the straight line between (t_a, x_a)
     /// and (t_b, x_b). Longer gaps, and missing cells at the record edges (no extrapolation), stay as they are
-    /// (NaN cells stay NaN, jumps stay jumps) and are reported. Cost O(n); one copy of the time steps for the median.
+    /// (NaN cells stay NaN, jumps stay jumps) and are reported. Cost O(n); the median of the steps needs no copy of
+    /// them unless the clock has many distinct steps (see NominalInterval).
     /// </summary>
     /// <exception cref="BcPrepDataException">Lengths differ, fewer than 2 samples, a non-finite or non-increasing
     /// time stamp, or maxBridgeS negative/NaN.</exception>
