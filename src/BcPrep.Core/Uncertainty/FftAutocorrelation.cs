@@ -70,7 +70,9 @@ internal static class FftAutocorrelation
     private static void PowerSpectrumPacked(double[] re, double[] im, int size)
     {
         var half = size / 2;
-        var (cos, sin) = RadixTwoFft.TwiddlesFor(size);
+        var (cosTable, sinTable) = RadixTwoFft.TwiddlesFor(size);
+        var cos = cosTable.Span;
+        var sin = sinTable.Span;
         // k = 0 and k = N/2 both come from Z[0] alone (the twiddle of N/2 is −1).
         var p0 = Power(re[0], im[0], re[0], -im[0], cos[0], -sin[0]);
         var pHalf = Power(re[0], im[0], re[0], -im[0], -1.0, 0.0);

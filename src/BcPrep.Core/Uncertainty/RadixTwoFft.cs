@@ -1,4 +1,3 @@
-using System.Collections.Concurrent;
 using System.Numerics;
 using System.Runtime.CompilerServices;
 
@@ -11,8 +10,11 @@ namespace BcPrep.Uncertainty;
 /// </summary>
 internal static class RadixTwoFft
 {
-    private static readonly ConcurrentDictionary<int, (double[] Cos, double[] Sin)> Twiddles = new();
-    private static readonly ConcurrentDictionary<int, (double[] Cos, double[] Sin)> StageTwiddles = new();
+    private static readonly Lock TableLock = new();
+    private static Table _table = new([0.0], [0.0]);
+
+    /// <summary>One object, so a reader never pairs the cosines of one table with the sines of another.</summary>
+    private sealed record Table(double[] Cos, double[] Sin);
 
     /// <summary>
     /// X[k] = Σ x[j]·exp(∓2πi·jk/n) over the first <paramref name="n"/> elements (a power of two); the minus sign
@@ -95,42 +97,63 @@ internal static class RadixTwoFft
     }
 
     /// <summary>
-    /// The twiddles of every stage, the stage of length L at [L/2, L): entry L/2 + k is cos, sin(2πk/L), taken from
-    /// <see cref="TwiddlesFor"/> at k·n/L so the values are those of the full table. Contiguous per stage, so a
-    /// stage reads them in order (and in vectors) instead of with a stride of n/L.
+    /// The twiddles of every stage, the stage of length L at [L/2, L): entry L/2 + k is cos, sin(2πk/L). Contiguous per
+    /// stage, so a stage reads them in order (and in vectors) instead of with a stride of n/L. One table serves every
+    /// size up to the largest asked for: the stages of a smaller transform are its prefix.
     /// </summary>
-    private static (double[] Cos, double[] Sin) StageTwiddlesFor(int n) => StageTwiddles.GetOrAdd(n, static size =>
+    private static (double[] Cos, double[] Sin) StageTwiddlesFor(int n)
     {
-        var (cos, sin) = TwiddlesFor(size);
-        var stageCos = new double[Math.Max(1, size)];
-        var stageSin = new double[Math.Max(1, size)];
-        for (var length = 2; length <= size; length <<= 1)
+        var table = Volatile.Read(ref _table);
+        return table.Cos.Length >= n ? (table.Cos, table.Sin) : Grow(n);
+    }
+
+    /// <summary>
+    /// cos and sin of 2πk/n for k &lt; n/2: the stage of length n of the one table. A day's windows use a few sizes,
+    /// and one table of the largest holds them all (at 2²¹ points 32 MB, where a table per size and kind held 52 MB
+    /// for the two window lengths of the 1 kHz benchmark day).
+    /// </summary>
+    public static (ReadOnlyMemory<double> Cos, ReadOnlyMemory<double> Sin) TwiddlesFor(int n)
+    {
+        var half = Math.Max(1, n / 2);
+        var (cos, sin) = StageTwiddlesFor(Math.Max(2, n));
+        return (cos.AsMemory(n / 2, half), sin.AsMemory(n / 2, half));
+    }
+
+    /// <summary>
+    /// Builds the table up to <paramref name="n"/> points. The longest stage is computed as 2πk/n; each shorter stage
+    /// takes every other entry of the next: 2π(2k)/(2L) rounds to the same double as 2πk/L, because scaling by a
+    /// power of two is exact, so every entry is the value the expression gives for its own stage length.
+    /// </summary>
+    private static (double[] Cos, double[] Sin) Grow(int n)
+    {
+        lock (TableLock)
         {
-            var half = length >> 1;
-            var stride = size / length;
+            if (_table.Cos.Length >= n)
+            {
+                return (_table.Cos, _table.Sin);
+            }
+            var cos = new double[n];
+            var sin = new double[n];
+            var half = n / 2;
             for (var k = 0; k < half; k++)
             {
-                stageCos[half + k] = cos[k * stride];
-                stageSin[half + k] = sin[k * stride];
+                var angle = 2.0 * Math.PI * k / n;
+                cos[half + k] = Math.Cos(angle);
+                sin[half + k] = Math.Sin(angle);
             }
+            for (var length = half; length >= 2; length >>= 1)
+            {
+                var stageHalf = length >> 1;
+                for (var k = 0; k < stageHalf; k++)
+                {
+                    cos[stageHalf + k] = cos[length + (2 * k)];
+                    sin[stageHalf + k] = sin[length + (2 * k)];
+                }
+            }
+            Volatile.Write(ref _table, new Table(cos, sin));
+            return (cos, sin);
         }
-        return (stageCos, stageSin);
-    });
-
-    /// <summary>cos and sin of 2πk/n for k &lt; n/2, kept per size: the autocorrelation of a day's windows reuses a few sizes.</summary>
-    public static (double[] Cos, double[] Sin) TwiddlesFor(int n) => Twiddles.GetOrAdd(n, static size =>
-    {
-        var count = Math.Max(1, size / 2);
-        var cos = new double[count];
-        var sin = new double[count];
-        for (var k = 0; k < count; k++)
-        {
-            var angle = 2.0 * Math.PI * k / size;
-            cos[k] = Math.Cos(angle);
-            sin[k] = Math.Sin(angle);
-        }
-        return (cos, sin);
-    });
+    }
 
     private static void BitReverse(Span<double> re, Span<double> im, int n)
     {

@@ -32,7 +32,9 @@ internal static class SectionedAutocorrelation
         var sumIm = ThreadScratch.Rent(ScratchSlots.SectionSumImaginary, l + 1);
         Array.Clear(sumRe, 0, l + 1);
         Array.Clear(sumIm, 0, l + 1);
-        var (cos, sin) = RadixTwoFft.TwiddlesFor(2 * l);
+        var (cosTable, sinTable) = RadixTwoFft.TwiddlesFor(2 * l);
+        var cos = cosTable.Span;
+        var sin = sinTable.Span;
         var first = true;
         for (var start = 0; start < n; start += l)
         {
@@ -76,7 +78,7 @@ internal static class SectionedAutocorrelation
     /// X[k] = E[k] + e^(−2πik/2L)·O[k], E = (Z[k] + Z*[L−k])/2, O = (Z[k] − Z*[L−k])/(2i). X[k] and X[L−k] both come
     /// from Z[k] and Z[L−k], so they are written together.
     /// </summary>
-    private static void Unpack(double[] re, double[] im, int l, double[] cos, double[] sin)
+    private static void Unpack(double[] re, double[] im, int l, ReadOnlySpan<double> cos, ReadOnlySpan<double> sin)
     {
         var z0Re = re[0];
         var z0Im = im[0];
@@ -145,7 +147,7 @@ internal static class SectionedAutocorrelation
     /// output is c(2q) + i·c(2q + 1) (times L): Z[k] = E[k] + i·O[k] with E = (C[k] + C*[L−k])/2 and
     /// O = (C[k] − C*[L−k])·e^(+2πik/2L)/2.
     /// </summary>
-    private static void PackHermitian(double[] sumRe, double[] sumIm, double[] re, double[] im, int l, double[] cos, double[] sin)
+    private static void PackHermitian(double[] sumRe, double[] sumIm, double[] re, double[] im, int l, ReadOnlySpan<double> cos, ReadOnlySpan<double> sin)
     {
         for (var k = 0; k < l; k++)
         {

@@ -59,6 +59,28 @@ public class RadixTwoFftTests
 
     // Reference: the same radix-2 transform run stage by stage over the whole array (the form before the short stages
     // ran block by block in cache); every butterfly is the same, so the result must be the same to the bit, both ways.
+    [Fact]
+    public void Every_size_reads_the_twiddles_its_own_expression_gives_to_the_bit_whatever_size_was_built_first()
+    {
+        // One table serves all sizes (its shorter stages are every other entry of the longer ones); each entry must be
+        // exactly cos, sin(2πk/n) computed for that n, so transforms of any size give the bits they gave with a
+        // table per size. Sizes asked small first and large first.
+        foreach (var sizes in new[] { new[] { 8, 64, 1 << 14 }, new[] { 1 << 15, 4, 512 } })
+        {
+            foreach (var n in sizes)
+            {
+                var (cos, sin) = RadixTwoFft.TwiddlesFor(n);
+                Assert.Equal(n / 2, cos.Length);
+                for (var k = 0; k < n / 2; k++)
+                {
+                    var angle = 2.0 * Math.PI * k / n;
+                    Assert.Equal(BitConverter.DoubleToInt64Bits(Math.Cos(angle)), BitConverter.DoubleToInt64Bits(cos.Span[k]));
+                    Assert.Equal(BitConverter.DoubleToInt64Bits(Math.Sin(angle)), BitConverter.DoubleToInt64Bits(sin.Span[k]));
+                }
+            }
+        }
+    }
+
     [Theory]
     [InlineData(8192, false)]
     [InlineData(32768, true)]
@@ -95,7 +117,9 @@ public class RadixTwoFftTests
                 (im[i], im[j]) = (im[j], im[i]);
             }
         }
-        var (cos, sin) = RadixTwoFft.TwiddlesFor(n);
+        var (cosTable, sinTable) = RadixTwoFft.TwiddlesFor(n);
+        var cos = cosTable.ToArray();
+        var sin = sinTable.ToArray();
         var sign = inverse ? 1.0 : -1.0;
         for (var length = 2; length <= n; length <<= 1)
         {
