@@ -27,6 +27,19 @@ internal static class FftAutocorrelation
         {
             throw new ArgumentException($"The output holds {rho.Length} lags, fewer than the window's {n}.", nameof(rho));
         }
+        var (re, im) = UnnormalisedLags(samples, mean);
+        Normalised(re, im, rho[..n]);
+    }
+
+    /// <summary>
+    /// The lag sums before the division by the zero lag: lag k is in re[k/2] for even k and im[k/2] for odd k, in the
+    /// thread's FFT scratch, valid until the thread's next transform. ρ̂(k) is that value divided by the zero lag
+    /// (re[0]), the same bits as <see cref="Compute(ReadOnlySpan{double}, double, Span{double})"/> writes, without an
+    /// array of the window's length for them.
+    /// </summary>
+    public static (double[] Re, double[] Im) UnnormalisedLags(ReadOnlySpan<double> samples, double mean)
+    {
+        var n = samples.Length;
         var size = 2;
         while (size < 2 * n)
         {
@@ -39,7 +52,7 @@ internal static class FftAutocorrelation
         RadixTwoFft.Transform(re, im, half, inverse: false);
         PowerSpectrumPacked(re, im, size);
         RadixTwoFft.Transform(re, im, half, inverse: true);
-        Normalised(re, im, rho[..n]);
+        return (re, im);
     }
 
     private static void Pack(ReadOnlySpan<double> samples, double mean, double[] re, double[] im, int half)

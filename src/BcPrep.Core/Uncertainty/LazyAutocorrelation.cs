@@ -32,6 +32,11 @@ internal sealed class LazyAutocorrelation
     private double[] _rho;
     private int _known;
 
+    // The whole window's lags stay in the FFT's scratch (no array of the window's length): lag k is
+    // (k even ? re[k/2] : im[k/2]) / re[0]. Null until that route is taken; it is the last route (all lags known).
+    private double[]? _wholeRe;
+    private double[]? _wholeIm;
+
     public LazyAutocorrelation(double[] samples, double mean)
         : this(samples, mean, SumOfSquares(samples, mean))
     {
@@ -71,6 +76,10 @@ internal sealed class LazyAutocorrelation
             {
                 Extend(lag);
             }
+            if (_wholeRe is { } re)
+            {
+                return ((lag & 1) == 0 ? re[lag >> 1] : _wholeIm![lag >> 1]) / re[0];
+            }
             return _rho[lag];
         }
     }
@@ -101,8 +110,7 @@ internal sealed class LazyAutocorrelation
         // two or three section transforms cost what the whole window's two do.
         if (block >= PowerOfTwoAtLeast(n) / 2)
         {
-            Grow(n);
-            FftAutocorrelation.Compute(_samples, _mean, _rho);
+            (_wholeRe, _wholeIm) = FftAutocorrelation.UnnormalisedLags(_samples, _mean);
             _known = n;
             LastRoute = AutocorrelationRoute.WholeWindow;
             return;
