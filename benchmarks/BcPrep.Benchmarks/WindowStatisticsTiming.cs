@@ -22,7 +22,8 @@ internal static class WindowStatisticsTiming
 
     public static void Run(int repeats)
     {
-        var settings = new ConditioningSettings(MaxBridgeS: 2.0);
+        // The rig file's defaults (ConditioningSpec.Default): bridge 2 s, Hampel k = 10, 6 σ.
+        var settings = new ConditioningSettings(MaxBridgeS: 2.0, HampelHalfWindow: 10, HampelSigmas: 6.0);
         var limits = new SensorFaultLimits(RailTolerance: 0.001, Resolution: 0.002, PlausibleMin: 0, PlausibleMax: 1000);
         var cases = new (string Name, double[] T, double[] X)[] { Clean(), Dropouts(), LongGap() };
         Console.WriteLine("case       ms/call (min)  ms/call (median)  process CPU ms/call  bytes allocated/call");

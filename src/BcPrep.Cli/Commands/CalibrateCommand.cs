@@ -18,7 +18,7 @@ public static class CalibrateCommand
         var conditioned = new Option<bool>("--conditioned")
         {
             Description = "Condition each channel first, as set in the rig's [conditioning] table: bridge short gaps, replace spikes (Hampel), " +
-                          "mains notch and low-pass (zero phase); streamed in overlapping chunks, so memory does not grow with the day",
+                          "mains notch and low-pass (zero phase); streamed in chunks with the filters' states carried across, so memory does not grow with the day",
         };
         var command = new Command("calibrate", "Write every channel's calibrated SI time series as CSV (or JSON lines with --json) to standard output (tares applied).\n" +
                                                "Example: bcprep calibrate sample-logs/marten-rig.toml sample-logs/*.csv | head")

@@ -48,7 +48,8 @@ public static class GapBridging
     /// <paramref name="maxBridgeS"/> are bridged: NaN cells keep their time stamps, each time jump inside the gap gets
     /// round(Δt/nominal) − 1 evenly spaced new samples, and all of them take the straight line between (t_a, x_a)
     /// and (t_b, x_b). Longer gaps, and missing cells at the record edges (no extrapolation), stay as they are
-    /// (NaN cells stay NaN, jumps stay jumps) and are reported. Cost O(n); one copy of the time steps for the median.
+    /// (NaN cells stay NaN, jumps stay jumps) and are reported. Cost O(n); the median of the steps needs no copy of
+    /// them unless the clock has many distinct steps (see NominalInterval).
     /// </summary>
     /// <exception cref="BcPrepDataException">Lengths differ, fewer than 2 samples, a non-finite or non-increasing
     /// time stamp, or maxBridgeS negative/NaN.</exception>
@@ -116,7 +117,8 @@ public static class GapBridging
     /// <summary>
     /// Writes the bridged series into <paramref name="t"/> and <paramref name="x"/> (at least
     /// <c>values.Length + InsertedSamples</c> long) and, when <paramref name="flag"/> is not empty, marks the
-    /// interpolated samples in it (unmarked ones are left as they are). Returns the bridged length.
+    /// interpolated samples in it (unmarked ones are left as they are). Returns the bridged length. An empty
+    /// <paramref name="t"/> skips the times: without inserted samples they are <paramref name="timesS"/> itself.
     /// </summary>
     internal static int AssembleInto(ReadOnlySpan<double> timesS, ReadOnlySpan<double> values, GapSearch search, Span<double> t, Span<double> x, Span<bool> flag)
     {
@@ -126,7 +128,11 @@ public static class GapBridging
         {
             // The samples up to and including a are kept as they are; then the gap up to b is filled.
             int kept = a + 1 - from;
-            timesS.Slice(from, kept).CopyTo(t[o..]);
+            if (!t.IsEmpty)
+            {
+                timesS.Slice(from, kept).CopyTo(t[o..]);
+            }
+
             values.Slice(from, kept).CopyTo(x[o..]);
             o += kept;
             for (int j = a + 1; j <= b; j++)
@@ -134,8 +140,13 @@ public static class GapBridging
                 int extra = Inserted(timesS[j] - timesS[j - 1], nominal, jumpS);
                 for (int m = 1; m <= extra; m++)
                 {
-                    t[o] = timesS[j - 1] + ((timesS[j] - timesS[j - 1]) * m / (extra + 1));
-                    x[o] = Line(timesS[a], values[a], timesS[b], values[b], t[o]);
+                    double time = timesS[j - 1] + ((timesS[j] - timesS[j - 1]) * m / (extra + 1));
+                    if (!t.IsEmpty)
+                    {
+                        t[o] = time;
+                    }
+
+                    x[o] = Line(timesS[a], values[a], timesS[b], values[b], time);
                     if (!flag.IsEmpty)
                     {
                         flag[o] = true;
@@ -146,7 +157,11 @@ public static class GapBridging
 
                 if (j < b)
                 {
-                    t[o] = timesS[j];
+                    if (!t.IsEmpty)
+                    {
+                        t[o] = timesS[j];
+                    }
+
                     x[o] = Line(timesS[a], values[a], timesS[b], values[b], timesS[j]);
                     if (!flag.IsEmpty)
                     {
@@ -161,7 +176,11 @@ public static class GapBridging
         }
 
         int rest = values.Length - from;
-        timesS.Slice(from, rest).CopyTo(t[o..]);
+        if (!t.IsEmpty)
+        {
+            timesS.Slice(from, rest).CopyTo(t[o..]);
+        }
+
         values.Slice(from, rest).CopyTo(x[o..]);
         return o + rest;
     }

@@ -420,10 +420,10 @@ public static class HampelFilter
     /// <summary>
     /// As <see cref="Apply"/>, but the cleaned series goes into <paramref name="output"/> (as long as
     /// <paramref name="x"/>, not overlapping it) instead of a new array, so a caller with a reusable buffer allocates
-    /// nothing in proportion to the length; returns the replaced indices. On finite samples it takes the loops of
-    /// <see cref="ApplySevenPoint"/> (k = 3), <see cref="ApplyTwentyOnePoint"/> (k = 10) and <see cref="ApplyVectorWindow"/>
-    /// (any other k), writing each sample as it is decided; with NaN/∞ samples it goes through <see cref="Apply"/> and
-    /// copies.
+    /// nothing in proportion to the length; returns the replaced indices. On finite samples it takes the paths of
+    /// <see cref="ApplySevenPoint"/> (k = 3), <see cref="ApplyTwentyOnePoint"/> (k = 10) and
+    /// <see cref="ApplyVectorWindow"/> (any other k), writing into the buffer; with NaN/∞ samples it goes through
+    /// <see cref="Apply"/> and copies.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static IReadOnlyList<int> ApplyInto(ReadOnlySpan<double> x, Span<double> output, int halfWindow = 3, double sigmaThreshold = 3.0, double scaleFloor = 0.0)
@@ -434,8 +434,9 @@ public static class HampelFilter
         }
 
         Validate(halfWindow, sigmaThreshold, scaleFloor);
+        bool finite = x.Length > 2 * halfWindow && AllFinite(x);
         bool sevenPoint = halfWindow == SevenPointWindow.HalfWindow;
-        if (x.Length <= 2 * halfWindow || !(sevenPoint || Vector.IsHardwareAccelerated) || !AllFinite(x))
+        if (!finite || !(sevenPoint || Vector.IsHardwareAccelerated))
         {
             var result = Apply(x, halfWindow, sigmaThreshold, scaleFloor);
             result.Values.CopyTo(output);

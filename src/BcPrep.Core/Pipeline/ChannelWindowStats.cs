@@ -119,14 +119,17 @@ public static class WindowStatistics
             }
             return (t.AsMemory(0, o), x.AsMemory(0, o));
         }
-        length = GapBridging.AssembleInto(timesS, values, search, t, x, []);
+        // NaN cells keep their time stamps, so without inserted samples the times are the given ones.
+        var sameTimes = search.Report.InsertedSamples == 0;
+        length = GapBridging.AssembleInto(timesS, values, search, sameTimes ? [] : t, x, []);
         if (GapBridging.CountNonFinite(x.AsSpan(0, length)) == 0)
         {
-            return (t.AsMemory(0, length), x.AsMemory(0, length));
+            return (sameTimes ? timesS.AsMemory() : t.AsMemory(0, length), x.AsMemory(0, length));
         }
+        var bridgedTimes = sameTimes ? timesS : t;
         for (var i = 0; i < length; i++)
         {
-            t[o] = t[i];
+            t[o] = bridgedTimes[i];
             x[o] = x[i];
             o += double.IsFinite(x[i]) ? 1 : 0;
         }

@@ -6,11 +6,12 @@ namespace BcPrep.Pipeline;
 
 /// <summary>
 /// Conditions calibrated row blocks channel by channel (<see cref="StreamingConditioner"/>, settings from the rig
-/// file) and passes conditioned rows on to another block sink. Rows leave with a delay of about one chunk; call
-/// <see cref="Complete"/> after the last block. A new logger (another channel list) completes the previous one.
-/// Memory per channel: one chunk plus its overlap, whatever the length of the day. A chunk's core is at least
-/// <see cref="CoreOverlaps"/> overlaps long, so the overlaps filtered twice cost half again the samples emitted,
-/// not twice as much (at 1 kHz a 0.5 Hz low-pass settles over about 54 000 samples, nearly a default core).
+/// file; the channels in parallel) and passes conditioned rows on to another block sink. Rows leave with a delay of
+/// about a chunk and each filter section's stretch; call <see cref="Complete"/> after the last block. A new logger
+/// (another channel list) completes the previous one. Memory per channel: a chunk plus its context and a stretch per
+/// filter section, whatever the length of the day. A chunk's core is at least <see cref="CoreOverlaps"/> of its
+/// overlaps long, and a filter section's backward stretch at least that many of its settling lengths (at 1 kHz a
+/// 0.5 Hz low-pass settles over about 27 000 samples), so repeated context costs at most a quarter of the samples emitted.
 /// </summary>
 public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, int coreLength = 65536) : IBlockSink
 {

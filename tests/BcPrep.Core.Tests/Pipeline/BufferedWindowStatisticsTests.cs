@@ -89,6 +89,36 @@ public class BufferedWindowStatisticsTests
         }
     }
 
+    [Theory]
+    [InlineData("jittered")] // many distinct steps: the median comes from the selection on a copy
+    [InlineData("two steps, half each")] // an even count split at the middle: the mean of the two step values
+    [InlineData("two steps, a third short")]
+    [InlineData("one step")]
+    public void The_nominal_interval_is_the_median_step_as_before(string clock)
+    {
+        // Median convention of MathNet's ArrayStatistics.MedianInplace (mean of the two middle values for an even count).
+        var random = new Random(5);
+        var steps = Enumerable.Range(0, 10_000).Select(i => clock switch
+        {
+            "jittered" => 0.001 * (1.0 + (0.01 * random.NextDouble())),
+            "two steps, half each" => i % 2 == 0 ? 0.001 : 0.002,
+            "two steps, a third short" => i % 3 == 0 ? 0.001 : 0.002,
+            _ => 0.5, // exact in binary: every step the same
+        }).ToArray();
+        var t = new double[steps.Length + 1];
+        t[0] = clock == "one step" ? 0.0 : GeneratedWindows.DayStartS;
+        for (var i = 0; i < steps.Length; i++)
+        {
+            t[i + 1] = t[i] + steps[i];
+        }
+        var x = t.Select(_ => 1.0).ToArray();
+
+        var expected = PreviousGapBridging.Bridge(t.AsSpan(), x.AsSpan(), 2.0).Report.NominalIntervalS;
+        var actual = GapBridging.Bridge(t.AsSpan(), x.AsSpan(), 2.0).Report.NominalIntervalS;
+
+        Assert.Equal(BitConverter.DoubleToInt64Bits(expected), BitConverter.DoubleToInt64Bits(actual));
+    }
+
     [Fact]
     public void The_generated_windows_raise_every_kind_of_flag_and_gap()
     {
