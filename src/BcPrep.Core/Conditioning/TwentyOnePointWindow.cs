@@ -11,6 +11,8 @@ namespace BcPrep.Conditioning;
 /// smallest value. The median is the middle vector, the MAD the 11th smallest |s − m|, from the two runs of deviations
 /// on either side of the median. The numbers are the definition's: order statistics are the values themselves, and
 /// each deviation and the rule's products are the same operations as in <see cref="HampelFilter"/>'s scalar code.
+/// (One difference no number sees: a window holding both +0 and −0 may give a zero median of the other sign than the
+/// sliding window would, as compares treat the two as equal; decisions, counts, means and sums are unaffected.)
 /// <para>
 /// Long series: each lane walks its own quarter of the centres, and each step slides its sorted window by one sample
 /// (the leaving value taken out, the entering one put in, by compares and blends over the 21 vectors). Short ones:
