@@ -23,6 +23,9 @@ internal static class ScratchSlots
     /// <summary>A window's de-spiked samples, rented at their exact length (<see cref="ThreadScratch.RentExact"/>).</summary>
     public const int CleanSamples = 12;
 
+    /// <summary>A gathered window's channel, loaded from the kept rows for its reduction (<see cref="Pipeline.GatheredWindow"/>).</summary>
+    public const int LoadedValues = 13;
+
     /// <summary>Number of slots.</summary>
-    public const int Count = 13;
+    public const int Count = 14;
 }

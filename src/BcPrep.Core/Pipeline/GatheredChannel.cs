@@ -52,7 +52,8 @@ internal sealed class GatheredChannel(GatheredWindow window, string name, int in
         }
         catch
         {
-            _kept = samples;
+            // The values are the thread's scratch (GatheredWindow.Load), which its next channel overwrites.
+            _kept = (samples.TimesS, samples.Values.ToArray());
             throw;
         }
         finally

@@ -45,7 +45,10 @@ internal sealed class GatheredWindow
     /// <summary>Samples per channel.</summary>
     public int Count => _count;
 
-    /// <summary>Loads channel <paramref name="channel"/> and the window's times; each channel is loaded once.</summary>
+    /// <summary>
+    /// Loads channel <paramref name="channel"/> and the window's times; each channel is loaded once. The values are
+    /// the calling thread's scratch, valid until its next load: a caller that keeps them copies them.
+    /// </summary>
     internal (double[] TimesS, double[] Values) Load(int channel)
     {
         try
@@ -53,9 +56,12 @@ internal sealed class GatheredWindow
             double[] times;
             lock (_gate)
             {
-                times = _timesS ??= ReadColumn(0);
+                times = _timesS ??= ReadColumn(0, GC.AllocateUninitializedArray<double>(_count));
             }
-            var values = ReadColumn(channel + 1);
+            // The values go into the thread's scratch (the channels of a window have one length, so one array serves
+            // them all): a fresh 8 MB array per channel of a 17-minute window at 1 kHz was large-object garbage that
+            // piled up between full collections. The reduction runs on this thread and keeps no reference to it.
+            var values = ReadColumn(channel + 1, ThreadScratch.RentExact(ScratchSlots.LoadedValues, _count));
             _loaded.Add();
             return (times, values);
         }
@@ -87,13 +93,12 @@ internal sealed class GatheredWindow
         }
     }
 
-    private double[] ReadColumn(int column)
+    private double[] ReadColumn(int column, double[] into)
     {
         if (_count == 0)
         {
             return [];
         }
-        var into = GC.AllocateUninitializedArray<double>(_count);
         var at = 0;
         foreach (var run in _runs)
         {

@@ -132,7 +132,8 @@ internal sealed class RecentRows
         {
             channel.Reduce((times, values) =>
             {
-                onChannel(channel.Name, times, values);
+                // Each channel's own array, as a collector hands over: the loaded values are the thread's scratch.
+                onChannel(channel.Name, times, values.ToArray());
                 return 0;
             });
         }
