@@ -32,7 +32,7 @@ public static class CalibrateCommand
             var writer = new SeriesWriter(TabularOutput.Create(context.Out, parse.GetValue(json)), description);
             var diagnostics = common.DiagnosticsFor(parse, context);
             using var progress = ProgressIndicator.Start(context, diagnostics.Verbosity, "calibrating", inputs.Inputs.Sum(i => File.Exists(i.Path) ? new FileInfo(i.Path).Length : 0));
-            var conditioner = parse.GetValue(conditioned) ? new ConditionedBlockSink(description, writer) : null;
+            var conditioner = parse.GetValue(conditioned) ? new ConditionedBlockSink(description, writer, parallelChannels: true) : null;
             CalibratedSeries.Stream(description, inputs.Inputs, (plan, _) =>
             {
                 writer.Start(plan.Start);

@@ -44,7 +44,9 @@ public static class ProcessCommand
             // Hashing a multi-GB day is a full read. When the outputs cannot be up to date it runs beside the processing
             // from the start: the reading and the window statistics leave gaps on the two cores that it fills (measured
             // in BENCHMARKS.md against starting it after the read).
-            var hashing = mayBeUpToDate ? Task.FromResult(inputs.Fingerprints()) : Task.Run(inputs.Fingerprints);
+            // On its own thread (LongRunning), not the pool's, which the processing's short parallel work needs.
+            var hashing = mayBeUpToDate ? Task.FromResult(inputs.Fingerprints())
+                : Task.Factory.StartNew(inputs.Fingerprints, CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
             if (mayBeUpToDate && ExistingOutputs.IsUpToDate(outDir, Provenance(hashing.Result).Key))
             {
                 OutputFileSet.RemoveStalePartials(outDir, ExistingOutputs.ListedFiles(outDir));

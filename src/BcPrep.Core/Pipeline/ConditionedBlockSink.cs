@@ -6,14 +6,23 @@ namespace BcPrep.Pipeline;
 
 /// <summary>
 /// Conditions calibrated row blocks channel by channel (<see cref="StreamingConditioner"/>, settings from the rig
-/// file; the channels in parallel) and passes conditioned rows on to another block sink. Rows leave with a delay of
+/// file; the channels in parallel when asked) and passes conditioned rows on to another block sink. Rows leave with a delay of
 /// about a chunk and each filter section's stretch; call <see cref="Complete"/> after the last block. A new logger
 /// (another channel list) completes the previous one. Memory per channel: a chunk plus its context and a stretch per
 /// filter section, whatever the length of the day. A chunk's core is at least <see cref="CoreOverlaps"/> of its
 /// overlaps long, and a filter section's backward stretch at least that many of its settling lengths (at 1 kHz a
 /// 0.5 Hz low-pass settles over about 27 000 samples), so repeated context costs at most a quarter of the samples emitted.
 /// </summary>
-public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, int coreLength = 65536) : IBlockSink
+/// <param name="rig">The rig: each channel's conditioning settings.</param>
+/// <param name="inner">Receives the conditioned rows.</param>
+/// <param name="coreLength">Samples of a chunk's core.</param>
+/// <param name="parallelChannels">
+/// Condition the channels of a block on every core: worth it for the full-rate chain of <c>calibrate --conditioned</c>,
+/// which costs more than parsing the day. Off for <c>process</c>, whose chain runs on sub-block means beside the
+/// parser, the window statistics and the hashing: there the cores are busy and the hand-over per block costs more
+/// than the work.
+/// </param>
+public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, int coreLength = 65536, bool parallelChannels = false) : IBlockSink
 {
     /// <summary>A chunk's core is at least this many overlaps long (<see cref="StreamingConditioner"/>).</summary>
     public const int CoreOverlaps = 4;
@@ -43,9 +52,8 @@ public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, i
                 _conditioners[id] = new StreamingConditioner(ChannelConditioningPlan.Settings(rig, spec), coreLength, CoreOverlaps);
             }
         }
-        // Channels are conditioned independently, so on every core: the chain costs more than parsing the day.
         var conditioners = channels.Select(id => _conditioners[id]).ToArray();
-        Parallel.For(0, conditioners.Length, c => conditioners[c].Push(timeS.AsSpan(0, count), valuesSi[c].AsSpan(0, count)));
+        ForEachChannel(conditioners.Length, c => conditioners[c].Push(timeS.AsSpan(0, count), valuesSi[c].AsSpan(0, count)));
         Drain();
     }
 
@@ -57,7 +65,7 @@ public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, i
             return;
         }
         var conditioners = _channels.Select(id => _conditioners[id]).ToArray();
-        Parallel.For(0, conditioners.Length, c => conditioners[c].Complete());
+        ForEachChannel(conditioners.Length, c => conditioners[c].Complete());
         Drain();
         foreach (var id in _channels)
         {
@@ -66,6 +74,20 @@ public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, i
         }
         _conditioners.Clear();
         _channels = null;
+    }
+
+    /// <summary>Channels are conditioned independently: in parallel when asked, else in order on this thread.</summary>
+    private void ForEachChannel(int count, Action<int> condition)
+    {
+        if (parallelChannels)
+        {
+            Parallel.For(0, count, condition);
+            return;
+        }
+        for (var c = 0; c < count; c++)
+        {
+            condition(c);
+        }
     }
 
     /// <summary>Passes on the rows every channel has finished (all channels of a logger share one time axis).</summary>

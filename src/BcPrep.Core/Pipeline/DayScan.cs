@@ -100,7 +100,10 @@ public static class DayScan
         {
             free.Add(new LogBlock(columns.Count, BlockRows));
         }
-        var producer = Task.Run(() =>
+        // Its own thread, not one of the pool's: the read lasts the whole day, and holding a pool thread that long (with
+        // the input hashing on another, on two cores) left the pool none for short parallel work such as the
+        // conditioning's, which then waited about half a second for the pool to add a thread.
+        var producer = Task.Factory.StartNew(() =>
         {
             try
             {
@@ -140,7 +143,7 @@ public static class DayScan
             {
                 filled.CompleteAdding();
             }
-        });
+        }, CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
         try
         {
             foreach (var item in filled.GetConsumingEnumerable())
