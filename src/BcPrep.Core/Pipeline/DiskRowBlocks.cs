@@ -203,9 +203,22 @@ internal sealed class DiskRowBlocks : IRowBlockStore
 
     private BcPrepFailure Failure(string verb, Exception e) =>
         new(FailureKind.Output, new SourceLocation(_directory),
-            $"cannot {verb} the temporary file that keeps the rows of the plateau under way ({e.Message.ReplaceLineEndings(" ")}); " +
+            $"cannot {verb} the temporary file that keeps the rows of the plateau under way ({Reason(e)}); " +
             "make sure this folder exists, is writable and has room (8 bytes × (channels + 1) × rate × seconds of the longest plateau), " +
             "or set TMPDIR to another folder");
+
+    /// <summary>The cause in our words (no framework message reaches the user); the system's error number when unnamed.</summary>
+    private static string Reason(Exception e) => e switch
+    {
+        DirectoryNotFoundException => "the folder does not exist",
+        UnauthorizedAccessException => "permission denied",
+        // ENOSPC, EDQUOT on Linux; ERROR_DISK_FULL, ERROR_HANDLE_DISK_FULL on Windows.
+        IOException { HResult: 28 or 122 or unchecked((int)0x80070070) or unchecked((int)0x80070027) } => "no room left on its file system",
+        IOException { HResult: 30 } => "its file system is read-only",
+        IOException io when io.Message.StartsWith("the file ended", StringComparison.Ordinal) => io.Message,
+        IOException io => string.Create(System.Globalization.CultureInfo.InvariantCulture, $"input/output error, system code {io.HResult}"),
+        _ => "the path is not valid",
+    };
 
     private sealed class Segment(SafeFileHandle handle)
     {
