@@ -170,50 +170,8 @@ public static class HampelFilter
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static HampelResult ApplyVectorWindow(ReadOnlySpan<double> x, int k, double sigmaThreshold, double scaleFloor)
     {
-        int n = x.Length;
-        var output = x.ToArray();
-        var replaced = new List<int>();
-        VectorSortedWindow? window = null;
-        for (int i = 0; i < n; i++)
-        {
-            double median;
-            double mad;
-            if (i < k || i >= n - k)
-            {
-                (median, mad) = TruncatedWindow(x, i, k);
-            }
-            else
-            {
-                if (window is null)
-                {
-                    window = new VectorSortedWindow(x.Slice(i - k, (2 * k) + 1));
-                }
-                else
-                {
-                    window.Slide(x[i - k - 1], x[i + k]);
-                }
-
-                median = window.Median;
-                double radius = Math.Abs(x[i] - median) / (sigmaThreshold * MadToSigma);
-                if (double.IsFinite(radius))
-                {
-                    double wide = WidenedRadius(median, radius);
-                    if (window.CountInside(median - wide, median + wide) <= k)
-                    {
-                        continue; // as in the general path: well inside the window's spread
-                    }
-                }
-
-                mad = SortedMad(window.Sorted, median);
-            }
-
-            if (IsSpike(x[i], median, mad, sigmaThreshold, scaleFloor))
-            {
-                output[i] = median;
-                replaced.Add(i);
-            }
-        }
-
+        var output = new double[x.Length];
+        var replaced = SlidingInto(x, output, k, sevenPoint: false, sigmaThreshold, scaleFloor);
         return new HampelResult(output, replaced);
     }
 
@@ -456,6 +414,19 @@ public static class HampelFilter
             return replaced;
         }
 
+        return SlidingInto(x, output, k, sevenPoint, sigmaThreshold, scaleFloor, replaced);
+    }
+
+    /// <summary>
+    /// Finite samples: every sample into <paramref name="output"/>, full windows by the seven-point network (k = 3) or a
+    /// sliding <see cref="VectorSortedWindow"/>, the truncated ones at the two ends by the general sorted window. Same
+    /// decisions as the general path, step for step; returns the replaced indices.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static List<int> SlidingInto(ReadOnlySpan<double> x, Span<double> output, int k, bool sevenPoint, double sigmaThreshold, double scaleFloor, List<int>? replaced = null)
+    {
+        int n = x.Length;
+        replaced ??= [];
         VectorSortedWindow? window = null;
         for (int i = 0; i < n; i++)
         {
