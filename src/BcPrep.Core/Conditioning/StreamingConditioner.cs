@@ -26,6 +26,10 @@ public sealed class StreamingConditioner
     private readonly List<double> _x = [];
     private int _history;
     private StreamedZeroPhase? _filters;
+    private double[] _bridgedTimes = [];
+    private double[] _bridgedValues = [];
+    private double[] _despiked = [];
+    private bool[] _interpolated = [];
 
     /// <param name="settings">Conditioning settings (validated when the first chunk is conditioned).</param>
     /// <param name="coreLength">Samples emitted per chunk of the gap bridging and Hampel, and per backward stretch of a filter section (≥ 16).</param>
@@ -115,11 +119,28 @@ public sealed class StreamingConditioner
 
     private void ConditionChunk(int end, double emitBeforeS)
     {
-        var gaps = GapBridging.Bridge(CollectionsMarshal.AsSpan(_t)[..end], CollectionsMarshal.AsSpan(_x)[..end], _settings.MaxBridgeS);
-        var hampel = HampelFilter.Apply(gaps.Values, _settings.HampelHalfWindow, _settings.HampelSigmas, _settings.HampelScaleFloor);
-        _filters ??= Filters(gaps.Report.NominalIntervalS);
+        // Bridged and de-spiked into buffers kept from chunk to chunk: a chunk is about a megabyte per series, and
+        // fresh arrays for every chunk of every channel went to the large-object heap faster than it was collected.
+        var t = CollectionsMarshal.AsSpan(_t)[..end];
+        var x = CollectionsMarshal.AsSpan(_x)[..end];
+        var search = GapBridging.Search(t, x, _settings.MaxBridgeS);
+        var n = end + search.Report.InsertedSamples;
+        if (_bridgedTimes.Length < n)
+        {
+            var room = Math.Max(n, _bridgedTimes.Length * 5 / 4);
+            _bridgedTimes = new double[room];
+            _bridgedValues = new double[room];
+            _despiked = new double[room];
+            _interpolated = new bool[room];
+        }
+        var interpolated = _interpolated.AsSpan(0, n);
+        interpolated.Clear();
+        GapBridging.AssembleInto(t, x, search, _bridgedTimes.AsSpan(0, n), _bridgedValues.AsSpan(0, n), interpolated);
+        var despiked = _despiked.AsSpan(0, n);
+        var replaced = HampelFilter.ApplyInto(_bridgedValues.AsSpan(0, n), despiked, _settings.HampelHalfWindow, _settings.HampelSigmas, _settings.HampelScaleFloor);
+        _filters ??= Filters(search.Report.NominalIntervalS);
         var emitFromS = _history > 0 ? _t[_history] : double.NegativeInfinity;
-        var times = gaps.TimesS;
+        ReadOnlySpan<double> times = _bridgedTimes.AsSpan(0, n);
         var from = 0;
         while (from < times.Length && times[from] < emitFromS)
         {
@@ -132,13 +153,13 @@ public sealed class StreamingConditioner
         }
         for (var i = from; i < to; i++)
         {
-            BridgedSamples += gaps.Interpolated[i] ? 1 : 0;
+            BridgedSamples += interpolated[i] ? 1 : 0;
         }
-        foreach (var i in hampel.ReplacedIndices)
+        foreach (var i in replaced)
         {
             SpikesReplaced += i >= from && i < to ? 1 : 0;
         }
-        _filters.Accept(times.AsSpan(from, to - from), hampel.Values.AsSpan(from, to - from));
+        _filters.Accept(times[from..to], despiked[from..to]);
         if (double.IsPositiveInfinity(emitBeforeS))
         {
             return;
