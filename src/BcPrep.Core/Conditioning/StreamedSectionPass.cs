@@ -11,7 +11,7 @@ namespace BcPrep.Conditioning;
 /// first and last <see cref="EdgeLength"/> samples; a segment no longer than that is filtered whole, exactly as
 /// <see cref="ForwardBackwardGustafsson.Apply"/> does.
 /// </summary>
-internal sealed class StreamedSectionPass
+internal sealed partial class StreamedSectionPass
 {
     private readonly SecondOrderSection _s;
     private readonly double[] _b;

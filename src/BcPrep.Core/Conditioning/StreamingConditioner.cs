@@ -30,6 +30,9 @@ public sealed class StreamingConditioner
     private double[] _bridgedValues = [];
     private double[] _despiked = [];
     private bool[] _interpolated = [];
+    private readonly List<double> _pendingTimes = [];
+    private readonly List<double> _pendingValues = [];
+    private readonly List<int> _pieces = [];
 
     /// <param name="settings">Conditioning settings (validated when the first chunk is conditioned).</param>
     /// <param name="coreLength">Samples emitted per chunk of the gap bridging and Hampel, and per backward stretch of a filter section (≥ 16).</param>
@@ -99,6 +102,25 @@ public sealed class StreamingConditioner
     /// <summary>Conditions what is left; call once after the last <see cref="Push"/>.</summary>
     public void Complete()
     {
+        CompleteChunks();
+        AcceptPending();
+        CompleteFilters();
+    }
+
+    /// <summary>
+    /// Leaves the notch and low-pass input of each chunk pending (in order, chunk by chunk) instead of filtering it
+    /// at once, so that <see cref="AcceptPending(IReadOnlyList{StreamingConditioner})"/> can filter several channels
+    /// together. The caller then calls <see cref="CompleteChunks"/>, the pending step and <see cref="CompleteFilters"/>
+    /// in place of <see cref="Complete"/>.
+    /// </summary>
+    internal bool DeferFilters { get; init; }
+
+    /// <summary>Samples filtered in the lanes of a vector together with three other channels (for tests).</summary>
+    internal long SamplesFilteredInLanes => _filters?.SamplesInLanes ?? 0;
+
+    /// <summary>The first part of <see cref="Complete"/>: gap bridging and Hampel on what is left.</summary>
+    internal void CompleteChunks()
+    {
         if (_t.Count - _history > 0)
         {
             if (_filters is null && _t.Count < 2)
@@ -111,10 +133,69 @@ public sealed class StreamingConditioner
                 ConditionChunk(_t.Count, double.PositiveInfinity);
             }
         }
-        _filters?.Complete();
         _t.Clear();
         _x.Clear();
         _history = 0;
+    }
+
+    /// <summary>The last part of <see cref="Complete"/>: the filters end the open segment.</summary>
+    internal void CompleteFilters() => _filters?.Complete();
+
+    /// <summary>Filters the pending chunks (<see cref="DeferFilters"/>) of this channel alone.</summary>
+    internal void AcceptPending()
+    {
+        var offset = 0;
+        foreach (var length in _pieces)
+        {
+            _filters!.Accept(CollectionsMarshal.AsSpan(_pendingTimes).Slice(offset, length), CollectionsMarshal.AsSpan(_pendingValues).Slice(offset, length));
+            offset += length;
+        }
+        ClearPending();
+    }
+
+    /// <summary>
+    /// Filters the pending chunks of channels that share one time axis: four at a time in the lanes of one vector
+    /// when their chunks have the same times (<see cref="StreamedZeroPhase.AcceptLanes"/>), else channel by channel.
+    /// Either way each channel's output is what <see cref="AcceptPending()"/> gives, bit for bit.
+    /// </summary>
+    internal static void AcceptPending(IReadOnlyList<StreamingConditioner> group)
+    {
+        var first = group[0];
+        var together = group.Count == StreamedSectionPass.Lanes && group.All(c => c._filters is not null
+            && c._pieces.Count == first._pieces.Count
+            && CollectionsMarshal.AsSpan(c._pieces).SequenceEqual(CollectionsMarshal.AsSpan(first._pieces))
+            && CollectionsMarshal.AsSpan(c._pendingTimes).SequenceEqual(CollectionsMarshal.AsSpan(first._pendingTimes)));
+        if (!together)
+        {
+            foreach (var c in group)
+            {
+                c.AcceptPending();
+            }
+            return;
+        }
+        var filters = group.Select(c => c._filters!).ToArray();
+        var times = CollectionsMarshal.AsSpan(first._pendingTimes);
+        var v0 = CollectionsMarshal.AsSpan(group[0]._pendingValues);
+        var v1 = CollectionsMarshal.AsSpan(group[1]._pendingValues);
+        var v2 = CollectionsMarshal.AsSpan(group[2]._pendingValues);
+        var v3 = CollectionsMarshal.AsSpan(group[3]._pendingValues);
+        var offset = 0;
+        foreach (var length in first._pieces)
+        {
+            StreamedZeroPhase.AcceptLanes(filters, times.Slice(offset, length), v0.Slice(offset, length), v1.Slice(offset, length), v2.Slice(offset, length), v3.Slice(offset, length));
+            offset += length;
+        }
+        foreach (var c in group)
+        {
+            c.ClearPending();
+        }
+    }
+
+    private void ClearPending()
+    {
+        _pendingTimes.Clear();
+        _pendingValues.Clear();
+        _pieces.Clear();
     }
 
     private void ConditionChunk(int end, double emitBeforeS)
@@ -159,7 +240,16 @@ public sealed class StreamingConditioner
         {
             SpikesReplaced += i >= from && i < to ? 1 : 0;
         }
-        _filters.Accept(times[from..to], despiked[from..to]);
+        if (DeferFilters)
+        {
+            _pendingTimes.AddRange(times[from..to]);
+            _pendingValues.AddRange(despiked[from..to]);
+            _pieces.Add(to - from);
+        }
+        else
+        {
+            _filters.Accept(times[from..to], despiked[from..to]);
+        }
         if (double.IsPositiveInfinity(emitBeforeS))
         {
             return;

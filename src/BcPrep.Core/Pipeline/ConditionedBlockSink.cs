@@ -51,11 +51,12 @@ public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, i
             foreach (var id in channels)
             {
                 var spec = rig.Channel(id) ?? throw new InvalidOperationException($"channel '{id}' is not in the rig description");
-                _conditioners[id] = new StreamingConditioner(ChannelConditioningPlan.Settings(rig, spec), coreLength, CoreOverlaps);
+                _conditioners[id] = new StreamingConditioner(ChannelConditioningPlan.Settings(rig, spec), coreLength, CoreOverlaps) { DeferFilters = parallelChannels };
             }
         }
         var conditioners = channels.Select(id => _conditioners[id]).ToArray();
         ForEachChannel(conditioners.Length, c => conditioners[c].Push(timeS.AsSpan(0, count), valuesSi[c].AsSpan(0, count)));
+        FilterPending(conditioners);
         Drain();
     }
 
@@ -67,7 +68,16 @@ public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, i
             return;
         }
         var conditioners = _channels.Select(id => _conditioners[id]).ToArray();
-        ForEachChannel(conditioners.Length, c => conditioners[c].Complete());
+        if (parallelChannels)
+        {
+            ForEachChannel(conditioners.Length, c => conditioners[c].CompleteChunks());
+            FilterPending(conditioners);
+            ForEachChannel(conditioners.Length, c => conditioners[c].CompleteFilters());
+        }
+        else
+        {
+            ForEachChannel(conditioners.Length, c => conditioners[c].Complete());
+        }
         Drain();
         foreach (var id in _channels)
         {
@@ -76,6 +86,21 @@ public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, i
         }
         _conditioners.Clear();
         _channels = null;
+    }
+
+    /// <summary>
+    /// With the channels in parallel, their notch and low-pass inputs wait (<see cref="StreamingConditioner.DeferFilters"/>)
+    /// and are filtered four channels at a time, in the lanes of one vector (the same values as one at a time).
+    /// </summary>
+    private void FilterPending(StreamingConditioner[] conditioners)
+    {
+        if (!parallelChannels)
+        {
+            return;
+        }
+        var lanes = StreamedSectionPass.Lanes;
+        var groups = (conditioners.Length + lanes - 1) / lanes;
+        Parallel.For(0, groups, g => StreamingConditioner.AcceptPending(conditioners.AsSpan(g * lanes, Math.Min(lanes, conditioners.Length - (g * lanes))).ToArray()));
     }
 
     /// <summary>Channels are conditioned independently: in parallel when asked, else in order on this thread.</summary>
