@@ -53,10 +53,11 @@ internal sealed partial class StreamedSectionPass
             }
             foreach (var lane in lanes)
             {
-                var head = CollectionsMarshal.AsSpan(lane._head);
-                var (forward, _) = ForwardBackwardGustafsson.InitialStates(lane._b, lane._a, head[..lane.EdgeLength]);
-                lane._z0 = forward[0];
-                lane._z1 = forward.Length > 1 ? forward[1] : 0.0;
+                // As Push: the forward state comes from the odd extension before the segment's first sample.
+                var pad = lane.LeftExtension(CollectionsMarshal.AsSpan(lane._head));
+                var (s0, s1) = lane._s.StepState();
+                (lane._z0, lane._z1) = (s0 * pad[0], s1 * pad[0]);
+                lane.FilterForward(pad, pad);
                 lane._started = true;
             }
             ForwardLanes(lanes, CollectionsMarshal.AsSpan(lanes[0]._head), CollectionsMarshal.AsSpan(lanes[1]._head), CollectionsMarshal.AsSpan(lanes[2]._head), CollectionsMarshal.AsSpan(lanes[3]._head));
