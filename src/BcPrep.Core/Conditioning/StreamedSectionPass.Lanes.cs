@@ -64,6 +64,7 @@ internal sealed partial class StreamedSectionPass
             foreach (var lane in lanes)
             {
                 lane._head.Clear();
+                lane._head.Capacity = 0;
             }
         }
         else

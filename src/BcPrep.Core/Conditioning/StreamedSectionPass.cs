@@ -66,7 +66,10 @@ internal sealed partial class StreamedSectionPass
             FilterForward(pad, pad);
             _started = true;
             Forward(head);
+            // The head waits only for a segment's first samples; once they stream, its array (as long as the first
+            // input, up to a stretch of the section before) is not kept for the rest of the day.
             _head.Clear();
+            _head.Capacity = 0;
         }
         else
         {

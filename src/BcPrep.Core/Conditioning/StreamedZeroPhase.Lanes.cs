@@ -112,6 +112,7 @@ internal sealed partial class StreamedZeroPhase
             foreach (var lane in lanes)
             {
                 lane._segmentStart.Clear();
+                lane._segmentStart.Capacity = 0;
             }
         }
     }

@@ -107,6 +107,7 @@ internal sealed partial class StreamedZeroPhase
             _streaming = true;
             _passes[0].Push(CollectionsMarshal.AsSpan(_segmentStart));
             _segmentStart.Clear();
+            _segmentStart.Capacity = 0; // as a section's head: not kept once the segment streams
         }
     }
 
