@@ -5,15 +5,16 @@ public static class ChannelConditioner
 {
     /// <summary>Text written to the manifest for the edge handling of zero-phase filtering.</summary>
     public const string PaddingMethod =
-        "Gustafsson (1996) initial states, section by section (forward-backward equals backward-forward at both ends; no invented samples)";
+        "odd extension about each end sample over the section's settling length (to 1e-14), from its steady state, section by section";
 
     /// <summary>
     /// Gaps are bridged first (<see cref="GapBridging.Bridge(ReadOnlySpan{double}, ReadOnlySpan{double}, double)"/>); Hampel spike removal runs on the result; notch and
     /// low-pass run zero-phase on each gap-free segment separately (NaN cells and unbridged time jumps cut segments),
     /// because filtering across a gap would smear invented values. Sample rate = 1 / nominal interval.
     /// The mains notch is skipped when the mains frequency is not below Nyquist (NotchFrequenciesHz stays empty).
-    /// Edges: Gustafsson's initial states (<see cref="ForwardBackwardGustafsson"/>), applied to one second-order section at a
-    /// time. A cascade of zero-phase sections is zero-phase with gain ∏|Hᵢ|², the gain of forward–backward over the
+    /// Edges: each second-order section in turn runs over an odd extension of the segment (point reflection about the
+    /// end sample) as long as its settling to 1e-14, from its steady state at the extension's first value, or over the
+    /// whole segment reflected when that is shorter (<see cref="EdgePad"/>). A cascade of zero-phase sections is zero-phase with gain ∏|Hᵢ|², the gain of forward–backward over the
     /// whole cascade, and each biquad stays well conditioned where the expanded transfer function of a low cutoff
     /// would not. Segments not longer than the scipy default pad are set to NaN and counted in the report.
     /// </summary>
@@ -54,16 +55,24 @@ public static class ChannelConditioner
         return new ConditionedSeries(gaps.TimesS, x, gaps.Interpolated, report);
     }
 
-    /// <summary>Zero-phase filtering in place, one section after the other, each with Gustafsson's initial states.</summary>
+    /// <summary>Zero-phase filtering in place, one section after the other, each padded by <see cref="EdgePad"/>.</summary>
     internal static void FilterZeroPhase(IReadOnlyList<SecondOrderSection> sections, Span<double> x)
     {
         foreach (var section in sections)
         {
-            double[] b = section.IsFirstOrder ? [section.B0, section.B1] : [section.B0, section.B1, section.B2];
-            double[] a = section.IsFirstOrder ? [1.0, section.A1] : [1.0, section.A1, section.A2];
-            ForwardBackwardGustafsson.Apply(b, a, x).CopyTo(x);
+            ZeroPhaseFilter.ForwardBackwardPadded([section], x, EdgePad(section, x.Length)).CopyTo(x);
         }
     }
+
+    /// <summary>
+    /// The odd extension of one section at a segment's ends: its settling length to <see cref="StreamingConditioner.SeamResidual"/>,
+    /// so that the extension's start no longer shows at the segment, or the whole segment (less its end sample) when shorter.
+    /// Gustafsson's initial states were used before: with a low cutoff or a narrow notch (poles near z = 1) they are
+    /// nearly undetermined, and both that solve and an independent implementation of it left each segment's ends
+    /// ramping up from about 0 instead of starting at the signal's level.
+    /// </summary>
+    internal static int EdgePad(SecondOrderSection section, int segmentLength) =>
+        Math.Min(ZeroPhaseFilter.SettlingPadLength([section], StreamingConditioner.SeamResidual), segmentLength - 1);
 
     private static (int Segments, int Unfiltered) FilterSegments(double[] t, double[] x, List<SecondOrderSection> sections, double jumpS)
     {

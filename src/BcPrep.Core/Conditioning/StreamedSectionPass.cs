@@ -6,16 +6,15 @@ namespace BcPrep.Conditioning;
 /// Zero-phase filtering of one gap-free segment through one second-order section, streamed: the forward pass keeps
 /// its state from sample to sample, so each sample is filtered forward once; the backward pass runs over the
 /// forward output in stretches, each starting <see cref="Overlap"/> samples beyond what it emits from the steady
-/// state of the last forward value, whose error has decayed below the seam residual by then. The states at the
-/// segment's two ends are Gustafsson's (<see cref="ForwardBackwardGustafsson.InitialStates"/>), taken from the
-/// first and last <see cref="EdgeLength"/> samples; a segment no longer than that is filtered whole, exactly as
-/// <see cref="ForwardBackwardGustafsson.Apply"/> does.
+/// state of the last forward value, whose error has decayed below the seam residual by then. At the segment's two
+/// ends the section runs over an odd extension of <see cref="Overlap"/> samples from its steady state, exactly as
+/// <see cref="ZeroPhaseFilter.ForwardBackwardPadded(IReadOnlyList{SecondOrderSection}, ReadOnlySpan{double}, int?)"/>
+/// does with that pad (<see cref="ChannelConditioner.FilterZeroPhase"/>): the forward pass is the same arithmetic
+/// sample for sample. A segment no longer than <see cref="EdgeLength"/> is filtered whole.
 /// </summary>
 internal sealed class StreamedSectionPass
 {
     private readonly SecondOrderSection _s;
-    private readonly double[] _b;
-    private readonly double[] _a;
     private readonly int _core;
     private readonly Action<ReadOnlySpan<double>> _emit;
     private readonly StreamedSectionPass? _next;
@@ -23,6 +22,7 @@ internal sealed class StreamedSectionPass
     private readonly List<double> _forward = [];
     private readonly List<double> _recent = [];
     private double[] _scratch = [];
+    private double[] _pad = [];
     private bool _started;
     private double _z0;
     private double _z1;
@@ -35,10 +35,8 @@ internal sealed class StreamedSectionPass
     public StreamedSectionPass(SecondOrderSection section, int overlap, int core, Action<ReadOnlySpan<double>> emit, StreamedSectionPass? next)
     {
         _s = section;
-        _b = section.IsFirstOrder ? [section.B0, section.B1] : [section.B0, section.B1, section.B2];
-        _a = section.IsFirstOrder ? [1.0, section.A1] : [1.0, section.A1, section.A2];
         Overlap = overlap;
-        EdgeLength = (2 * overlap) + 16;
+        EdgeLength = overlap + 1;
         _core = Math.Max(core, overlap);
         _emit = emit;
         _next = next;
@@ -47,7 +45,7 @@ internal sealed class StreamedSectionPass
     /// <summary>Samples the backward pass runs beyond what it emits.</summary>
     public int Overlap { get; }
 
-    /// <summary>Samples at each end of a segment from which its Gustafsson states are solved (twice the overlap).</summary>
+    /// <summary>Samples a segment needs before it streams: its odd extension reflects <see cref="Overlap"/> of them about the first.</summary>
     public int EdgeLength { get; }
 
     /// <summary>Samples of the open segment, in order.</summary>
@@ -61,9 +59,10 @@ internal sealed class StreamedSectionPass
                 return;
             }
             var head = CollectionsMarshal.AsSpan(_head);
-            var (forward, _) = ForwardBackwardGustafsson.InitialStates(_b, _a, head[..EdgeLength]);
-            _z0 = forward[0];
-            _z1 = forward.Length > 1 ? forward[1] : 0.0;
+            var pad = LeftExtension(head);
+            var (u0, u1) = _s.StepState();
+            (_z0, _z1) = (u0 * pad[0], u1 * pad[0]);
+            FilterForward(pad, pad);
             _started = true;
             Forward(head);
             _head.Clear();
@@ -87,15 +86,19 @@ internal sealed class StreamedSectionPass
         {
             if (_head.Count > 0)
             {
-                _emit(ForwardBackwardGustafsson.Apply(_b, _a, CollectionsMarshal.AsSpan(_head)));
+                _emit(ZeroPhaseFilter.ForwardBackwardPadded([_s], CollectionsMarshal.AsSpan(_head), ChannelConditioner.EdgePad(_s, _head.Count)));
                 _head.Clear();
             }
         }
         else
         {
-            var recent = CollectionsMarshal.AsSpan(_recent);
-            var (_, backward) = ForwardBackwardGustafsson.InitialStates(_b, _a, recent[^EdgeLength..]);
-            Backward(backward[0], backward.Length > 1 ? backward[1] : 0.0, _forward.Count);
+            // The forward pass runs on over the odd extension past the last sample, and the backward pass comes back
+            // over it from the steady state of its last value, as the whole-record filter does.
+            var pad = RightExtension(CollectionsMarshal.AsSpan(_recent));
+            FilterForward(pad, pad);
+            var (u0, u1) = _s.StepState();
+            var (z0, z1) = BackwardState(pad, u0 * pad[^1], u1 * pad[^1]);
+            Backward(z0, z1, _forward.Count);
             _recent.Clear();
             _started = false;
         }
@@ -111,7 +114,12 @@ internal sealed class StreamedSectionPass
         }
         var start = _forward.Count;
         CollectionsMarshal.SetCount(_forward, start + u.Length);
-        var f = CollectionsMarshal.AsSpan(_forward)[start..];
+        FilterForward(u, CollectionsMarshal.AsSpan(_forward)[start..]);
+    }
+
+    /// <summary>Filters forward from the carried state, carrying it on (<paramref name="u"/> and <paramref name="f"/> may be the same span).</summary>
+    private void FilterForward(ReadOnlySpan<double> u, Span<double> f)
+    {
         double b0 = _s.B0, b1 = _s.B1, b2 = _s.B2, a1 = _s.A1, a2 = _s.A2;
         double z0 = _z0, z1 = _z1;
         for (var i = 0; i < u.Length; i++)
@@ -124,6 +132,52 @@ internal sealed class StreamedSectionPass
         }
         _z0 = z0;
         _z1 = z1;
+    }
+
+    /// <summary>The backward pass's state after running from (z0, z1) back over <paramref name="f"/> (its outputs are not needed).</summary>
+    private (double Z0, double Z1) BackwardState(ReadOnlySpan<double> f, double z0, double z1)
+    {
+        double b0 = _s.B0, b1 = _s.B1, b2 = _s.B2, a1 = _s.A1, a2 = _s.A2;
+        for (var i = f.Length - 1; i >= 0; i--)
+        {
+            var x = f[i];
+            var yi = (b0 * x) + z0;
+            z0 = (b1 * x) - (a1 * yi) + z1;
+            z1 = (b2 * x) - (a2 * yi);
+        }
+        return (z0, z1);
+    }
+
+    /// <summary>The <see cref="Overlap"/> samples before the first, reflected about it: 2·x[0] − x[Overlap…1].</summary>
+    private Span<double> LeftExtension(ReadOnlySpan<double> x)
+    {
+        var pad = PadBuffer();
+        for (var i = 0; i < pad.Length; i++)
+        {
+            pad[i] = (2.0 * x[0]) - x[Overlap - i];
+        }
+        return pad;
+    }
+
+    /// <summary>The <see cref="Overlap"/> samples after the last of <paramref name="recent"/>, reflected about it: 2·x[n−1] − x[n−2…n−1−Overlap].</summary>
+    private Span<double> RightExtension(ReadOnlySpan<double> recent)
+    {
+        var pad = PadBuffer();
+        var n = recent.Length;
+        for (var i = 0; i < pad.Length; i++)
+        {
+            pad[i] = (2.0 * recent[n - 1]) - recent[n - 2 - i];
+        }
+        return pad;
+    }
+
+    private Span<double> PadBuffer()
+    {
+        if (_pad.Length != Overlap)
+        {
+            _pad = new double[Overlap];
+        }
+        return _pad;
     }
 
     /// <summary>Backward pass over every forward value held, from the state (z0, z1) at the last; emits the first <paramref name="count"/>.</summary>

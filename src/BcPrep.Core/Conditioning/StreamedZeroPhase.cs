@@ -37,7 +37,7 @@ internal sealed class StreamedZeroPhase
         _passes = new StreamedSectionPass[sections.Count];
         for (var k = sections.Count - 1; k >= 0; k--)
         {
-            var overlap = ZeroPhaseFilter.SettlingPadLength([sections[k]], StreamingConditioner.SeamResidual);
+            var overlap = ChannelConditioner.EdgePad(sections[k], int.MaxValue);
             var next = k + 1 < sections.Count ? _passes[k + 1] : null;
             Action<ReadOnlySpan<double>> emit = next is null ? Emit : next.Push;
             _passes[k] = new StreamedSectionPass(sections[k], overlap, Math.Max(core, coreOverlaps * overlap), emit, next);

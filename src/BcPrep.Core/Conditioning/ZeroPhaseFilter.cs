@@ -6,10 +6,9 @@ namespace BcPrep.Conditioning;
 /// Zero-phase forward–backward filtering with odd-extension padding and steady-state initial conditions
 /// (the padded method; reference values in the tests come from an independent implementation of the same method). The result has magnitude |H|², zero phase and twice
 /// the order; a single-pass −3 dB cutoff becomes −6 dB.
-/// Gustafsson (1996) initial conditions are in <see cref="ForwardBackwardGustafsson"/> (transfer-function form, O(n·m)
-/// memory). The conditioning chain keeps 'pad' on second-order sections: it is well defined for any order and
-/// cutoff, matches independent reference output sample for sample, and its edge error is bounded by the
-/// padding; filter the whole record before cutting windows so that edges stay out of operating-point windows.
+/// The conditioning chain pads each second-order section by its settling length (<see cref="ChannelConditioner.EdgePad"/>):
+/// the scipy default pad (three times the coefficient count) is far shorter than a low cutoff or a narrow notch rings,
+/// and Gustafsson's (1996) initial states are nearly undetermined for such poles (the ends came out near 0).
 /// </summary>
 public static class ZeroPhaseFilter
 {

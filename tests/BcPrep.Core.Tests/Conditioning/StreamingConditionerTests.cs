@@ -183,6 +183,39 @@ public class StreamingConditionerTests
     }
 
     [Fact]
+    public void A_constant_level_is_streamed_unchanged_to_the_ends_of_every_segment()
+    {
+        // Analytic check (unit DC gain of every section): `calibrate --conditioned` wrote 0.36 Pa for a 98 644 Pa
+        // barometer at the first sample and at both ends of every segment when the ends took Gustafsson's states.
+        var t = Enumerable.Range(0, 200_000).Select(i => i / 1000.0).ToArray();
+        var x = Enumerable.Repeat(98644.0, t.Length).ToArray();
+        for (var i = 120_000; i < 120_500; i++)
+        {
+            x[i] = double.NaN; // a dropout longer than the bridge: two segments
+        }
+        var streaming = new StreamingConditioner(new ConditioningSettings(MaxBridgeS: 0.01, LowPassCutoffHz: 0.5, MainsHz: 50.0), coreLength: 5000);
+        for (var start = 0; start < t.Length; start += 4096)
+        {
+            var length = Math.Min(4096, t.Length - start);
+            streaming.Push(t.AsSpan(start, length), x.AsSpan(start, length));
+        }
+        streaming.Complete();
+
+        Assert.Equal(t.Length, streaming.OutputValues.Count);
+        for (var i = 0; i < t.Length; i++)
+        {
+            if (i is >= 120_000 and < 120_500)
+            {
+                Assert.True(double.IsNaN(streaming.OutputValues[i]));
+            }
+            else
+            {
+                Assert.Equal(98644.0, streaming.OutputValues[i], 1e-5); // 1e-10 of the level: the DC gains round
+            }
+        }
+    }
+
+    [Fact]
     public void Mains_notch_is_skipped_when_the_sample_rate_is_too_low()
     {
         var t = Enumerable.Range(0, 400).Select(i => i * 0.5).ToArray();   // 2 Hz: Nyquist 1 Hz

@@ -133,11 +133,18 @@ public class DespikedBlockFeedTests
         foreach (var (channel, c) in channels.Select((id, c) => (id, c)))
         {
             var tolerance = BlockMeanSigma(Sigma(rig.Channels[c]), (int)rateHz, Phi);
+            // With a notch and low-pass the chain runs on 40 ms sub-block means, and a zero-phase filter's output at
+            // the day's ends pivots on the end sub-block (odd extension about the end sample). A spike replaced by its
+            // window's median there differs from the clean sample by the local noise and moves the first and last
+            // blocks by up to a sub-block mean's noise (4.7 times a block mean's at φ = 0.8); a spike left in moves
+            // them further (it moves its sub-block by 25 σ). Every other block keeps the block-mean bound.
+            var edgeTolerance = conditioning.Length > 0 ? BlockMeanSigma(Sigma(rig.Channels[c]), 40, Phi) : tolerance;
             var a = fromClean.Means(channel, fromClean.Length);
             var b = fromSpiked.Means(channel, fromSpiked.Length);
             for (var k = 0; k < a.Length; k++)
             {
-                Assert.True(Math.Abs(a[k] - b[k]) <= tolerance, $"{channel} block {k}: clean {a[k]}, spiked {b[k]}");
+                var bound = k == 0 || k == a.Length - 1 ? edgeTolerance : tolerance;
+                Assert.True(Math.Abs(a[k] - b[k]) <= bound, $"{channel} block {k}: clean {a[k]}, spiked {b[k]}");
             }
         }
     }
