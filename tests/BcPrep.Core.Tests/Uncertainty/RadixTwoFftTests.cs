@@ -82,6 +82,9 @@ public class RadixTwoFftTests
     }
 
     [Theory]
+    [InlineData(2, false)]
+    [InlineData(4, true)]
+    [InlineData(16, false)]
     [InlineData(8192, false)]
     [InlineData(32768, true)]
     public void Cache_blocked_stages_equal_whole_array_stages_to_the_bit(int n, bool inverse)
