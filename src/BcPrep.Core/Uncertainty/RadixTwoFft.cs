@@ -23,11 +23,32 @@ internal static class RadixTwoFft
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void Transform(Span<double> re, Span<double> im, int n, bool inverse)
     {
+        RequireLength(re, im, n);
+        BitReverse(re, im, n);
+        Butterflies(re, im, n, inverse);
+    }
+
+    /// <summary>
+    /// The same transform of an input already at bit-reversed indices (element i at the index of i with its bits
+    /// reversed, as <see cref="BitReverse"/> leaves it): for a caller that writes its input there in one pass.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public static void TransformBitReversed(Span<double> re, Span<double> im, int n, bool inverse)
+    {
+        RequireLength(re, im, n);
+        Butterflies(re, im, n, inverse);
+    }
+
+    private static void RequireLength(Span<double> re, Span<double> im, int n)
+    {
         if (n < 1 || (n & (n - 1)) != 0 || re.Length < n || im.Length < n)
         {
             throw new ArgumentException($"FFT length {n} must be a power of two within the buffers.", nameof(n));
         }
-        BitReverse(re, im, n);
+    }
+
+    private static void Butterflies(Span<double> re, Span<double> im, int n, bool inverse)
+    {
         var (cos, sin) = StageTwiddlesFor(n);
         var sign = inverse ? 1.0 : -1.0;
         // The stages up to CacheBlock points run block by block, each block through all of them while it is in
@@ -243,10 +264,10 @@ internal static class RadixTwoFft
     }
 
     /// <summary>Low and high index bits of a bit-reversal tile: 2³ doubles are one 64-byte cache line.</summary>
-    private const int TileBits = 3;
+    internal const int TileBits = 3;
 
     /// <summary>The lowest <paramref name="bits"/> bits of <paramref name="x"/> in reverse order.</summary>
-    private static int Reverse(int x, int bits)
+    internal static int Reverse(int x, int bits)
     {
         var v = (uint)x;
         v = ((v >> 1) & 0x55555555u) | ((v & 0x55555555u) << 1);
