@@ -8,7 +8,8 @@ namespace BcPrep.Tools.Scorecard;
 /// The detection scorecard: generates varied days with known truth (<see cref="DayRecipe"/>), runs
 /// <c>bcprep process</c> in-process on each with the rig's settings, and prints how the windows compare with the
 /// truth. Usage: dotnet run -c Release --project tools/DetectionScorecard -- [--days 50] [--first-seed 1]
-/// [--steady hand|defaults] [--keep DIR]. The scorecard (Markdown) goes to standard output, one line per day to
+/// [--steady hand|defaults] [--filters] [--keep DIR]. --filters adds the conditioning a 1 kHz day with hum needs
+/// (mains = "50 Hz", lowpass_cutoff = "0.5 Hz"), so detection runs on the filtered series. The scorecard (Markdown) goes to standard output, one line per day to
 /// standard error.
 /// </summary>
 internal static class Program
@@ -26,6 +27,11 @@ internal static class Program
         var root = keep ?? Path.Combine(Path.GetTempPath(), "bcprep-scorecard-" + Environment.ProcessId.ToString(CultureInfo.InvariantCulture));
         Directory.CreateDirectory(root);
         var steadyTable = steady == "hand" ? RigText.HandWrittenSteady : "";
+        var filters = args.Contains("--filters");
+        if (filters)
+        {
+            steadyTable += "\n" + RigText.Filters;
+        }
         var scores = new List<DayScore>();
         for (var seed = firstSeed; seed < firstSeed + days; seed++)
         {
@@ -49,7 +55,7 @@ internal static class Program
         {
             Directory.Delete(root, recursive: true);
         }
-        Console.Out.Write(Card(scores, steady));
+        Console.Out.Write(Card(scores, steady + " [steady] settings" + (filters ? ", notch and low-pass" : "")));
         return 0;
     }
 
@@ -81,7 +87,7 @@ internal static class Program
         var c = CultureInfo.InvariantCulture;
         text.AppendLine(c, $"| measure | target | result |");
         text.AppendLine("|---|---|---|");
-        text.AppendLine(c, $"| days ({steady} [steady] settings) | ≥ 50 | {scores.Count} ({string.Join(", ", scores.GroupBy(s => s.RateHz).OrderBy(g => g.Key).Select(g => $"{g.Count()}× {g.Key} Hz"))}) |");
+        text.AppendLine(c, $"| days ({steady}) | ≥ 50 | {scores.Count} ({string.Join(", ", scores.GroupBy(s => s.RateHz).OrderBy(g => g.Key).Select(g => $"{g.Count()}× {g.Key} Hz"))}) |");
         text.AppendLine(c, $"| points found | 100 % | {found.Count} of {points} ({100.0 * found.Count / Math.Max(1, points):F1} %) |");
         text.AppendLine(c, $"| extra windows | 0 | {scores.Sum(s => s.Extra)} |");
         text.AppendLine(c, $"| days refused | 0 | {refused.Count} |");

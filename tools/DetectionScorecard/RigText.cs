@@ -20,6 +20,13 @@ public static class RigText
         ]
         """;
 
+    /// <summary>The conditioning of a 1 kHz day with mains hum: a 50 Hz notch (with harmonics) and a 0.5 Hz low-pass for detection.</summary>
+    public const string Filters = """
+        [conditioning]
+        mains = "50 Hz"
+        lowpass_cutoff = "0.5 Hz"
+        """;
+
     public static string Build(string steadyTable) => Channels + "\n" + steadyTable + "\n";
 
     private const string Channels = """
