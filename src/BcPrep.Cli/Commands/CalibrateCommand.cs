@@ -84,16 +84,23 @@ public static class CalibrateCommand
             if (output is CsvOutput csv && count >= 2 * RowsPerPart)
             {
                 // Formatting the numbers costs more than parsing them: the block's rows are formatted in parts on
-                // every core, each into its own buffer, and the parts are written in order.
+                // every core, each into its own buffer, and the parts are written in order. A round holds a few parts
+                // per core, so the buffers stay a few megabytes however long the block is (a conditioned block is
+                // about 100 000 rows; one part per 2048 rows of it held about 150 MB of text at once).
                 var parts = (count + RowsPerPart - 1) / RowsPerPart;
-                while (_parts.Count < parts)
+                var perRound = Math.Min(parts, PartsPerCore * Environment.ProcessorCount);
+                while (_parts.Count < perRound)
                 {
                     _parts.Add(csv.Part());
                 }
-                Parallel.For(0, parts, p => WriteRows(_parts[p], slot, timeS, valuesSi, p * RowsPerPart, Math.Min(count, (p + 1) * RowsPerPart)));
-                for (var p = 0; p < parts; p++)
+                for (var first = 0; first < parts; first += perRound)
                 {
-                    csv.Append(_parts[p]);
+                    var round = Math.Min(perRound, parts - first);
+                    Parallel.For(0, round, p => WriteRows(_parts[p], slot, timeS, valuesSi, (first + p) * RowsPerPart, Math.Min(count, (first + p + 1) * RowsPerPart)));
+                    for (var p = 0; p < round; p++)
+                    {
+                        csv.Write(_parts[p]);
+                    }
                 }
             }
             else
@@ -104,6 +111,7 @@ public static class CalibrateCommand
         }
 
         private const int RowsPerPart = 2048;
+        private const int PartsPerCore = 4;
         private readonly List<CsvOutput> _parts = [];
 
         private void WriteRows(TabularOutput rows, int[] slot, double[] timeS, IReadOnlyList<double[]> valuesSi, int from, int to)

@@ -62,15 +62,23 @@ public sealed class CsvOutput(TextWriter output) : TabularOutput
     /// </summary>
     public CsvOutput Part() => new(TextWriter.Null) { _columns = _columns };
 
-    /// <summary>Appends the complete rows of <paramref name="part"/> (see <see cref="Part"/>) and empties it.</summary>
-    public void Append(CsvOutput part)
+    /// <summary>
+    /// Writes what this writer holds, then the complete rows of <paramref name="part"/> (see <see cref="Part"/>),
+    /// straight from the part's buffer, and empties it.
+    /// </summary>
+    public void Write(CsvOutput part)
     {
         ArgumentNullException.ThrowIfNull(part);
         if (part._cell != 0)
         {
             throw new InvalidOperationException("a part ends inside a row");
         }
-        Append(part._text.AsSpan(0, part._length));
+        if (_cell != 0)
+        {
+            throw new InvalidOperationException("a part is written inside a row");
+        }
+        Flush();
+        output.Write(part._text, 0, part._length);
         part._length = 0;
     }
 

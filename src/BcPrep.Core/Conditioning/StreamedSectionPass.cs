@@ -12,7 +12,7 @@ namespace BcPrep.Conditioning;
 /// does with that pad (<see cref="ChannelConditioner.FilterZeroPhase"/>): the forward pass is the same arithmetic
 /// sample for sample. A segment no longer than <see cref="EdgeLength"/> is filtered whole.
 /// </summary>
-internal sealed class StreamedSectionPass
+internal sealed partial class StreamedSectionPass
 {
     private readonly SecondOrderSection _s;
     private readonly int _core;
@@ -20,8 +20,8 @@ internal sealed class StreamedSectionPass
     private readonly StreamedSectionPass? _next;
     private readonly List<double> _head = [];
     private readonly List<double> _forward = [];
-    private readonly List<double> _recent = [];
-    private double[] _scratch = [];
+    private readonly double[] _recent;
+    private long _recentCount;
     private double[] _pad = [];
     private bool _started;
     private double _z0;
@@ -37,6 +37,7 @@ internal sealed class StreamedSectionPass
         _s = section;
         Overlap = overlap;
         EdgeLength = overlap + 1;
+        _recent = new double[EdgeLength];
         _core = Math.Max(core, overlap);
         _emit = emit;
         _next = next;
@@ -94,24 +95,56 @@ internal sealed class StreamedSectionPass
         {
             // The forward pass runs on over the odd extension past the last sample, and the backward pass comes back
             // over it from the steady state of its last value, as the whole-record filter does.
-            var pad = RightExtension(CollectionsMarshal.AsSpan(_recent));
+            var pad = RightExtension(RecentInOrder());
             FilterForward(pad, pad);
             var (u0, u1) = _s.StepState();
             var (z0, z1) = BackwardState(pad, u0 * pad[^1], u1 * pad[^1]);
             Backward(z0, z1, _forward.Count);
-            _recent.Clear();
+            _recentCount = 0;
             _started = false;
         }
         _next?.End();
     }
 
+    /// <summary>
+    /// Keeps the segment's last <see cref="EdgeLength"/> inputs, from which its end extension is reflected, in a ring:
+    /// sample number k (counted from the segment's start) sits at k mod <see cref="EdgeLength"/>.
+    /// </summary>
+    private void Remember(ReadOnlySpan<double> u)
+    {
+        var n = _recent.Length;
+        if (u.Length >= n)
+        {
+            // Only the last n count; placed where the ring would have put them.
+            var start = (int)((_recentCount + u.Length - n) % n);
+            var tail = u[^n..];
+            tail[..(n - start)].CopyTo(_recent.AsSpan(start));
+            tail[(n - start)..].CopyTo(_recent);
+        }
+        else
+        {
+            var start = (int)(_recentCount % n);
+            var first = Math.Min(u.Length, n - start);
+            u[..first].CopyTo(_recent.AsSpan(start));
+            u[first..].CopyTo(_recent);
+        }
+        _recentCount += u.Length;
+    }
+
+    /// <summary>The last <see cref="EdgeLength"/> inputs in time order (at least that many have been seen).</summary>
+    private double[] RecentInOrder()
+    {
+        var n = _recent.Length;
+        var start = (int)(_recentCount % n);
+        var ordered = new double[n];
+        _recent.AsSpan(start).CopyTo(ordered);
+        _recent.AsSpan(0, start).CopyTo(ordered.AsSpan(n - start));
+        return ordered;
+    }
+
     private void Forward(ReadOnlySpan<double> u)
     {
-        _recent.AddRange(u);
-        if (_recent.Count > 4 * EdgeLength)
-        {
-            _recent.RemoveRange(0, _recent.Count - EdgeLength);
-        }
+        Remember(u);
         var start = _forward.Count;
         CollectionsMarshal.SetCount(_forward, start + u.Length);
         FilterForward(u, CollectionsMarshal.AsSpan(_forward)[start..]);
@@ -181,24 +214,24 @@ internal sealed class StreamedSectionPass
     }
 
     /// <summary>Backward pass over every forward value held, from the state (z0, z1) at the last; emits the first <paramref name="count"/>.</summary>
+    /// <remarks>
+    /// The emitted values overwrite the forward values they come from (each is read before it is written); the
+    /// overlap beyond them is run for the state only and keeps its forward values for the next stretch.
+    /// </remarks>
     private void Backward(double z0, double z1, int count)
     {
         var f = CollectionsMarshal.AsSpan(_forward);
-        if (_scratch.Length < f.Length)
-        {
-            _scratch = new double[f.Length];
-        }
-        var y = _scratch.AsSpan(0, f.Length);
+        (z0, z1) = BackwardState(f[count..], z0, z1);
         double b0 = _s.B0, b1 = _s.B1, b2 = _s.B2, a1 = _s.A1, a2 = _s.A2;
-        for (var i = f.Length - 1; i >= 0; i--)
+        for (var i = count - 1; i >= 0; i--)
         {
             var x = f[i];
             var yi = (b0 * x) + z0;
             z0 = (b1 * x) - (a1 * yi) + z1;
             z1 = (b2 * x) - (a2 * yi);
-            y[i] = yi;
+            f[i] = yi;
         }
+        _emit(f[..count]);
         _forward.RemoveRange(0, count);
-        _emit(y[..count]);
     }
 }

@@ -9,7 +9,7 @@ namespace BcPrep.Conditioning;
 /// other (<see cref="StreamedSectionPass"/>), a segment not longer than the default pad set to NaN. Conditioned
 /// samples are appended to the output lists in order, with a delay of about the sections' cores and overlaps.
 /// </summary>
-internal sealed class StreamedZeroPhase
+internal sealed partial class StreamedZeroPhase
 {
     private readonly StreamedSectionPass[] _passes;
     private readonly int _minimumPad;

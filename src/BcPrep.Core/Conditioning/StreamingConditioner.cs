@@ -26,6 +26,13 @@ public sealed class StreamingConditioner
     private readonly List<double> _x = [];
     private int _history;
     private StreamedZeroPhase? _filters;
+    private double[] _bridgedTimes = [];
+    private double[] _bridgedValues = [];
+    private double[] _despiked = [];
+    private bool[] _interpolated = [];
+    private readonly List<double> _pendingTimes = [];
+    private readonly List<double> _pendingValues = [];
+    private readonly List<int> _pieces = [];
 
     /// <param name="settings">Conditioning settings (validated when the first chunk is conditioned).</param>
     /// <param name="coreLength">Samples emitted per chunk of the gap bridging and Hampel, and per backward stretch of a filter section (≥ 16).</param>
@@ -95,6 +102,25 @@ public sealed class StreamingConditioner
     /// <summary>Conditions what is left; call once after the last <see cref="Push"/>.</summary>
     public void Complete()
     {
+        CompleteChunks();
+        AcceptPending();
+        CompleteFilters();
+    }
+
+    /// <summary>
+    /// Leaves the notch and low-pass input of each chunk pending (in order, chunk by chunk) instead of filtering it
+    /// at once, so that <see cref="AcceptPending(IReadOnlyList{StreamingConditioner})"/> can filter several channels
+    /// together. The caller then calls <see cref="CompleteChunks"/>, the pending step and <see cref="CompleteFilters"/>
+    /// in place of <see cref="Complete"/>.
+    /// </summary>
+    internal bool DeferFilters { get; init; }
+
+    /// <summary>Samples filtered in the lanes of a vector together with three other channels (for tests).</summary>
+    internal long SamplesFilteredInLanes => _filters?.SamplesInLanes ?? 0;
+
+    /// <summary>The first part of <see cref="Complete"/>: gap bridging and Hampel on what is left.</summary>
+    internal void CompleteChunks()
+    {
         if (_t.Count - _history > 0)
         {
             if (_filters is null && _t.Count < 2)
@@ -107,19 +133,95 @@ public sealed class StreamingConditioner
                 ConditionChunk(_t.Count, double.PositiveInfinity);
             }
         }
-        _filters?.Complete();
         _t.Clear();
         _x.Clear();
         _history = 0;
     }
 
+    /// <summary>The last part of <see cref="Complete"/>: the filters end the open segment.</summary>
+    internal void CompleteFilters() => _filters?.Complete();
+
+    /// <summary>Filters the pending chunks (<see cref="DeferFilters"/>) of this channel alone.</summary>
+    internal void AcceptPending()
+    {
+        var offset = 0;
+        foreach (var length in _pieces)
+        {
+            _filters!.Accept(CollectionsMarshal.AsSpan(_pendingTimes).Slice(offset, length), CollectionsMarshal.AsSpan(_pendingValues).Slice(offset, length));
+            offset += length;
+        }
+        ClearPending();
+    }
+
+    /// <summary>
+    /// Filters the pending chunks of channels that share one time axis: four at a time in the lanes of one vector
+    /// when their chunks have the same times (<see cref="StreamedZeroPhase.AcceptLanes"/>), else channel by channel.
+    /// Either way each channel's output is what <see cref="AcceptPending()"/> gives, bit for bit.
+    /// </summary>
+    internal static void AcceptPending(IReadOnlyList<StreamingConditioner> group)
+    {
+        var first = group[0];
+        var together = group.Count == StreamedSectionPass.Lanes && group.All(c => c._filters is not null
+            && c._pieces.Count == first._pieces.Count
+            && CollectionsMarshal.AsSpan(c._pieces).SequenceEqual(CollectionsMarshal.AsSpan(first._pieces))
+            && CollectionsMarshal.AsSpan(c._pendingTimes).SequenceEqual(CollectionsMarshal.AsSpan(first._pendingTimes)));
+        if (!together)
+        {
+            foreach (var c in group)
+            {
+                c.AcceptPending();
+            }
+            return;
+        }
+        var filters = group.Select(c => c._filters!).ToArray();
+        var times = CollectionsMarshal.AsSpan(first._pendingTimes);
+        var v0 = CollectionsMarshal.AsSpan(group[0]._pendingValues);
+        var v1 = CollectionsMarshal.AsSpan(group[1]._pendingValues);
+        var v2 = CollectionsMarshal.AsSpan(group[2]._pendingValues);
+        var v3 = CollectionsMarshal.AsSpan(group[3]._pendingValues);
+        var offset = 0;
+        foreach (var length in first._pieces)
+        {
+            StreamedZeroPhase.AcceptLanes(filters, times.Slice(offset, length), v0.Slice(offset, length), v1.Slice(offset, length), v2.Slice(offset, length), v3.Slice(offset, length));
+            offset += length;
+        }
+        foreach (var c in group)
+        {
+            c.ClearPending();
+        }
+    }
+
+    private void ClearPending()
+    {
+        _pendingTimes.Clear();
+        _pendingValues.Clear();
+        _pieces.Clear();
+    }
+
     private void ConditionChunk(int end, double emitBeforeS)
     {
-        var gaps = GapBridging.Bridge(CollectionsMarshal.AsSpan(_t)[..end], CollectionsMarshal.AsSpan(_x)[..end], _settings.MaxBridgeS);
-        var hampel = HampelFilter.Apply(gaps.Values, _settings.HampelHalfWindow, _settings.HampelSigmas, _settings.HampelScaleFloor);
-        _filters ??= Filters(gaps.Report.NominalIntervalS);
+        // Bridged and de-spiked into buffers kept from chunk to chunk: a chunk is about a megabyte per series, and
+        // fresh arrays for every chunk of every channel went to the large-object heap faster than it was collected.
+        var t = CollectionsMarshal.AsSpan(_t)[..end];
+        var x = CollectionsMarshal.AsSpan(_x)[..end];
+        var search = GapBridging.Search(t, x, _settings.MaxBridgeS);
+        var n = end + search.Report.InsertedSamples;
+        if (_bridgedTimes.Length < n)
+        {
+            var room = Math.Max(n, _bridgedTimes.Length * 5 / 4);
+            _bridgedTimes = new double[room];
+            _bridgedValues = new double[room];
+            _despiked = new double[room];
+            _interpolated = new bool[room];
+        }
+        var interpolated = _interpolated.AsSpan(0, n);
+        interpolated.Clear();
+        GapBridging.AssembleInto(t, x, search, _bridgedTimes.AsSpan(0, n), _bridgedValues.AsSpan(0, n), interpolated);
+        var despiked = _despiked.AsSpan(0, n);
+        var replaced = HampelFilter.ApplyInto(_bridgedValues.AsSpan(0, n), despiked, _settings.HampelHalfWindow, _settings.HampelSigmas, _settings.HampelScaleFloor);
+        _filters ??= Filters(search.Report.NominalIntervalS);
         var emitFromS = _history > 0 ? _t[_history] : double.NegativeInfinity;
-        var times = gaps.TimesS;
+        ReadOnlySpan<double> times = _bridgedTimes.AsSpan(0, n);
         var from = 0;
         while (from < times.Length && times[from] < emitFromS)
         {
@@ -132,13 +234,22 @@ public sealed class StreamingConditioner
         }
         for (var i = from; i < to; i++)
         {
-            BridgedSamples += gaps.Interpolated[i] ? 1 : 0;
+            BridgedSamples += interpolated[i] ? 1 : 0;
         }
-        foreach (var i in hampel.ReplacedIndices)
+        foreach (var i in replaced)
         {
             SpikesReplaced += i >= from && i < to ? 1 : 0;
         }
-        _filters.Accept(times.AsSpan(from, to - from), hampel.Values.AsSpan(from, to - from));
+        if (DeferFilters)
+        {
+            _pendingTimes.AddRange(times[from..to]);
+            _pendingValues.AddRange(despiked[from..to]);
+            _pieces.Add(to - from);
+        }
+        else
+        {
+            _filters.Accept(times[from..to], despiked[from..to]);
+        }
         if (double.IsPositiveInfinity(emitBeforeS))
         {
             return;

@@ -71,14 +71,17 @@ public static class WindowStatistics
                 $"channel '{channel}' lost {lostS:F1} s of window '{window.Id}' ({dayStart.Since(window.Start).Value:F1}–{dayStart.Since(window.End).Value:F1} s since the first sample of the day) to {interior.Count} gap(s) longer than the {settings.MaxBridgeS:G} s that may be bridged, the longest {gap.DurationS:F1} s from {dayStart.Since(new LoggerSeconds(gap.StartS)).Value:F1} s; more than {LostFractionLimit:P0} of the window is too little left to stand for it"));
         }
         var (keptTimes, kept) = BridgedFiniteSamples(timesS, values, search, finite);
-        var clean = ThreadScratch.RentExact(ScratchSlots.CleanSamples, kept.Length);
-        var replaced = HampelFilter.ApplyInto(kept.Span, clean, settings.HampelHalfWindow, settings.HampelSigmas, settings.HampelScaleFloor);
-        var faults = SensorFaults.Check(clean, limits, out var min, out var max).Flags;
-        var typeA = WindowMean.Evaluate(clean);
+        // Scratch of the thread's current length or longer (no new array when the next channel keeps a sample more).
+        var clean = ThreadScratch.Rent(ScratchSlots.CleanSamples, kept.Length).AsMemory(0, kept.Length);
+        var replaced = HampelFilter.ApplyInto(kept.Span, clean.Span, settings.HampelHalfWindow, settings.HampelSigmas, settings.HampelScaleFloor);
+        var faults = SensorFaults.Check(clean.Span, limits, out var min, out var max).Flags;
+        // Every time reported is taken before the Type A evaluation: the bridged times and values share their arrays
+        // with its transforms (ScratchSlots.WindowTimes).
         var report = new WindowConditioning(
             [.. gaps.Where(g => g.Bridged)], [.. gaps.Where(g => !g.Bridged && g.AtRecordEdge)],
             SpikeTimes(replaced, keptTimes),
             [.. faults.Select(f => new FaultVerdict(f, FaultSeverity.Warning, f.FirstIndex >= 0 && f.FirstIndex < keptTimes.Length ? keptTimes.Span[f.FirstIndex] : double.NaN))]);
+        var typeA = WindowMean.Evaluate(clean);
         return new ChannelWindowStats(
             channel, window.Id, clean.Length, values.Length - finite, search.Report.InterpolatedSamples,
             replaced.Count, typeA.Mean, typeA.StandardDeviation, min, max, typeA, faults)

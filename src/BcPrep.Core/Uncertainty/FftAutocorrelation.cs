@@ -48,9 +48,12 @@ internal static class FftAutocorrelation
         var half = size / 2;
         var re = ThreadScratch.Rent(ScratchSlots.FftReal, half);
         var im = ThreadScratch.Rent(ScratchSlots.FftImaginary, half);
+        // The long twiddle table is grown to this size before the transforms of half of it, which read it with a
+        // stride, so it is built once at its final size.
+        var twiddles = RadixTwoFft.TwiddlesFor(size);
         PackBitReversed(samples, mean, re, im, half);
         RadixTwoFft.TransformBitReversed(re, im, half, inverse: false);
-        PowerSpectrumPacked(re, im, size);
+        PowerSpectrumPacked(re, im, size, twiddles);
         RadixTwoFft.Transform(re, im, half, inverse: true);
         return (re, im);
     }
@@ -125,16 +128,13 @@ internal static class FftAutocorrelation
     /// lags in its imaginary part: Y[k] = E[k] + i·e^(+2πik/N)·O[k] with E = (P[k] + P[N/2−k])/2 and
     /// O = (P[k] − P[N/2−k])/2. Both steps read only the pair k, N/2 − k, so the pair is done together, in place.
     /// </summary>
-    private static void PowerSpectrumPacked(double[] re, double[] im, int size)
+    private static void PowerSpectrumPacked(double[] re, double[] im, int size, StageTwiddles twiddles)
     {
         var half = size / 2;
-        var (cosTable, sinTable) = RadixTwoFft.TwiddlesFor(size);
-        var cos = cosTable.Span;
-        var sin = sinTable.Span;
         // k = 0 and k = N/2 both come from Z[0] alone (the twiddle of N/2 is −1).
-        var p0 = Power(re[0], im[0], re[0], -im[0], cos[0], -sin[0]);
+        var p0 = Power(re[0], im[0], re[0], -im[0], twiddles.Cos(0), -twiddles.Sin(0));
         var pHalf = Power(re[0], im[0], re[0], -im[0], -1.0, 0.0);
-        (re[0], im[0]) = Packed(p0, pHalf, cos[0], sin[0]);
+        (re[0], im[0]) = Packed(p0, pHalf, twiddles.Cos(0), twiddles.Sin(0));
         for (var k = 1; k <= half / 2; k++)
         {
             var j = half - k;
@@ -142,12 +142,16 @@ internal static class FftAutocorrelation
             var zkIm = im[k];
             var zjRe = re[j];
             var zjIm = im[j];
-            var pk = Power(zkRe, zkIm, zjRe, -zjIm, cos[k], -sin[k]);
-            var pj = Power(zjRe, zjIm, zkRe, -zkIm, cos[j], -sin[j]);
-            (re[k], im[k]) = Packed(pk, pj, cos[k], sin[k]);
+            var cosK = twiddles.Cos(k);
+            var sinK = twiddles.Sin(k);
+            var cosJ = twiddles.Cos(j);
+            var sinJ = twiddles.Sin(j);
+            var pk = Power(zkRe, zkIm, zjRe, -zjIm, cosK, -sinK);
+            var pj = Power(zjRe, zjIm, zkRe, -zkIm, cosJ, -sinJ);
+            (re[k], im[k]) = Packed(pk, pj, cosK, sinK);
             if (j != k)
             {
-                (re[j], im[j]) = Packed(pj, pk, cos[j], sin[j]);
+                (re[j], im[j]) = Packed(pj, pk, cosJ, sinJ);
             }
         }
     }

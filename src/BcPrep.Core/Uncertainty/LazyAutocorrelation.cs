@@ -26,7 +26,7 @@ internal sealed class LazyAutocorrelation
     /// <summary>The shortest section: 1024 lags, so a hum of a few tens of samples averages out of the prediction after one pass.</summary>
     private const int MinimumSection = 1024;
 
-    private readonly double[] _samples;
+    private readonly ReadOnlyMemory<double> _samples;
     private readonly double _sumOfSquares;
     private readonly double _mean;
     private double[] _rho;
@@ -42,10 +42,16 @@ internal sealed class LazyAutocorrelation
     {
     }
 
+    /// <inheritdoc cref="LazyAutocorrelation(ReadOnlyMemory{double}, double, double)"/>
+    public LazyAutocorrelation(double[] samples, double mean, double sumOfSquares)
+        : this(samples.AsMemory(), mean, sumOfSquares)
+    {
+    }
+
     /// <param name="samples">The window.</param>
     /// <param name="mean">Its mean.</param>
     /// <param name="sumOfSquares">Σᵢ (xᵢ − mean)², summed in order (as <see cref="SumOfSquares"/> does), when the caller has it.</param>
-    public LazyAutocorrelation(double[] samples, double mean, double sumOfSquares)
+    public LazyAutocorrelation(ReadOnlyMemory<double> samples, double mean, double sumOfSquares)
     {
         _samples = samples;
         _mean = mean;
@@ -93,7 +99,7 @@ internal sealed class LazyAutocorrelation
             // The direct lags come first even when a far lag is read, so the prediction below has them to go by.
             var end = Math.Min(directLimit, Math.Max(lag + 1, Math.Max(2 * _known, FirstDirectLags)));
             Grow(end);
-            DirectLagSums.Compute(_samples, _mean, _known, end, _rho);
+            DirectLagSums.Compute(_samples.Span, _mean, _known, end, _rho);
             Normalise(_known, end);
             _known = end;
             LastRoute = AutocorrelationRoute.Direct;
@@ -110,13 +116,13 @@ internal sealed class LazyAutocorrelation
         // two or three section transforms cost what the whole window's two do.
         if (block >= PowerOfTwoAtLeast(n) / 2)
         {
-            (_wholeRe, _wholeIm) = FftAutocorrelation.UnnormalisedLags(_samples, _mean);
+            (_wholeRe, _wholeIm) = FftAutocorrelation.UnnormalisedLags(_samples.Span, _mean);
             _known = n;
             LastRoute = AutocorrelationRoute.WholeWindow;
             return;
         }
         Grow(block);
-        SectionedAutocorrelation.Compute(_samples, _mean, block, _known, _rho);
+        SectionedAutocorrelation.Compute(_samples.Span, _mean, block, _known, _rho);
         Normalise(_known, block);
         _known = block;
         LastRoute = AutocorrelationRoute.Sectioned;
@@ -182,7 +188,7 @@ internal sealed class LazyAutocorrelation
     }
 
     /// <summary>Σᵢ (xᵢ − mean)², in order.</summary>
-    internal static double SumOfSquares(double[] samples, double mean)
+    internal static double SumOfSquares(ReadOnlySpan<double> samples, double mean)
     {
         var ss = 0.0;
         for (var i = 0; i < samples.Length; i++)

@@ -8,13 +8,30 @@ namespace BcPrep.Uncertainty;
 /// already run in parallel with other windows, so a transform that spreads itself over the cores (as the general
 /// library's does) only adds contention; this one is about four times cheaper in CPU on a 2¹⁸-point transform.
 /// </summary>
+/// <remarks>
+/// Twiddles: every stage's cos, sin(2πk/L) equals, to the bit, entry k·(N/L) of the longest stage N asked for, because
+/// 2π(mk)/(mL) rounds to the same double as 2πk/L when m is a power of two (scaling by a power of two is exact). So the
+/// process keeps one table of the longest stage (N/2 entries of each) and, for the stages up to
+/// <see cref="ContiguousStages"/>, a small contiguous copy that a stage reads in order and in vectors. A longer stage
+/// reads the long table with a stride, a chunk at a time. The former table held every stage contiguously, twice the
+/// memory (64 MB for the 2²²-point spectrum of a 20-minute window at 1 kHz, now 32 MB), with the same values.
+/// </remarks>
 internal static class RadixTwoFft
 {
-    private static readonly Lock TableLock = new();
-    private static Table _table = new([0.0], [0.0]);
+    /// <summary>Stages up to this length read a contiguous copy of their twiddles (2¹⁶: 1 MB for all of them).</summary>
+    internal const int ContiguousStages = 1 << 16;
 
-    /// <summary>One object, so a reader never pairs the cosines of one table with the sines of another.</summary>
-    private sealed record Table(double[] Cos, double[] Sin);
+    /// <summary>Twiddles a longer stage gathers from the long table at a time (16 kB on the stack, in the first-level cache).</summary>
+    private const int GatherChunk = 1024;
+
+    private static readonly Lock TableLock = new();
+    private static LongStage _long = new([1.0], [0.0], 2);
+
+    /// <summary>Stage L's cos, sin(2πk/L), k &lt; L/2, at [L/2, L), for L ≤ <see cref="ContiguousStages"/>.</summary>
+    private static readonly (double[] Cos, double[] Sin) Contiguous = BuildContiguous();
+
+    /// <summary>cos, sin(2πk/Size) for k &lt; Size/2; one object, so a reader never pairs the cosines of one table with the sines of another.</summary>
+    private sealed record LongStage(double[] Cos, double[] Sin, int Size);
 
     /// <summary>
     /// X[k] = Σ x[j]·exp(∓2πi·jk/n) over the first <paramref name="n"/> elements (a power of two); the minus sign
@@ -24,8 +41,9 @@ internal static class RadixTwoFft
     public static void Transform(Span<double> re, Span<double> im, int n, bool inverse)
     {
         RequireLength(re, im, n);
+        var longStage = n > ContiguousStages ? LongStageFor(n) : null;
         BitReverse(re, im, n);
-        Butterflies(re, im, n, inverse);
+        RunStages(re, im, n, inverse, longStage);
     }
 
     /// <summary>
@@ -36,7 +54,7 @@ internal static class RadixTwoFft
     public static void TransformBitReversed(Span<double> re, Span<double> im, int n, bool inverse)
     {
         RequireLength(re, im, n);
-        Butterflies(re, im, n, inverse);
+        RunStages(re, im, n, inverse, n > ContiguousStages ? LongStageFor(n) : null);
     }
 
     private static void RequireLength(Span<double> re, Span<double> im, int n)
@@ -47,9 +65,10 @@ internal static class RadixTwoFft
         }
     }
 
-    private static void Butterflies(Span<double> re, Span<double> im, int n, bool inverse)
+    /// <summary>Every butterfly stage over an input in bit-reversed order.</summary>
+    private static void RunStages(Span<double> re, Span<double> im, int n, bool inverse, LongStage? longStage)
     {
-        var (cos, sin) = StageTwiddlesFor(n);
+        var (cos, sin) = Contiguous;
         var sign = inverse ? 1.0 : -1.0;
         // The stages up to CacheBlock points run block by block, each block through all of them while it is in
         // cache; only the longer stages sweep the whole array. Every butterfly is the same as stage by stage over
@@ -59,7 +78,11 @@ internal static class RadixTwoFft
         {
             Stages(re.Slice(start, block), im.Slice(start, block), 2, block, cos, sin, sign);
         }
-        Stages(re[..n], im[..n], 2 * block, n, cos, sin, sign);
+        Stages(re[..n], im[..n], 2 * block, Math.Min(n, ContiguousStages), cos, sin, sign);
+        if (longStage is not null)
+        {
+            LongStages(re[..n], im[..n], 2 * ContiguousStages, n, longStage, sign);
+        }
     }
 
     /// <summary>Points whose stages run together: 2¹² complex points are 64 kB, within the second-level cache.</summary>
@@ -153,62 +176,153 @@ internal static class RadixTwoFft
     }
 
     /// <summary>
-    /// The twiddles of every stage, the stage of length L at [L/2, L): entry L/2 + k is cos, sin(2πk/L). Contiguous per
-    /// stage, so a stage reads them in order (and in vectors) instead of with a stride of n/L. One table serves every
-    /// size up to the largest asked for: the stages of a smaller transform are its prefix.
+    /// The stages longer than <see cref="ContiguousStages"/>: their twiddles are every (Size/L)-th entry of the long
+    /// table, gathered a chunk at a time into the stack and applied to that chunk of every group of the stage. The
+    /// butterflies and their twiddles are those of <see cref="Stages"/>, only visited chunk by chunk.
     /// </summary>
-    private static (double[] Cos, double[] Sin) StageTwiddlesFor(int n)
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static void LongStages(Span<double> re, Span<double> im, int fromLength, int toLength, LongStage table, double sign)
     {
-        var table = Volatile.Read(ref _table);
-        return table.Cos.Length >= n ? (table.Cos, table.Sin) : Grow(n);
+        var n = re.Length;
+        Span<double> wCos = stackalloc double[GatherChunk];
+        Span<double> wSin = stackalloc double[GatherChunk];
+        var cos = table.Cos;
+        var sin = table.Sin;
+        for (var length = fromLength; length <= toLength; length <<= 1)
+        {
+            var half = length >> 1;
+            var stride = table.Size / length;
+            for (var from = 0; from < half; from += GatherChunk)
+            {
+                var count = Math.Min(GatherChunk, half - from);
+                for (int i = 0, j = from * stride; i < count; i++, j += stride)
+                {
+                    wCos[i] = cos[j];
+                    wSin[i] = sin[j];
+                }
+                for (var start = 0; start < n; start += length)
+                {
+                    Butterflies(re.Slice(start + from, count), im.Slice(start + from, count), re.Slice(start + half + from, count), im.Slice(start + half + from, count), wCos[..count], wSin[..count], sign);
+                }
+            }
+        }
+    }
+
+    /// <summary>a, b ← a + w·b, a − w·b for each k, with w = cos + i·sign·sin: the butterfly of <see cref="Stages"/>.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static void Butterflies(Span<double> aRe, Span<double> aIm, Span<double> bRe, Span<double> bIm, ReadOnlySpan<double> wCos, ReadOnlySpan<double> wSin, double sign)
+    {
+        var half = aRe.Length;
+        var k = 0;
+        if (Vector.IsHardwareAccelerated && half >= Vector<double>.Count)
+        {
+            var signs = new Vector<double>(sign);
+            for (; k <= half - Vector<double>.Count; k += Vector<double>.Count)
+            {
+                var wr = new Vector<double>(wCos[k..]);
+                var wi = signs * new Vector<double>(wSin[k..]);
+                var xr = new Vector<double>(bRe[k..]);
+                var xi = new Vector<double>(bIm[k..]);
+                var tr = (xr * wr) - (xi * wi);
+                var ti = (xr * wi) + (xi * wr);
+                var ar = new Vector<double>(aRe[k..]);
+                var ai = new Vector<double>(aIm[k..]);
+                (ar - tr).CopyTo(bRe[k..]);
+                (ai - ti).CopyTo(bIm[k..]);
+                (ar + tr).CopyTo(aRe[k..]);
+                (ai + ti).CopyTo(aIm[k..]);
+            }
+        }
+        for (; k < half; k++)
+        {
+            var wr = wCos[k];
+            var wi = sign * wSin[k];
+            var tr = (bRe[k] * wr) - (bIm[k] * wi);
+            var ti = (bRe[k] * wi) + (bIm[k] * wr);
+            bRe[k] = aRe[k] - tr;
+            bIm[k] = aIm[k] - ti;
+            aRe[k] += tr;
+            aIm[k] += ti;
+        }
     }
 
     /// <summary>
-    /// cos and sin of 2πk/n for k &lt; n/2: the stage of length n of the one table. A day's windows use a few sizes,
-    /// and one table of the largest holds them all (at 2²¹ points 32 MB, where a table per size and kind held 52 MB
-    /// for the two window lengths of the 1 kHz benchmark day).
+    /// cos and sin of 2πk/n for k &lt; n/2 (n a power of two): the stage of length n, read in place from the contiguous
+    /// copy or the long table, never copied. The long table grows to the largest n asked for and serves every
+    /// smaller one with a stride: a day's windows use a few sizes, and at 2²² points it holds 32 MB.
     /// </summary>
-    public static (ReadOnlyMemory<double> Cos, ReadOnlyMemory<double> Sin) TwiddlesFor(int n)
+    public static StageTwiddles TwiddlesFor(int n)
     {
-        var half = Math.Max(1, n / 2);
-        var (cos, sin) = StageTwiddlesFor(Math.Max(2, n));
-        return (cos.AsMemory(n / 2, half), sin.AsMemory(n / 2, half));
+        if (n < 1 || (n & (n - 1)) != 0)
+        {
+            throw new ArgumentException($"Twiddle stage length {n} must be a power of two.", nameof(n));
+        }
+        if (n <= ContiguousStages)
+        {
+            return new StageTwiddles(Contiguous.Cos, Contiguous.Sin, n / 2, 1, Math.Max(1, n / 2));
+        }
+        var table = LongStageFor(n);
+        return new StageTwiddles(table.Cos, table.Sin, 0, table.Size / n, n / 2);
     }
 
-    /// <summary>
-    /// Builds the table up to <paramref name="n"/> points. The longest stage is computed as 2πk/n; each shorter stage
-    /// takes every other entry of the next: 2π(2k)/(2L) rounds to the same double as 2πk/L, because scaling by a
-    /// power of two is exact, so every entry is the value the expression gives for its own stage length.
-    /// </summary>
-    private static (double[] Cos, double[] Sin) Grow(int n)
+    private static LongStage LongStageFor(int n)
+    {
+        var table = Volatile.Read(ref _long);
+        return table.Size >= n ? table : Grow(n);
+    }
+
+    /// <summary>The long table at <paramref name="n"/> points, 2πk/n for k &lt; n/2, as the expression gives it.</summary>
+    private static LongStage Grow(int n)
     {
         lock (TableLock)
         {
-            if (_table.Cos.Length >= n)
+            if (_long.Size >= n)
             {
-                return (_table.Cos, _table.Sin);
+                return _long;
             }
-            var cos = new double[n];
-            var sin = new double[n];
-            var half = n / 2;
-            for (var k = 0; k < half; k++)
-            {
-                var angle = 2.0 * Math.PI * k / n;
-                cos[half + k] = Math.Cos(angle);
-                sin[half + k] = Math.Sin(angle);
-            }
-            for (var length = half; length >= 2; length >>= 1)
-            {
-                var stageHalf = length >> 1;
-                for (var k = 0; k < stageHalf; k++)
-                {
-                    cos[stageHalf + k] = cos[length + (2 * k)];
-                    sin[stageHalf + k] = sin[length + (2 * k)];
-                }
-            }
-            Volatile.Write(ref _table, new Table(cos, sin));
-            return (cos, sin);
+            var (cos, sin) = StageOf(n);
+            var table = new LongStage(cos, sin, n);
+            Volatile.Write(ref _long, table);
+            return table;
         }
+    }
+
+    private static (double[] Cos, double[] Sin) StageOf(int n)
+    {
+        var half = n / 2;
+        var cos = new double[half];
+        var sin = new double[half];
+        for (var k = 0; k < half; k++)
+        {
+            var angle = 2.0 * Math.PI * k / n;
+            cos[k] = Math.Cos(angle);
+            sin[k] = Math.Sin(angle);
+        }
+        return (cos, sin);
+    }
+
+    /// <summary>
+    /// The stages up to <see cref="ContiguousStages"/>, stage L at [L/2, L): the longest computed as 2πk/L, each shorter
+    /// one every other entry of the next (the same doubles the expression gives for its own length, see the remarks).
+    /// </summary>
+    private static (double[] Cos, double[] Sin) BuildContiguous()
+    {
+        var n = ContiguousStages;
+        var (longCos, longSin) = StageOf(n);
+        var cos = new double[n];
+        var sin = new double[n];
+        longCos.CopyTo(cos, n / 2);
+        longSin.CopyTo(sin, n / 2);
+        for (var length = n / 2; length >= 2; length >>= 1)
+        {
+            var stageHalf = length >> 1;
+            for (var k = 0; k < stageHalf; k++)
+            {
+                cos[stageHalf + k] = cos[length + (2 * k)];
+                sin[stageHalf + k] = sin[length + (2 * k)];
+            }
+        }
+        return (cos, sin);
     }
 
     /// <summary>

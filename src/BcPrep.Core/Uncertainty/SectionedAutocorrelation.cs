@@ -32,21 +32,19 @@ internal static class SectionedAutocorrelation
         var sumIm = ThreadScratch.Rent(ScratchSlots.SectionSumImaginary, l + 1);
         Array.Clear(sumRe, 0, l + 1);
         Array.Clear(sumIm, 0, l + 1);
-        var (cosTable, sinTable) = RadixTwoFft.TwiddlesFor(2 * l);
-        var cos = cosTable.Span;
-        var sin = sinTable.Span;
+        var twiddles = RadixTwoFft.TwiddlesFor(2 * l);
         var first = true;
         for (var start = 0; start < n; start += l)
         {
             Pack(samples.Slice(start, Math.Min(l, n - start)), mean, re, im, l);
             RadixTwoFft.Transform(re, im, l, inverse: false);
-            Unpack(re, im, l, cos, sin);
+            Unpack(re, im, l, twiddles);
             Accumulate(re, im, previousRe, previousIm, sumRe, sumIm, l, first);
             (re, previousRe) = (previousRe, re);
             (im, previousIm) = (previousIm, im);
             first = false;
         }
-        PackHermitian(sumRe, sumIm, re, im, l, cos, sin);
+        PackHermitian(sumRe, sumIm, re, im, l, twiddles);
         RadixTwoFft.Transform(re, im, l, inverse: true);
         // z = IDFT_L(E + iO) holds L·r(2q) + i·L·r(2q + 1); L is a power of two, so the division is exact.
         var scale = 1.0 / l;
@@ -78,7 +76,7 @@ internal static class SectionedAutocorrelation
     /// X[k] = E[k] + e^(−2πik/2L)·O[k], E = (Z[k] + Z*[L−k])/2, O = (Z[k] − Z*[L−k])/(2i). X[k] and X[L−k] both come
     /// from Z[k] and Z[L−k], so they are written together.
     /// </summary>
-    private static void Unpack(double[] re, double[] im, int l, ReadOnlySpan<double> cos, ReadOnlySpan<double> sin)
+    private static void Unpack(double[] re, double[] im, int l, StageTwiddles twiddles)
     {
         var z0Re = re[0];
         var z0Im = im[0];
@@ -94,10 +92,10 @@ internal static class SectionedAutocorrelation
             var aIm = im[k];
             var bRe = re[j];
             var bIm = im[j];
-            (re[k], im[k]) = Half(aRe, aIm, bRe, bIm, cos[k], sin[k]);
+            (re[k], im[k]) = Half(aRe, aIm, bRe, bIm, twiddles.Cos(k), twiddles.Sin(k));
             if (j != k)
             {
-                (re[j], im[j]) = Half(bRe, bIm, aRe, aIm, cos[j], sin[j]);
+                (re[j], im[j]) = Half(bRe, bIm, aRe, aIm, twiddles.Cos(j), twiddles.Sin(j));
             }
         }
     }
@@ -147,7 +145,7 @@ internal static class SectionedAutocorrelation
     /// output is c(2q) + i·c(2q + 1) (times L): Z[k] = E[k] + i·O[k] with E = (C[k] + C*[L−k])/2 and
     /// O = (C[k] − C*[L−k])·e^(+2πik/2L)/2.
     /// </summary>
-    private static void PackHermitian(double[] sumRe, double[] sumIm, double[] re, double[] im, int l, ReadOnlySpan<double> cos, ReadOnlySpan<double> sin)
+    private static void PackHermitian(double[] sumRe, double[] sumIm, double[] re, double[] im, int l, StageTwiddles twiddles)
     {
         for (var k = 0; k < l; k++)
         {
@@ -159,8 +157,10 @@ internal static class SectionedAutocorrelation
             var evenIm = 0.5 * (ci + di);
             var tr = 0.5 * (cr - dr);
             var ti = 0.5 * (ci - di);
-            var oddRe = (tr * cos[k]) - (ti * sin[k]);
-            var oddIm = (tr * sin[k]) + (ti * cos[k]);
+            var cos = twiddles.Cos(k);
+            var sin = twiddles.Sin(k);
+            var oddRe = (tr * cos) - (ti * sin);
+            var oddIm = (tr * sin) + (ti * cos);
             re[k] = evenRe - oddIm;
             im[k] = evenIm + oddRe;
         }

@@ -26,6 +26,15 @@ public static class WindowMean
     public static WindowMeanResult Evaluate(double[] samples, WindowMeanOptions? options = null)
     {
         ArgumentNullException.ThrowIfNull(samples);
+        return Evaluate(samples.AsMemory(), options);
+    }
+
+    /// <summary>
+    /// As <see cref="Evaluate(double[], WindowMeanOptions?)"/>, over a part of an array (a statistics thread's scratch,
+    /// which may be longer than the window).
+    /// </summary>
+    public static WindowMeanResult Evaluate(ReadOnlyMemory<double> samples, WindowMeanOptions? options = null)
+    {
         options ??= WindowMeanOptions.Default;
         var n = samples.Length;
         if (n < 3)
@@ -39,7 +48,7 @@ public static class WindowMean
             throw new BcPrepDataException($"Sokal window factor {options.SokalFactor} must be > 0.");
         }
 
-        var (mean, s, sumOfSquares, isConstant) = MeanAndStandardDeviation(samples);
+        var (mean, s, sumOfSquares, isConstant) = MeanAndStandardDeviation(samples.Span);
         var naive = s / Math.Sqrt(n);
         if (isConstant)
         {
@@ -65,7 +74,7 @@ public static class WindowMean
     }
 
     /// <summary>x̄, s and Σ(xᵢ − x̄)² (the autocorrelation's denominator, summed once for both).</summary>
-    private static (double Mean, double StandardDeviation, double SumOfSquares, bool IsConstant) MeanAndStandardDeviation(double[] x)
+    private static (double Mean, double StandardDeviation, double SumOfSquares, bool IsConstant) MeanAndStandardDeviation(ReadOnlySpan<double> x)
     {
         var min = double.PositiveInfinity;
         var max = double.NegativeInfinity;

@@ -124,7 +124,7 @@ public sealed class CsvOutputTests
         });
         foreach (var part in parts)
         {
-            csv.Append(part);
+            csv.Write(part);
         }
         csv.Flush();
         Assert.Equal(direct.ToString(), inParts.ToString());

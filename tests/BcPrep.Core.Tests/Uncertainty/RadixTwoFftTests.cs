@@ -57,36 +57,58 @@ public class RadixTwoFftTests
         Assert.Throws<ArgumentException>(() => RadixTwoFft.Transform(buffer, buffer.ToArray(), n, inverse: false));
     }
 
-    // Reference: the same radix-2 transform run stage by stage over the whole array (the form before the short stages
-    // ran block by block in cache); every butterfly is the same, so the result must be the same to the bit, both ways.
+    // Reference: the twiddle's definition, cos and sin of 2πk/n computed by Math.Cos and Math.Sin for that n. The tables
+    // keep the longest stage once (and a contiguous copy of the stages up to ContiguousStages); each entry read must be
+    // exactly that double, whatever size was built first, so transforms give the bits they gave with a table per size.
     [Fact]
     public void Every_size_reads_the_twiddles_its_own_expression_gives_to_the_bit_whatever_size_was_built_first()
     {
-        // One table serves all sizes (its shorter stages are every other entry of the longer ones); each entry must be
-        // exactly cos, sin(2πk/n) computed for that n, so transforms of any size give the bits they gave with a
-        // table per size. Sizes asked small first and large first.
-        foreach (var sizes in new[] { new[] { 8, 64, 1 << 14 }, new[] { 1 << 15, 4, 512 } })
+        // Sizes asked small first and large first, on both sides of the contiguous limit (2¹⁶), and a long-table size
+        // read after a longer one was built (a stride of 4).
+        foreach (var sizes in new[] { new[] { 8, 64, 1 << 14, 1 << 17 }, new[] { 1 << 19, 1 << 15, 4, 512, 1 << 17, 1 << 16 } })
         {
             foreach (var n in sizes)
             {
-                var (cos, sin) = RadixTwoFft.TwiddlesFor(n);
-                Assert.Equal(n / 2, cos.Length);
+                var twiddles = RadixTwoFft.TwiddlesFor(n);
+                Assert.Equal(n / 2, twiddles.Count);
                 for (var k = 0; k < n / 2; k++)
                 {
                     var angle = 2.0 * Math.PI * k / n;
-                    Assert.Equal(BitConverter.DoubleToInt64Bits(Math.Cos(angle)), BitConverter.DoubleToInt64Bits(cos.Span[k]));
-                    Assert.Equal(BitConverter.DoubleToInt64Bits(Math.Sin(angle)), BitConverter.DoubleToInt64Bits(sin.Span[k]));
+                    Assert.Equal(BitConverter.DoubleToInt64Bits(Math.Cos(angle)), BitConverter.DoubleToInt64Bits(twiddles.Cos(k)));
+                    Assert.Equal(BitConverter.DoubleToInt64Bits(Math.Sin(angle)), BitConverter.DoubleToInt64Bits(twiddles.Sin(k)));
                 }
             }
         }
     }
 
+    // Reference: handbook values of sine and cosine: at 1/8 of a turn cos = sin = √2/2, at a quarter turn cos = 0 and
+    // sin = 1, read from the contiguous copy (8 points) and the long table (2¹⁸ points).
+    [Fact]
+    public void Known_twiddles_are_the_handbook_values()
+    {
+        var eight = RadixTwoFft.TwiddlesFor(8);
+        Assert.Equal(1.0, eight.Cos(0));
+        Assert.Equal(0.0, eight.Sin(0));
+        Assert.Equal(Math.Sqrt(0.5), eight.Cos(1), 3e-16);
+        Assert.Equal(Math.Sqrt(0.5), eight.Sin(1), 3e-16);
+        Assert.Equal(0.0, eight.Cos(2), 1e-16);
+        Assert.Equal(1.0, eight.Sin(2));
+        var longStage = RadixTwoFft.TwiddlesFor(1 << 18);
+        Assert.Equal(0.0, longStage.Cos(1 << 16), 1e-16);
+        Assert.Equal(1.0, longStage.Sin(1 << 16));
+        Assert.Equal(Math.Sqrt(0.5), longStage.Cos(1 << 15), 3e-16);
+    }
+
+    // The long stages (past 2¹⁶) read their twiddles from the long table with a stride, a chunk at a time: the sizes
+    // 2¹⁷ and 2¹⁸ cover one and two such stages, both ways.
     [Theory]
     [InlineData(2, false)]
     [InlineData(4, true)]
     [InlineData(16, false)]
     [InlineData(8192, false)]
     [InlineData(32768, true)]
+    [InlineData(1 << 17, false)]
+    [InlineData(1 << 18, true)]
     public void Cache_blocked_stages_equal_whole_array_stages_to_the_bit(int n, bool inverse)
     {
         var random = new Random(n);
@@ -133,7 +155,7 @@ public class RadixTwoFftTests
         }
     }
 
-    /// <summary>Bit reversal, then each stage over the whole array, twiddles cos, sin(2π·k·(n/L)/n) as the transform's table holds them.</summary>
+    /// <summary>Bit reversal, then each stage over the whole array, twiddles cos, sin(2πk/L) computed for each stage.</summary>
     private static void StageByStage(double[] re, double[] im, bool inverse)
     {
         var n = re.Length;
@@ -151,20 +173,23 @@ public class RadixTwoFftTests
                 (im[i], im[j]) = (im[j], im[i]);
             }
         }
-        var (cosTable, sinTable) = RadixTwoFft.TwiddlesFor(n);
-        var cos = cosTable.ToArray();
-        var sin = sinTable.ToArray();
         var sign = inverse ? 1.0 : -1.0;
         for (var length = 2; length <= n; length <<= 1)
         {
             var half = length >> 1;
-            var stride = n / length;
+            var cos = new double[half];
+            var sin = new double[half];
+            for (var k = 0; k < half; k++)
+            {
+                cos[k] = Math.Cos(2.0 * Math.PI * k / length);
+                sin[k] = Math.Sin(2.0 * Math.PI * k / length);
+            }
             for (var start = 0; start < n; start += length)
             {
                 for (var k = 0; k < half; k++)
                 {
-                    var wr = cos[k * stride];
-                    var wi = sign * sin[k * stride];
+                    var wr = cos[k];
+                    var wi = sign * sin[k];
                     var a = start + k;
                     var b = a + half;
                     var tr = (re[b] * wr) - (im[b] * wi);
