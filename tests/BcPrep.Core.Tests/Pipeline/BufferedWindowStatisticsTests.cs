@@ -161,6 +161,48 @@ public class BufferedWindowStatisticsTests
     }
 
     [Fact]
+    public void A_drifting_bridged_window_reports_its_spike_times_although_its_transform_reuses_the_bridged_arrays()
+    {
+        // The bridged times and values share their arrays with the autocorrelation's transforms (ScratchSlots): every
+        // time reported must be taken before the Type A evaluation. A drift makes the autocorrelation decay too slowly
+        // for the sections, so it takes the transform of the whole window; a bridged gap with inserted samples puts
+        // the times in the shared array; spikes after the gap read them. Reference: the straightforward evaluation
+        // with fresh arrays (PreviousWindowStatistics).
+        var w = GeneratedWindows.Build("drift, bridged, spikes", 1000.0, 40_000, 31, (_, _, t, x) =>
+        {
+            for (var i = 0; i < x.Count; i++)
+            {
+                x[i] += 2.0 * i / x.Count;
+            }
+            t.RemoveRange(15_000, 40);
+            x.RemoveRange(15_000, 40);
+            foreach (var i in new[] { 20_000, 31_000, 38_500 })
+            {
+                x[i] += 30.0;
+            }
+            return new SensorFaultLimits(Resolution: 0.002);
+        });
+        var expected = Previous(w, RigDefaults);
+        // Twice on one thread: the first evaluation leaves the thread's arrays long enough for the transform, so the
+        // second one's transform writes over the very arrays its bridged times are in.
+        var (first, second, result) = OnFreshThread(() => (Buffered(w, RigDefaults), Buffered(w, RigDefaults),
+            WindowStatistics.Evaluate("x", Interval(w), w.TimesS, w.Values, RigDefaults, w.Limits, Day)));
+
+        Assert.Equal(expected, first);
+        Assert.Equal(expected, second);
+        Assert.True(result.BridgedSamples > 0);
+        foreach (var i in new[] { 20_000, 31_000, 38_500 })
+        {
+            Assert.Contains(w.TimesS[i], result.Conditioning!.SpikeTimesS);
+        }
+        // The lags read reach the whole window's transform (the estimator on the raw drifting values, read to the cut-off).
+        var finite = w.Values.Where(double.IsFinite).ToArray();
+        var rho = new BcPrep.Uncertainty.LazyAutocorrelation(finite, finite.Average());
+        _ = rho[result.TypeA.CutoffLag];
+        Assert.Equal(BcPrep.Uncertainty.AutocorrelationRoute.WholeWindow, rho.LastRoute);
+    }
+
+    [Fact]
     public void Windows_of_different_lengths_in_a_row_on_one_thread_give_what_each_gives_alone()
     {
         // The scratch of one window must not leak into the next: a long bridged window, then a shorter clean one,

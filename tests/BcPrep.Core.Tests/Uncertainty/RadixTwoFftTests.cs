@@ -63,9 +63,10 @@ public class RadixTwoFftTests
     [Fact]
     public void Every_size_reads_the_twiddles_its_own_expression_gives_to_the_bit_whatever_size_was_built_first()
     {
-        // Sizes asked small first and large first, on both sides of the contiguous limit (2¹⁶), and a long-table size
-        // read after a longer one was built (a stride of 4).
-        foreach (var sizes in new[] { new[] { 8, 64, 1 << 14, 1 << 17 }, new[] { 1 << 19, 1 << 15, 4, 512, 1 << 17, 1 << 16 } })
+        // Sizes asked small first and large first, on both sides of the contiguous limit (2¹⁸), and a long-table size
+        // read after a longer one was built (a stride of 2 or more).
+        Assert.Equal(1 << 18, RadixTwoFft.ContiguousStages);
+        foreach (var sizes in new[] { new[] { 8, 64, 1 << 14, 1 << 19 }, new[] { 1 << 20, 1 << 15, 4, 512, 1 << 19, 1 << 18 } })
         {
             foreach (var n in sizes)
             {
@@ -82,7 +83,7 @@ public class RadixTwoFftTests
     }
 
     // Reference: handbook values of sine and cosine: at 1/8 of a turn cos = sin = √2/2, at a quarter turn cos = 0 and
-    // sin = 1, read from the contiguous copy (8 points) and the long table (2¹⁸ points).
+    // sin = 1, read from the contiguous copy (8 points) and the long table (2²⁰ points).
     [Fact]
     public void Known_twiddles_are_the_handbook_values()
     {
@@ -93,19 +94,22 @@ public class RadixTwoFftTests
         Assert.Equal(Math.Sqrt(0.5), eight.Sin(1), 3e-16);
         Assert.Equal(0.0, eight.Cos(2), 1e-16);
         Assert.Equal(1.0, eight.Sin(2));
-        var longStage = RadixTwoFft.TwiddlesFor(1 << 18);
-        Assert.Equal(0.0, longStage.Cos(1 << 16), 1e-16);
-        Assert.Equal(1.0, longStage.Sin(1 << 16));
-        Assert.Equal(Math.Sqrt(0.5), longStage.Cos(1 << 15), 3e-16);
+        var longStage = RadixTwoFft.TwiddlesFor(1 << 20);
+        Assert.Equal(0.0, longStage.Cos(1 << 18), 1e-16);
+        Assert.Equal(1.0, longStage.Sin(1 << 18));
+        Assert.Equal(Math.Sqrt(0.5), longStage.Cos(1 << 17), 3e-16);
     }
 
-    // The long stages (past 2¹⁶) read their twiddles from the long table with a stride, a chunk at a time: the sizes
-    // 2¹⁷ and 2¹⁸ cover one and two such stages, both ways.
+    // The long stages (past 2¹⁸) read their twiddles from the long table with a stride, a chunk at a time: the sizes
+    // 2¹⁹ and 2²⁰ cover one and two such stages, both ways.
     [Theory]
+    [InlineData(2, false)]
+    [InlineData(4, true)]
+    [InlineData(16, false)]
     [InlineData(8192, false)]
     [InlineData(32768, true)]
-    [InlineData(1 << 17, false)]
-    [InlineData(1 << 18, true)]
+    [InlineData(1 << 19, false)]
+    [InlineData(1 << 20, true)]
     public void Cache_blocked_stages_equal_whole_array_stages_to_the_bit(int n, bool inverse)
     {
         var random = new Random(n);
@@ -119,6 +123,37 @@ public class RadixTwoFftTests
 
         Assert.Equal(expectedRe, re);
         Assert.Equal(expectedIm, im);
+    }
+
+    [Fact]
+    public void Tiled_bit_reversal_puts_every_element_at_its_reversed_index_as_the_straightforward_pass_does()
+    {
+        // Every power of two from 1 to 2^17: below 2^6 the straightforward pass itself, from there the tiles, with a
+        // middle of 0 to 11 bits (tiles that are their own mirror and tiles that trade with another).
+        for (var bits = 0; bits <= 17; bits++)
+        {
+            var n = 1 << bits;
+            var re = Enumerable.Range(0, n).Select(i => (double)i).ToArray();
+            var im = Enumerable.Range(0, n).Select(i => -0.5 - i).ToArray();
+            var straightRe = (double[])re.Clone();
+            var straightIm = (double[])im.Clone();
+            RadixTwoFft.BitReverseStraight(straightRe, straightIm, n);
+
+            RadixTwoFft.BitReverse(re, im, n);
+
+            Assert.Equal(straightRe, re);
+            Assert.Equal(straightIm, im);
+            // The definition itself: element i holds what was at i with its bits reversed.
+            for (var i = 0; i < n; i++)
+            {
+                var reversed = 0;
+                for (var b = 0; b < bits; b++)
+                {
+                    reversed |= ((i >> b) & 1) << (bits - 1 - b);
+                }
+                Assert.Equal(reversed, re[i]);
+            }
+        }
     }
 
     /// <summary>Bit reversal, then each stage over the whole array, twiddles cos, sin(2πk/L) computed for each stage.</summary>
