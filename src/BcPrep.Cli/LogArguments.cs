@@ -68,7 +68,10 @@ public sealed class LogArguments : IDisposable
     private static bool LooksLikeMistypedOption(string argument) =>
         argument.Length > 1 && argument[0] == '-' && !File.Exists(argument) && !Directory.Exists(argument);
 
-    public IReadOnlyList<InputFingerprint> Fingerprints() => Inputs.Select(i => Fingerprint(i.DisplayName, i.Path)).ToList();
+    public IReadOnlyList<InputFingerprint> Fingerprints() => Fingerprints(EarlyFingerprints.None);
+
+    /// <summary>The logs' fingerprints, taking those hashed early (<see cref="EarlyFingerprints"/>) from there.</summary>
+    public IReadOnlyList<InputFingerprint> Fingerprints(EarlyFingerprints early) => Inputs.Select(early.For).ToList();
 
     /// <summary>Byte sizes of the logs (0 for one that cannot be read: the reading stage reports it properly).</summary>
     public IEnumerable<long> Sizes() => Inputs.Select(i => File.Exists(i.Path) ? new FileInfo(i.Path).Length : 0L);

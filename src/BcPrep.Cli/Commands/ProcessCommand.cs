@@ -26,6 +26,8 @@ public static class ProcessCommand
         command.Options.Add(report);
         command.SetAction(parse =>
         {
+            // The logs' hashing starts before the rig is loaded, on the core the start-up leaves idle.
+            var early = EarlyFingerprints.Start(parse.GetValue(logs)!);
             var diagnostics = common.DiagnosticsFor(parse, context);
             var description = RigArguments.LoadRig(parse.GetValue(rig)!);
             using var inputs = new LogArguments(parse.GetValue(logs)!, context);
@@ -45,8 +47,8 @@ public static class ProcessCommand
             // from the start: the reading and the window statistics leave gaps on the two cores that it fills (measured
             // in BENCHMARKS.md against starting it after the read).
             // On its own thread (LongRunning), not the pool's, which the processing's short parallel work needs.
-            var hashing = mayBeUpToDate ? Task.FromResult(inputs.Fingerprints())
-                : Task.Factory.StartNew(inputs.Fingerprints, CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
+            var hashing = mayBeUpToDate ? Task.FromResult(inputs.Fingerprints(early))
+                : Task.Factory.StartNew(() => inputs.Fingerprints(early), CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
             if (mayBeUpToDate && ExistingOutputs.IsUpToDate(outDir, Provenance(hashing.Result).Key))
             {
                 OutputFileSet.RemoveStalePartials(outDir, ExistingOutputs.ListedFiles(outDir));

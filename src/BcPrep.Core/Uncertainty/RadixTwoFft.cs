@@ -45,12 +45,34 @@ internal static class RadixTwoFft
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void Transform(Span<double> re, Span<double> im, int n, bool inverse)
     {
+        RequireLength(re, im, n);
+        var longStage = n > ContiguousStages ? LongStageFor(n) : null;
+        BitReverse(re, im, n);
+        RunStages(re, im, n, inverse, longStage);
+    }
+
+    /// <summary>
+    /// The same transform of an input already at bit-reversed indices (element i at the index of i with its bits
+    /// reversed, as <see cref="BitReverse"/> leaves it): for a caller that writes its input there in one pass.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public static void TransformBitReversed(Span<double> re, Span<double> im, int n, bool inverse)
+    {
+        RequireLength(re, im, n);
+        RunStages(re, im, n, inverse, n > ContiguousStages ? LongStageFor(n) : null);
+    }
+
+    private static void RequireLength(Span<double> re, Span<double> im, int n)
+    {
         if (n < 1 || (n & (n - 1)) != 0 || re.Length < n || im.Length < n)
         {
             throw new ArgumentException($"FFT length {n} must be a power of two within the buffers.", nameof(n));
         }
-        var longStage = n > ContiguousStages ? LongStageFor(n) : null;
-        BitReverse(re, im, n);
+    }
+
+    /// <summary>Every butterfly stage over an input in bit-reversed order.</summary>
+    private static void RunStages(Span<double> re, Span<double> im, int n, bool inverse, LongStage? longStage)
+    {
         var (cos, sin) = Contiguous;
         var sign = inverse ? 1.0 : -1.0;
         // The stages up to CacheBlock points run block by block, each block through all of them while it is in
@@ -79,6 +101,11 @@ internal static class RadixTwoFft
         for (var length = fromLength; length <= toLength; length <<= 1)
         {
             var half = length >> 1;
+            if (!Vector.IsHardwareAccelerated || half < Vector<double>.Count)
+            {
+                ShortStage(re, im, half, cos, sin, sign);
+                continue;
+            }
             // This stage's twiddles cos, sin(2πk/length), k < half, sit contiguously at [half, length).
             var wCos = cos.AsSpan(half, half);
             var wSin = sin.AsSpan(half, half);
@@ -119,6 +146,36 @@ internal static class RadixTwoFft
                     aRe[k] += tr;
                     aIm[k] += ti;
                 }
+            }
+        }
+    }
+
+    /// <summary>
+    /// One stage whose half length is below a vector (the first two with four doubles a vector), twiddle by twiddle
+    /// over the whole span: the same butterflies with the same expressions as the scalar loop above, without slicing
+    /// four spans for every group of two or four points (the slicing cost about three times the arithmetic there).
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static void ShortStage(Span<double> re, Span<double> im, int half, double[] cos, double[] sin, double sign)
+    {
+        var n = re.Length;
+        for (var k = 0; k < half; k++)
+        {
+            var wr = cos[half + k];
+            var wi = sign * sin[half + k];
+            for (var a = k; a < n; a += 2 * half)
+            {
+                var b = a + half;
+                var xr = re[b];
+                var xi = im[b];
+                var tr = (xr * wr) - (xi * wi);
+                var ti = (xr * wi) + (xi * wr);
+                var ar = re[a];
+                var ai = im[a];
+                re[b] = ar - tr;
+                im[b] = ai - ti;
+                re[a] = ar + tr;
+                im[a] = ai + ti;
             }
         }
     }
@@ -273,7 +330,75 @@ internal static class RadixTwoFft
         return (cos, sin);
     }
 
-    private static void BitReverse(Span<double> re, Span<double> im, int n)
+    /// <summary>
+    /// Puts element i at the bit-reversed index of i (n a power of two): the straightforward pass for small n, else
+    /// tile by tile. Index bits split as [a: 3 | m | c: 3]; i = (a, m, c) goes to (rev c, rev m, rev a), so the 64
+    /// elements of tile m (8 runs of 8 contiguous values, one cache line each) trade places with those of tile rev m.
+    /// Both tiles stay in the first-level cache while they swap, where the straightforward pass reads each partner a
+    /// megabyte away and misses the cache on almost every swap (3-4 times slower at 2²⁰ points). A permutation either
+    /// way: the values are the same to the bit.
+    /// </summary>
+    internal static void BitReverse(Span<double> re, Span<double> im, int n)
+    {
+        var bits = BitOperations.Log2((uint)Math.Max(n, 1));
+        if (bits < 2 * TileBits)
+        {
+            BitReverseStraight(re, im, n);
+            return;
+        }
+        const int side = 1 << TileBits;
+        var middleBits = bits - (2 * TileBits);
+        var high = bits - TileBits;
+        Span<int> reversed = stackalloc int[side];
+        for (var a = 0; a < side; a++)
+        {
+            reversed[a] = Reverse(a, TileBits);
+        }
+        re = re[..n];
+        im = im[..n];
+        for (var m = 0; m < 1 << middleBits; m++)
+        {
+            var mirror = Reverse(m, middleBits);
+            if (mirror < m)
+            {
+                continue; // swapped already, from tile mirror
+            }
+            for (var a = 0; a < side; a++)
+            {
+                var iBase = (a << high) | (m << TileBits);
+                var jBase = (mirror << TileBits) | reversed[a];
+                for (var c = 0; c < side; c++)
+                {
+                    var i = iBase | c;
+                    var j = (reversed[c] << high) | jBase;
+                    // Two tiles: every pair once. One tile (its own mirror): each pair from its lower index.
+                    if (mirror > m || i < j)
+                    {
+                        (re[i], re[j]) = (re[j], re[i]);
+                        (im[i], im[j]) = (im[j], im[i]);
+                    }
+                }
+            }
+        }
+    }
+
+    /// <summary>Low and high index bits of a bit-reversal tile: 2³ doubles are one 64-byte cache line.</summary>
+    internal const int TileBits = 3;
+
+    /// <summary>The lowest <paramref name="bits"/> bits of <paramref name="x"/> in reverse order.</summary>
+    internal static int Reverse(int x, int bits)
+    {
+        var v = (uint)x;
+        v = ((v >> 1) & 0x55555555u) | ((v & 0x55555555u) << 1);
+        v = ((v >> 2) & 0x33333333u) | ((v & 0x33333333u) << 2);
+        v = ((v >> 4) & 0x0F0F0F0Fu) | ((v & 0x0F0F0F0Fu) << 4);
+        v = ((v >> 8) & 0x00FF00FFu) | ((v & 0x00FF00FFu) << 8);
+        v = (v >> 16) | (v << 16);
+        return bits == 0 ? 0 : (int)(v >> (32 - bits));
+    }
+
+    /// <summary>The straightforward bit-reversal pass: j runs as i reversed, each pair swapped from its lower index.</summary>
+    internal static void BitReverseStraight(Span<double> re, Span<double> im, int n)
     {
         for (int i = 1, j = 0; i < n; i++)
         {

@@ -28,6 +28,40 @@ public class FftAutocorrelationTests
         }
     }
 
+    // The fast path held to the straightforward one: packing straight to bit-reversed indices gives the values and
+    // zeros that packing in order and then reversing gives, to the bit, for odd and even windows, windows that fill
+    // their packed half or a quarter of it, and transforms below and above the tiled size (2^6 points).
+    [Theory]
+    [InlineData(1, 2)]
+    [InlineData(7, 8)]
+    [InlineData(64, 32)]
+    [InlineData(65, 64)]
+    [InlineData(127, 64)]
+    [InlineData(128, 64)]
+    [InlineData(1000, 512)]
+    [InlineData(1000, 2048)]
+    [InlineData(4097, 4096)]
+    [InlineData(70001, 65536)]
+    public void Packing_to_reversed_indices_equals_packing_then_reversing(int n, int half)
+    {
+        var random = new Random(n + half);
+        var x = Enumerable.Range(0, n).Select(_ => random.NextDouble() - 0.3).ToArray();
+        var mean = x.Average();
+        var expectedRe = Enumerable.Repeat(double.NaN, half).ToArray();
+        var expectedIm = Enumerable.Repeat(double.NaN, half).ToArray();
+        FftAutocorrelation.Pack(x, mean, expectedRe, expectedIm, half);
+        RadixTwoFft.BitReverseStraight(expectedRe, expectedIm, half);
+        // Stale values from an earlier window, which every index must overwrite.
+        var re = Enumerable.Repeat(double.NaN, half).ToArray();
+        var im = Enumerable.Repeat(double.NaN, half).ToArray();
+
+        FftAutocorrelation.PackBitReversed(x, mean, re, im, half);
+
+        Assert.Equal(expectedRe, re);
+        Assert.Equal(expectedIm, im);
+        Assert.Equal(x[0] - mean, re[0]);
+    }
+
     // Reference: the estimator's definition summed directly, Σᵢ dᵢ dᵢ₊ₖ / Σᵢ dᵢ², on a series with a known shape.
     [Fact]
     public void Equals_the_direct_sums_of_its_definition()

@@ -103,6 +103,9 @@ public class RadixTwoFftTests
     // The long stages (past 2¹⁸) read their twiddles from the long table with a stride, a chunk at a time: the sizes
     // 2¹⁹ and 2²⁰ cover one and two such stages, both ways.
     [Theory]
+    [InlineData(2, false)]
+    [InlineData(4, true)]
+    [InlineData(16, false)]
     [InlineData(8192, false)]
     [InlineData(32768, true)]
     [InlineData(1 << 19, false)]
@@ -120,6 +123,37 @@ public class RadixTwoFftTests
 
         Assert.Equal(expectedRe, re);
         Assert.Equal(expectedIm, im);
+    }
+
+    [Fact]
+    public void Tiled_bit_reversal_puts_every_element_at_its_reversed_index_as_the_straightforward_pass_does()
+    {
+        // Every power of two from 1 to 2^17: below 2^6 the straightforward pass itself, from there the tiles, with a
+        // middle of 0 to 11 bits (tiles that are their own mirror and tiles that trade with another).
+        for (var bits = 0; bits <= 17; bits++)
+        {
+            var n = 1 << bits;
+            var re = Enumerable.Range(0, n).Select(i => (double)i).ToArray();
+            var im = Enumerable.Range(0, n).Select(i => -0.5 - i).ToArray();
+            var straightRe = (double[])re.Clone();
+            var straightIm = (double[])im.Clone();
+            RadixTwoFft.BitReverseStraight(straightRe, straightIm, n);
+
+            RadixTwoFft.BitReverse(re, im, n);
+
+            Assert.Equal(straightRe, re);
+            Assert.Equal(straightIm, im);
+            // The definition itself: element i holds what was at i with its bits reversed.
+            for (var i = 0; i < n; i++)
+            {
+                var reversed = 0;
+                for (var b = 0; b < bits; b++)
+                {
+                    reversed |= ((i >> b) & 1) << (bits - 1 - b);
+                }
+                Assert.Equal(reversed, re[i]);
+            }
+        }
     }
 
     /// <summary>Bit reversal, then each stage over the whole array, twiddles cos, sin(2πk/L) computed for each stage.</summary>

@@ -1,0 +1,93 @@
+using System.Diagnostics;
+using BcPrep.Cli;
+using BcPrep.Reading;
+using BcPrep.Tests.Cli.Support;
+using BcPrep.Writing;
+
+namespace BcPrep.Tests.Cli;
+
+/// <summary>
+/// The logs hashed from the start of a command (<see cref="EarlyFingerprints"/>) give the fingerprints hashing them
+/// later gives, and only plain files are hashed early.
+/// </summary>
+public sealed class EarlyFingerprintsTests
+{
+    // SHA-256("abc"): FIPS 180-2, appendix B.1 (one-block message).
+    private const string AbcSha256 = "ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad";
+
+    [Fact]
+    public void A_file_hashed_early_has_the_fingerprint_of_its_bytes()
+    {
+        using var temp = new TempFolder();
+        var path = temp.File("abc.csv");
+        File.WriteAllText(path, "abc");
+
+        var early = EarlyFingerprints.Start([path]);
+        var fingerprint = early.For(LogInput.FromPath(path));
+
+        Assert.Equal(new InputFingerprint(path, 3, AbcSha256), fingerprint);
+        Assert.Equal(LogArguments.Fingerprint(path, path), fingerprint);
+    }
+
+    [Fact]
+    public void An_input_not_hashed_early_is_hashed_when_asked_for()
+    {
+        using var temp = new TempFolder();
+        var path = temp.File("abc.csv");
+        File.WriteAllText(path, "abc");
+
+        // Standard input's copy: another display name than its path, and not among the arguments hashed early.
+        var fingerprint = EarlyFingerprints.Start(["-"]).For(new LogInput("(standard input)", path));
+
+        Assert.Equal(new InputFingerprint("(standard input)", 3, AbcSha256), fingerprint);
+    }
+
+    [Fact]
+    public void A_file_that_cannot_be_read_fails_with_its_usual_message_when_asked_for()
+    {
+        using var temp = new TempFolder();
+        var missing = temp.File("missing.csv");
+
+        var failure = Assert.Throws<BcPrepFailure>(() => EarlyFingerprints.Start([missing]).For(LogInput.FromPath(missing)));
+
+        Assert.Equal(FailureKind.InputData, failure.Kind);
+        Assert.StartsWith("cannot read: ", failure.Problems[0].Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Only_files_with_bytes_are_plain_files()
+    {
+        using var temp = new TempFolder();
+        var full = temp.File("full.csv");
+        File.WriteAllText(full, "abc");
+        var empty = temp.File("empty.csv");
+        File.WriteAllText(empty, "");
+
+        // Linux only: elsewhere the file's type is not asked and nothing is hashed early.
+        Assert.Equal(OperatingSystem.IsLinux(), EarlyFingerprints.IsPlainFile(full));
+        Assert.False(EarlyFingerprints.IsPlainFile("-"));
+        Assert.False(EarlyFingerprints.IsPlainFile(empty));
+        Assert.False(EarlyFingerprints.IsPlainFile(temp.Path));
+        Assert.False(EarlyFingerprints.IsPlainFile(temp.File("missing.csv")));
+    }
+
+    [Fact]
+    public void A_named_fifo_is_not_a_plain_file()
+    {
+        if (OperatingSystem.IsWindows())
+        {
+            return;
+        }
+        using var temp = new TempFolder();
+        var fifo = temp.File("day.fifo");
+        using (var mkfifo = Process.Start(new ProcessStartInfo("mkfifo", [fifo]))!)
+        {
+            mkfifo.WaitForExit();
+            Assert.Equal(0, mkfifo.ExitCode);
+        }
+
+        Assert.True(File.Exists(fifo));
+        // Reading it early would take the bytes the reader needs (and block until a writer comes); .NET says it exists.
+        Assert.False(EarlyFingerprints.IsPlainFile(fifo));
+    }
+}
