@@ -84,27 +84,14 @@ internal sealed class GatheredWindow
         {
             _loaded.Remove();
         }
-        var collect = false;
         lock (_gate)
         {
             if (--_unfinished == 0)
             {
-                collect = _timesS is { Length: >= CollectAfterSamples };
                 _timesS = null;
             }
         }
-        if (collect)
-        {
-            // The window's times, and the window-long scratch a longer window replaced, are dead now. Left to the
-            // large-object heap's budget they pile up (about 90 MB on the 8 h 1 kHz day) before a collection; one
-            // collection per long window, while the statistics of the next have barely started, keeps them from
-            // adding to the peak (1 kHz day, pairs: 8 h 347 -> 325 MB, 1 h 216-227 -> 204-210 MB, at the same CPU time).
-            GC.Collect(2, GCCollectionMode.Forced, blocking: true, compacting: false);
-        }
     }
-
-    /// <summary>Windows of at least this many samples (2 MB of times; 4.4 min at 1 kHz) are followed by a collection (<see cref="Finish"/>).</summary>
-    internal const int CollectAfterSamples = 1 << 18;
 
     private double[] ReadColumn(int column, double[] into)
     {
