@@ -111,41 +111,7 @@ internal static class RadixTwoFft
             var wSin = sin.AsSpan(half, half);
             for (var start = 0; start < n; start += length)
             {
-                var aRe = re.Slice(start, half);
-                var aIm = im.Slice(start, half);
-                var bRe = re.Slice(start + half, half);
-                var bIm = im.Slice(start + half, half);
-                var k = 0;
-                if (Vector.IsHardwareAccelerated && half >= Vector<double>.Count)
-                {
-                    var signs = new Vector<double>(sign);
-                    for (; k <= half - Vector<double>.Count; k += Vector<double>.Count)
-                    {
-                        var wr = new Vector<double>(wCos[k..]);
-                        var wi = signs * new Vector<double>(wSin[k..]);
-                        var xr = new Vector<double>(bRe[k..]);
-                        var xi = new Vector<double>(bIm[k..]);
-                        var tr = (xr * wr) - (xi * wi);
-                        var ti = (xr * wi) + (xi * wr);
-                        var ar = new Vector<double>(aRe[k..]);
-                        var ai = new Vector<double>(aIm[k..]);
-                        (ar - tr).CopyTo(bRe[k..]);
-                        (ai - ti).CopyTo(bIm[k..]);
-                        (ar + tr).CopyTo(aRe[k..]);
-                        (ai + ti).CopyTo(aIm[k..]);
-                    }
-                }
-                for (; k < half; k++)
-                {
-                    var wr = wCos[k];
-                    var wi = sign * wSin[k];
-                    var tr = (bRe[k] * wr) - (bIm[k] * wi);
-                    var ti = (bRe[k] * wi) + (bIm[k] * wr);
-                    bRe[k] = aRe[k] - tr;
-                    bIm[k] = aIm[k] - ti;
-                    aRe[k] += tr;
-                    aIm[k] += ti;
-                }
+                Butterflies(re.Slice(start, half), im.Slice(start, half), re.Slice(start + half, half), im.Slice(start + half, half), wCos, wSin, sign);
             }
         }
     }
@@ -213,8 +179,9 @@ internal static class RadixTwoFft
         }
     }
 
-    /// <summary>a, b ← a + w·b, a − w·b for each k, with w = cos + i·sign·sin: the butterfly of <see cref="Stages"/>.</summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    /// <summary>a, b ← a + w·b, a − w·b for each k, with w = cos + i·sign·sin: the butterfly of every stage of a vector or longer.</summary>
+    /// <remarks>Inlined into the stage loops (themselves compiled optimised at once), which call it once per group.</remarks>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static void Butterflies(Span<double> aRe, Span<double> aIm, Span<double> bRe, Span<double> bIm, ReadOnlySpan<double> wCos, ReadOnlySpan<double> wSin, double sign)
     {
         var half = aRe.Length;
