@@ -65,6 +65,11 @@ public static class BcPrepApp
         {
             return ExitCodes.Success;
         }
+        catch (Exception e) when (OutOfMemory.Caused(e))
+        {
+            context.Error.WriteLine(OutOfMemory.Message);
+            return ExitCodes.NotEnoughMemory;
+        }
         catch (Exception e)
         {
             context.Error.WriteLine($"error: internal error ({e.GetType().Name}): {e.Message}");

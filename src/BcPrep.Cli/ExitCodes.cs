@@ -18,6 +18,8 @@ public static class ExitCodes
     public const int SomePointsFailed = 6;
     /// <summary>A bug in bcprep; please report it with the command line.</summary>
     public const int InternalError = 70;
+    /// <summary>The run needed more memory than the machine or its limit allowed (nothing partial is left behind).</summary>
+    public const int NotEnoughMemory = 71;
 
     public static int For(FailureKind kind) => kind switch
     {

@@ -77,7 +77,9 @@ internal sealed class WindowStatsBook
             if (work.IsFaulted)
             {
                 var failure = work.Exception!.InnerException!;
-                if (named is not null)
+                // Out of memory is not evaluated again: the retry would fail on its own (its samples may be let go)
+                // and hide the cause.
+                if (named is not null && failure is not OutOfMemoryException)
                 {
                     // The same samples again, now with the point's id, for a message that names it.
                     try
