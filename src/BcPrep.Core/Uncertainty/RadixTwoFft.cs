@@ -118,7 +118,7 @@ internal static class RadixTwoFft
 
     /// <summary>
     /// One stage whose half length is below a vector (the first two with four doubles a vector), twiddle by twiddle
-    /// over the whole span: the same butterflies with the same expressions as the scalar loop above, without slicing
+    /// over the whole span: the same butterflies with the same expressions as the scalar loop of <see cref="Butterflies"/>, without slicing
     /// four spans for every group of two or four points (the slicing cost about three times the arithmetic there).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
