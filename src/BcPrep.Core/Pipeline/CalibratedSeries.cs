@@ -6,9 +6,16 @@ namespace BcPrep.Pipeline;
 
 /// <summary>
 /// Streams a day's calibrated (SI) time series, logger by logger, with tares applied. A tare needs its interval's
-/// mean before the first row can be corrected, so a day with tares is read twice. The tare is the one the point model
+/// mean before the first row can be corrected, so a day with tares is read first up to the end of its last tare
+/// interval (only the loggers that log a tared channel), then in full. The tare is the one the point model
 /// subtracts (<see cref="FaultPolicy.Evaluate(RigDescription, string, TimeWindow, double[], double[], DayStart)"/>'s de-spiked window mean), so both commands agree.
 /// </summary>
+/// <remarks>
+/// A refusal met in the first read comes before any row is written; one further on follows the rows already
+/// written. The first read stops after the block that reaches the last tare's end, decided by the reading thread, so
+/// which refusals it meets does not depend on timing. Reading the whole day first (as before) cost about 0.15 of
+/// `calibrate --conditioned`'s CPU on a 1 h 1 kHz day whose tares end at 9 min.
+/// </remarks>
 public static class CalibratedSeries
 {
     public static void Stream(RigDescription rig, IReadOnlyList<LogInput> logs, Action<DayPlan, IReadOnlyDictionary<string, double>> onStart, IBlockSink sink)
@@ -42,7 +49,8 @@ public static class CalibratedSeries
                 result[channel] = FaultPolicy.Evaluate(rig, channel, w, times, values, plan.Start).TypeA.Mean;
             }
         });
-        DayScan.Run(rig, plan, converters, [collector]);
+        var tared = plan with { Loggers = plan.Loggers.Where(l => l.Channels.Any(c => c.Tare is not null)).ToList() };
+        DayScan.Run(rig, tared, converters, [collector], readUntil: new LoggerSeconds(windows.Max(w => w.EndS)));
         return result;
     }
 

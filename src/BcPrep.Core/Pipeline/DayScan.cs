@@ -3,6 +3,7 @@ using System.Globalization;
 using BcPrep.Calibration;
 using BcPrep.Reading;
 using BcPrep.Rig;
+using BcPrep.Values;
 
 namespace BcPrep.Pipeline;
 
@@ -23,10 +24,11 @@ public static class DayScan
         ReadProgress? progress = null,
         ScanIndex? index = null,
         IReadOnlyList<TimeWindow>? onlyWindows = null,
-        Action<LogInput, long, long>? onFileRead = null)
+        Action<LogInput, long, long>? onFileRead = null,
+        LoggerSeconds? readUntil = null)
     {
         progress?.StartPass();
-        var reading = new ReadingPlan(index, onlyWindows?.OrderBy(w => w.StartS).ToList(), onFileRead);
+        var reading = new ReadingPlan(index, onlyWindows?.OrderBy(w => w.StartS).ToList(), onFileRead, readUntil);
         foreach (var logger in plan.Loggers)
         {
             ScanLogger(rig, logger, converters, sinks, blockSink, progress, reading);
@@ -35,13 +37,16 @@ public static class DayScan
 
     /// <summary>
     /// How the files are read: in full, recording the block index when one is given; or, with windows and an index
-    /// from an earlier pass, only the blocks that cover the windows.
+    /// from an earlier pass, only the blocks that cover the windows; or from the start up to a time.
     /// </summary>
     /// <param name="Index">Block index to record (full read) or to seek by (windows only).</param>
     /// <param name="Windows">The windows to read, or null to read everything.</param>
     /// <param name="OnFileRead">Told, after a file was read in full (to its <see cref="LogInput.LengthLimit"/>), the byte
     /// offset reached and the last line read, so that a later scan can resume there (<see cref="LogInput.ResumeAt"/>).</param>
-    private sealed record ReadingPlan(ScanIndex? Index, IReadOnlyList<TimeWindow>? Windows, Action<LogInput, long, long>? OnFileRead);
+    /// <param name="Until">When set, the reading thread itself stops after the first block that reaches this time (its
+    /// last row at or after it), so every row up to the time is delivered and the rows read, and therefore the
+    /// refusals met, do not depend on how far the reader ran ahead of the consumer.</param>
+    private sealed record ReadingPlan(ScanIndex? Index, IReadOnlyList<TimeWindow>? Windows, Action<LogInput, long, long>? OnFileRead, LoggerSeconds? Until);
 
     private static void ScanLogger(RigDescription rig, LoggerFiles logger, IReadOnlyDictionary<string, BlockConverter> converters, IReadOnlyList<IChannelSink> sinks, IBlockSink? blockSink, ReadProgress? progress, ReadingPlan reading)
     {
@@ -133,8 +138,13 @@ public static class DayScan
                         progress?.Advance(reader.BytesRead - reported);
                         reported = reader.BytesRead;
                         reading.Index?.Record(file, block, reader.CanSeek);
+                        var reached = reading.Until is { } until && block.TimeS[block.Count - 1] >= until.Value;
                         filled.Add((file, block, first), stop.Token);
                         first = false;
+                        if (reached)
+                        {
+                            return;
+                        }
                     }
                     reading.OnFileRead?.Invoke(file, reader.BytesRead, reader.LastLine);
                 }
