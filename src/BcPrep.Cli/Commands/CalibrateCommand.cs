@@ -116,6 +116,21 @@ public static class CalibrateCommand
 
         private void WriteRows(TabularOutput rows, int[] slot, double[] timeS, IReadOnlyList<double[]> valuesSi, int from, int to)
         {
+            if (rows is CsvOutput csv)
+            {
+                // A whole row at a time: a cell with no channel in this block is NaN, which is written empty.
+                Span<double> cells = stackalloc double[slot.Length + 1];
+                for (var i = from; i < to; i++)
+                {
+                    cells[0] = _start.Since(new LoggerSeconds(timeS[i])).Value;
+                    for (var c = 0; c < slot.Length; c++)
+                    {
+                        cells[c + 1] = slot[c] >= 0 ? valuesSi[slot[c]][i] : double.NaN;
+                    }
+                    csv.Row(cells);
+                }
+                return;
+            }
             for (var i = from; i < to; i++)
             {
                 rows.Number(_start.Since(new LoggerSeconds(timeS[i])).Value);

@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Numerics;
 using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 
 namespace BcPrep.Writing;
 
@@ -33,16 +34,16 @@ public static class RoundTripNumber
     private const long CMin = 1L << 52;
     private const long Mask63 = long.MaxValue;
 
-    /// <summary>⌈10⁻ᵏ · 2⁻ʳ⌉ style 126-bit approximations (floor + 1), split into 63-bit halves, index k − KMin.</summary>
-    private static readonly long[] G1;
-    private static readonly long[] G0;
-
-    private static ReadOnlySpan<byte> TwoDigits => "00010203040506070809101112131415161718192021222324252627282930313233343536373839404142434445464748495051525354555657585960616263646566676869707172737475767778798081828384858687888990919293949596979899"u8;
+    /// <summary>
+    /// ⌈10⁻ᵏ · 2⁻ʳ⌉ style 126-bit approximations (floor + 1), split into 63-bit halves, the upper half at 2(k − KMin)
+    /// and the lower at 2(k − KMin) + 1 (one array, so both halves come from one cache line; k is always in range,
+    /// so the look-up is unchecked).
+    /// </summary>
+    private static readonly long[] G;
 
     static RoundTripNumber()
     {
-        G1 = new long[KMax - KMin + 1];
-        G0 = new long[KMax - KMin + 1];
+        G = new long[2 * (KMax - KMin + 1)];
         var mask63 = (BigInteger.One << 63) - 1;
         for (var k = KMin; k <= KMax; k++)
         {
@@ -59,15 +60,42 @@ public static class RoundTripNumber
                 g = (BigInteger.One << -r) / BigInteger.Pow(10, k);
             }
             g += 1;
-            G1[k - KMin] = (long)(g >> 63);
-            G0[k - KMin] = (long)(g & mask63);
+            G[2 * (k - KMin)] = (long)(g >> 63);
+            G[(2 * (k - KMin)) + 1] = (long)(g & mask63);
         }
     }
+
+    /// <summary>
+    /// Room <see cref="FormatAscii"/> needs in its destination: it moves digits in whole 8-byte words, so it may write
+    /// (and later overwrite or leave) bytes up to this far past where it starts; the number itself is at most
+    /// <see cref="MaxChars"/>.
+    /// </summary>
+    public const int AsciiRoom = 64;
 
     /// <summary>Formats <paramref name="value"/> into <paramref name="destination"/> (room for <see cref="MaxChars"/>); returns the characters written.</summary>
     /// <exception cref="ArgumentException">NaN or an infinity (they have no round-trip digits here).</exception>
     public static int Format(double value, Span<char> destination)
     {
+        Span<byte> ascii = stackalloc byte[AsciiRoom];
+        var n = FormatAscii(value, ascii);
+        for (var i = 0; i < n; i++)
+        {
+            destination[i] = (char)ascii[i];
+        }
+        return n;
+    }
+
+    /// <summary>
+    /// The same characters as <see cref="Format(double, Span{char})"/>, as ASCII bytes (which are their UTF-8 form);
+    /// <paramref name="destination"/> must hold <see cref="AsciiRoom"/> bytes. Returns the bytes of the number.
+    /// </summary>
+    /// <exception cref="ArgumentException">NaN or an infinity, or less room than <see cref="AsciiRoom"/>.</exception>
+    public static int FormatAscii(double value, Span<byte> destination)
+    {
+        if (destination.Length < AsciiRoom)
+        {
+            throw new ArgumentException($"the destination must hold {AsciiRoom} bytes", nameof(destination));
+        }
         var bits = BitConverter.DoubleToInt64Bits(value);
         var t = bits & ((1L << 52) - 1);
         var bq = (int)((bits >>> 52) & 0x7FF);
@@ -93,7 +121,7 @@ public static class RoundTripNumber
             var f = c >> mq;
             if (f << mq == c)
             {
-                return Layout(negative, f, 0, destination);
+                return Layout(negative, (ulong)f, 0, destination);
             }
         }
         if (t == 0)
@@ -105,31 +133,24 @@ public static class RoundTripNumber
             return written;
         }
         var (digits, exponent) = Shortest(-mq, c);
-        return Layout(negative, digits, exponent, destination);
+        return Layout(negative, (ulong)digits, exponent, destination);
     }
 
-    /// <summary>Shortest decimal d·10^e in the rounding interval of c·2^q (normal doubles).</summary>
+    /// <summary>
+    /// Shortest decimal d·10^e in the rounding interval of c·2^q: normal doubles that are not powers of two (those
+    /// go to the runtime, see <see cref="FormatAscii"/>), so the interval is symmetric.
+    /// </summary>
     private static (long Digits, int Exponent) Shortest(int q, long c)
     {
         var odd = (int)c & 1;
         var cb = c << 2;
         var cbr = cb + 2;
-        long cbl;
-        int k;
-        if (c != CMin || q == -1074)
-        {
-            cbl = cb - 2;
-            k = FloorLog10Pow2(q);
-        }
-        else
-        {
-            // A power of two: the interval below is half as wide as above.
-            cbl = cb - 1;
-            k = FloorLog10ThreeQuartersPow2(q);
-        }
+        var cbl = cb - 2;
+        var k = FloorLog10Pow2(q);
         var h = q + FloorLog2Pow10(-k) + 2;
-        var g1 = G1[k - KMin];
-        var g0 = G0[k - KMin];
+        ref var g = ref Unsafe.Add(ref MemoryMarshal.GetArrayDataReference(G), 2 * (k - KMin));
+        var g1 = g;
+        var g0 = Unsafe.Add(ref g, 1);
         var vb = RoundToOdd(g1, g0, cb << h);
         var vbl = RoundToOdd(g1, g0, cbl << h);
         var vbr = RoundToOdd(g1, g0, cbr << h);
@@ -175,144 +196,171 @@ public static class RoundTripNumber
 
     private static int FloorLog2Pow10(int e) => (e * 1_741_647) >> 19;
 
-    private static int Zero(bool negative, Span<char> destination)
+    private static int Zero(bool negative, Span<byte> destination)
     {
         if (negative)
         {
-            destination[0] = '-';
-            destination[1] = '0';
+            destination[0] = (byte)'-';
+            destination[1] = (byte)'0';
             return 2;
         }
-        destination[0] = '0';
+        destination[0] = (byte)'0';
         return 1;
     }
 
-    /// <summary>The runtime's general layout of digits·10^exponent (trailing zeros dropped first).</summary>
-    private static int Layout(bool negative, long digits, int exponent, Span<char> destination)
+    /// <summary>
+    /// The runtime's general layout of digits·10^exponent, into a destination of <see cref="AsciiRoom"/> bytes. The
+    /// digits are scaled to exactly 17 (zeros appended) and turned into text in three words that stay in registers:
+    /// digits 0–7, 8–15 and 16. The decimal point is shifted into them, and they are stored whole; a word may carry
+    /// bytes past the number, which the next number (or the caller) overwrites. (Text put into a scratch buffer and
+    /// read back at an unaligned offset cost more than finding the digits: the loads waited for the stores.)
+    /// </summary>
+    private static int Layout(bool negative, ulong digits, int exponent, Span<byte> destination)
     {
-        while (digits % 10 == 0)
-        {
-            digits /= 10;
-            exponent++;
-        }
-        Span<char> text = stackalloc char[20];
-        var n = WriteDigits((ulong)digits, text);
-        var d = text[(20 - n)..];
+        var m = DigitCount(digits);
+        var point = m + exponent;
+        var scaled = digits * PowersOfTen[17 - m];
+        var first8 = scaled / 1_000_000_000;
+        var last9 = scaled - (first8 * 1_000_000_000);
+        var next8 = last9 / 10;
+        var x0 = EightDigits((uint)first8);
+        var x1 = EightDigits((uint)next8);
+        var x2 = (last9 - (next8 * 10)) | '0';
+        // Significant digits: up to the last that is not '0' (the first digit never is). The trailing '0's are the
+        // zero bytes at the top of each word xor '0'…'0' (lzcnt / 8, which is 8 for a word of zeros), counted
+        // without a branch: whether the last digit has 16 or 17 significant digits is a coin toss on measured data,
+        // and a mispredicted branch costs about as much as the rest of the layout.
+        var lastIsZero = (int)(((x2 ^ '0') - 1) >> 63);
+        var zeros1 = BitOperations.LeadingZeroCount(x1 ^ Zeros) >> 3;
+        var zeros0 = BitOperations.LeadingZeroCount(x0 ^ Zeros) >> 3;
+        var n = 17 - (lastIsZero * (1 + zeros1 + ((zeros1 >> 3) * zeros0)));
+        ref var o = ref MemoryMarshal.GetReference(destination);
         var pos = 0;
         if (negative)
         {
-            destination[pos++] = '-';
+            o = (byte)'-';
+            pos = 1;
         }
-        var point = n + exponent;
         if (point > 17 || point < -3)
         {
-            destination[pos++] = d[0];
-            if (n > 1)
+            if (n == 1)
             {
-                destination[pos++] = '.';
-                d[1..].CopyTo(destination[pos..]);
-                pos += n - 1;
+                Unsafe.Add(ref o, pos++) = (byte)x0;
             }
-            destination[pos++] = 'E';
+            else
+            {
+                StoreWithPoint(x0, x1, x2, 1, ref Unsafe.Add(ref o, pos));
+                pos += n + 1;
+            }
+            Unsafe.Add(ref o, pos++) = (byte)'E';
             var e = point - 1;
-            destination[pos++] = e < 0 ? '-' : '+';
+            Unsafe.Add(ref o, pos++) = e < 0 ? (byte)'-' : (byte)'+';
             e = Math.Abs(e);
             if (e >= 100)
             {
-                destination[pos++] = (char)('0' + (e / 100));
+                Unsafe.Add(ref o, pos++) = (byte)('0' + (e / 100));
                 e %= 100;
             }
-            destination[pos++] = (char)('0' + (e / 10));
-            destination[pos++] = (char)('0' + (e % 10));
+            Unsafe.Add(ref o, pos++) = (byte)('0' + (e / 10));
+            Unsafe.Add(ref o, pos++) = (byte)('0' + (e % 10));
             return pos;
         }
         if (point <= 0)
         {
-            destination[pos++] = '0';
-            destination[pos++] = '.';
-            for (var i = point; i < 0; i++)
-            {
-                destination[pos++] = '0';
-            }
-            d.CopyTo(destination[pos..]);
+            // "0." and up to three zeros, then the digits.
+            Unsafe.WriteUnaligned(ref Unsafe.Add(ref o, pos), 0x0030_3030_3030_2E30UL);
+            pos += 2 - point;
+            Store(x0, x1, x2, ref Unsafe.Add(ref o, pos));
             return pos + n;
         }
         if (point >= n)
         {
-            d.CopyTo(destination[pos..]);
-            pos += n;
-            for (var i = n; i < point; i++)
-            {
-                destination[pos++] = '0';
-            }
-            return pos;
+            // An integer: the scaled digits already end in the zeros up to the point (at most 17 characters).
+            Store(x0, x1, x2, ref Unsafe.Add(ref o, pos));
+            return pos + point;
         }
-        d[..point].CopyTo(destination[pos..]);
-        pos += point;
-        destination[pos++] = '.';
-        d[point..].CopyTo(destination[pos..]);
-        return pos + n - point;
+        StoreWithPoint(x0, x1, x2, point, ref Unsafe.Add(ref o, pos));
+        return pos + n + 1;
     }
 
-    /// <summary>Writes the decimal digits of <paramref name="v"/> right-aligned into the 20-character buffer; returns how many.</summary>
-    private static int WriteDigits(ulong v, Span<char> text)
+    private const ulong Zeros = 0x3030_3030_3030_3030UL;
+
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void Store(ulong x0, ulong x1, ulong x2, ref byte to)
     {
-        // At most 17 digits: the low eight in 32-bit arithmetic, then the rest (cheaper than 64-bit divisions).
-        var i = 20;
-        if (v >= 100_000_000)
+        Unsafe.WriteUnaligned(ref to, x0);
+        Unsafe.WriteUnaligned(ref Unsafe.Add(ref to, 8), x1);
+        Unsafe.WriteUnaligned(ref Unsafe.Add(ref to, 16), x2);
+    }
+
+    /// <summary>
+    /// Stores the 17 digits with '.' after the first <paramref name="point"/> of them (1 ≤ point ≤ 16): the word
+    /// that holds the place keeps its bytes below it, gets the point, and its bytes from there move up by one, as do
+    /// the words after it.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void StoreWithPoint(ulong x0, ulong x1, ulong x2, int point, ref byte to)
+    {
+        const ulong dot = '.';
+        ulong y0, y1, y2;
+        if (point < 8)
         {
-            var high = v / 100_000_000;
-            WriteEight((uint)(v - (high * 100_000_000)), text[(i - 8)..i]);
-            i -= 8;
-            v = high;
-            if (v >= 100_000_000)
-            {
-                high = v / 100_000_000;
-                WriteEight((uint)(v - (high * 100_000_000)), text[(i - 8)..i]);
-                i -= 8;
-                v = high;
-            }
+            var below = (1UL << (8 * point)) - 1;
+            y0 = (x0 & below) | (dot << (8 * point)) | ((x0 & ~below) << 8);
+            y1 = (x0 >> 56) | (x1 << 8);
+            y2 = (x1 >> 56) | (x2 << 8);
         }
-        var pairs = TwoDigits;
-        var w = (uint)v;
-        while (w >= 100)
+        else if (point < 16)
         {
-            var q = w / 100;
-            var r = (int)(w - (q * 100));
-            w = q;
-            text[--i] = (char)pairs[(2 * r) + 1];
-            text[--i] = (char)pairs[2 * r];
-        }
-        if (w >= 10)
-        {
-            text[--i] = (char)pairs[(2 * (int)w) + 1];
-            text[--i] = (char)pairs[2 * (int)w];
+            var below = (1UL << (8 * (point - 8))) - 1;
+            y0 = x0;
+            y1 = (x1 & below) | (dot << (8 * (point - 8))) | ((x1 & ~below) << 8);
+            y2 = (x1 >> 56) | (x2 << 8);
         }
         else
         {
-            text[--i] = (char)('0' + (int)w);
+            y0 = x0;
+            y1 = x1;
+            y2 = dot | (x2 << 8);
         }
-        return 20 - i;
+        Store(y0, y1, y2, ref to);
     }
 
-    /// <summary>Exactly eight digits of <paramref name="v"/> (&lt; 10^8), leading zeros included.</summary>
+    /// <summary>10⁰ … 10¹⁹.</summary>
+    private static ReadOnlySpan<ulong> PowersOfTen =>
+    [
+        1UL, 10UL, 100UL, 1_000UL, 10_000UL, 100_000UL, 1_000_000UL, 10_000_000UL, 100_000_000UL, 1_000_000_000UL,
+        10_000_000_000UL, 100_000_000_000UL, 1_000_000_000_000UL, 10_000_000_000_000UL, 100_000_000_000_000UL,
+        1_000_000_000_000_000UL, 10_000_000_000_000_000UL, 100_000_000_000_000_000UL, 1_000_000_000_000_000_000UL,
+        10_000_000_000_000_000_000UL,
+    ];
+
+    /// <summary>The number of decimal digits of <paramref name="v"/> (≥ 1): ⌊log10 v⌋ + 1 from the bit length.</summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
-    private static void WriteEight(uint v, Span<char> eight)
+    internal static int DigitCount(ulong v)
     {
-        var pairs = TwoDigits;
-        var high = v / 10_000;
-        var low = v - (high * 10_000);
-        var a = (int)(high / 100);
-        var b = (int)(high - ((uint)a * 100));
-        var c = (int)(low / 100);
-        var d = (int)(low - ((uint)c * 100));
-        eight[0] = (char)pairs[2 * a];
-        eight[1] = (char)pairs[(2 * a) + 1];
-        eight[2] = (char)pairs[2 * b];
-        eight[3] = (char)pairs[(2 * b) + 1];
-        eight[4] = (char)pairs[2 * c];
-        eight[5] = (char)pairs[(2 * c) + 1];
-        eight[6] = (char)pairs[2 * d];
-        eight[7] = (char)pairs[(2 * d) + 1];
+        // (bit length · 1233) >> 12 is ⌊log10 2^bits⌋ or one more; one comparison with a power of ten settles it.
+        var r = ((64 - BitOperations.LeadingZeroCount(v | 1)) * 1233) >> 12;
+        return r + 1 - (v < PowersOfTen[r] ? 1 : 0);
+    }
+
+    /// <summary>
+    /// The eight ASCII digits of <paramref name="v"/> (&lt; 10⁸, leading zeros included) in one little-endian word,
+    /// first digit in the lowest byte: the halves, quarters and single digits are split in parallel lanes of the
+    /// word (each lane's quotient by a multiply and shift, exact in the lane's range), with no table.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    internal static ulong EightDigits(uint v)
+    {
+        // Two 4-digit lanes of 32 bits: the first four digits in the low lane.
+        ulong high = v / 10_000;
+        ulong merged = high | ((v - (high * 10_000)) << 32);
+        // x / 100 = (x · 10486) >> 20 for x < 10⁴ (exact below 43 699); four 2-digit lanes of 16 bits.
+        var hundreds = ((merged * 10_486) >> 20) & 0x0000_007F_0000_007FUL;
+        var pairs = ((merged - (hundreds * 100)) << 16) | hundreds;
+        // y / 10 = (y · 103) >> 10 for y < 100 (exact below 179); eight 1-digit lanes of 8 bits.
+        var tens = ((pairs * 103) >> 10) & 0x000F_000F_000F_000FUL;
+        var digits = ((pairs - (tens * 10)) << 8) | tens;
+        return digits | Zeros;
     }
 }

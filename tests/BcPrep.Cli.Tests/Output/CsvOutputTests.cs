@@ -129,4 +129,73 @@ public sealed class CsvOutputTests
         csv.Flush();
         Assert.Equal(direct.ToString(), inParts.ToString());
     }
+
+    private static void WriteSample(CsvOutput csv, bool whole)
+    {
+        csv.Header(["time [s]", "t_in [°C]", "say \"x\""]);
+        var random = new Random(31);
+        for (var i = 0; i < 30_000; i++)
+        {
+            double[] row = [i * 0.001, 290.0 + random.NextDouble(), i % 7 == 0 ? double.NaN : -random.NextDouble() * 1e-5];
+            if (whole)
+            {
+                csv.Row(row);
+            }
+            else
+            {
+                csv.Number(row[0]);
+                csv.Number(row[1]);
+                csv.Number(row[2]);
+                csv.EndRow();
+            }
+            if (i % 4096 == 0)
+            {
+                csv.Flush();
+            }
+        }
+        csv.Flush();
+    }
+
+    [Fact]
+    public void A_utf8_stream_writer_gets_the_same_bytes_after_what_it_already_holds_and_whole_rows_equal_cell_by_cell()
+    {
+        // Standard output's writer (UTF-8, no byte-order mark) takes the rows' bytes straight into its stream; text
+        // written to the writer itself before must still come first. Any other writer gets the same characters.
+        var text = new StringWriter { NewLine = "\n" };
+        text.Write("before\n");
+        WriteSample(new CsvOutput(text), whole: false);
+
+        var bytes = new MemoryStream();
+        var writer = new StreamWriter(bytes, new System.Text.UTF8Encoding(false), 1 << 16) { NewLine = "\n" };
+        writer.Write("before\n");
+        WriteSample(new CsvOutput(writer), whole: true);
+        writer.Flush();
+
+        Assert.Contains("t_in [°C]", text.ToString(), StringComparison.Ordinal);
+        Assert.Equal(System.Text.Encoding.UTF8.GetBytes(text.ToString()), bytes.ToArray());
+    }
+
+    [Fact]
+    public void A_writer_with_a_byte_order_mark_keeps_it()
+    {
+        var bytes = new MemoryStream();
+        var writer = new StreamWriter(bytes, new System.Text.UTF8Encoding(true));
+        var csv = new CsvOutput(writer);
+        csv.Header(["a"]);
+        csv.Row([1.5]);
+        csv.Flush();
+        writer.Flush();
+
+        Assert.Equal([0xEF, 0xBB, 0xBF, (byte)'a', (byte)'\n', (byte)'1', (byte)'.', (byte)'5', (byte)'\n'], bytes.ToArray());
+    }
+
+    [Fact]
+    public void A_whole_row_of_the_wrong_width_is_refused()
+    {
+        var csv = new CsvOutput(new StringWriter());
+        csv.Header(["a", "b"]);
+        Assert.Throws<InvalidOperationException>(() => csv.Row([1.0]));
+        csv.Number(1.0);
+        Assert.Throws<InvalidOperationException>(() => csv.Row([1.0, 2.0]));
+    }
 }

@@ -103,6 +103,97 @@ public sealed class RoundTripNumberTests
     }
 
     [Fact]
+    public void Every_digit_count_at_every_decimal_point_position_is_written_as_the_runtime_writes_it()
+    {
+        // The layout shifts the point into words of eight digits and counts the significant digits from the words:
+        // each count 1–17 (trailing zeros in every word), with the point before, inside and after the digits, in
+        // plain and exponent form, both signs.
+        var random = new Random(22);
+        for (var digits = 1; digits <= 17; digits++)
+        {
+            for (var trial = 0; trial < 200; trial++)
+            {
+                var text = new char[digits];
+                text[0] = (char)('1' + random.Next(9));
+                for (var i = 1; i < digits; i++)
+                {
+                    text[i] = (char)('0' + random.Next(10));
+                }
+                if (digits > 1)
+                {
+                    text[^1] = (char)('1' + random.Next(9));
+                }
+                for (var point = -6; point <= 20; point++)
+                {
+                    var value = double.Parse($"0.{new string(text)}E{point}", CultureInfo.InvariantCulture);
+                    AssertSame(value);
+                    AssertSame(-value);
+                }
+            }
+        }
+    }
+
+    [Fact]
+    public void The_ascii_form_has_the_characters_of_the_text_form_and_stays_inside_its_room()
+    {
+        var random = new Random(23);
+        var bytes = new byte[RoundTripNumber.AsciiRoom + 8];
+        var chars = new char[RoundTripNumber.MaxChars];
+        for (var i = 0; i < 100_000; i++)
+        {
+            var value = (i % 2 == 0) ? BitConverter.Int64BitsToDouble(random.NextInt64()) : (random.NextDouble() - 0.5) * Math.Pow(10, random.Next(-8, 20));
+            if (!double.IsFinite(value))
+            {
+                continue;
+            }
+            Array.Fill(bytes, (byte)0xEE);
+            var n = RoundTripNumber.FormatAscii(value, bytes.AsSpan(0, RoundTripNumber.AsciiRoom));
+            var m = RoundTripNumber.Format(value, chars);
+            Assert.Equal(chars.AsSpan(0, m).ToString(), System.Text.Encoding.ASCII.GetString(bytes, 0, n));
+            Assert.All(bytes[RoundTripNumber.AsciiRoom..], b => Assert.Equal(0xEE, b));
+        }
+        Assert.Throws<ArgumentException>(() => RoundTripNumber.FormatAscii(1.5, new byte[RoundTripNumber.AsciiRoom - 1]));
+    }
+
+    [Fact]
+    public void Eight_digits_in_one_word_are_the_decimal_digits_leading_zeros_included()
+    {
+        var random = new Random(24);
+        var values = new List<uint> { 0, 1, 9, 10, 99, 100, 999, 1000, 9999, 10_000, 10_001, 99_999, 1_000_000, 12_345_678, 99_999_999 };
+        for (var i = 0; i < 200_000; i++)
+        {
+            values.Add((uint)random.Next(100_000_000));
+        }
+        Span<byte> word = stackalloc byte[8];
+        foreach (var v in values)
+        {
+            System.Buffers.Binary.BinaryPrimitives.WriteUInt64LittleEndian(word, RoundTripNumber.EightDigits(v));
+            Assert.Equal(v.ToString("D8", CultureInfo.InvariantCulture), System.Text.Encoding.ASCII.GetString(word));
+        }
+    }
+
+    [Fact]
+    public void Digit_counts_change_exactly_at_the_powers_of_ten()
+    {
+        var power = 1UL;
+        for (var k = 1; k <= 19; k++)
+        {
+            power *= 10;
+            Assert.Equal(k, RoundTripNumber.DigitCount(power - 1));
+            Assert.Equal(k + 1, RoundTripNumber.DigitCount(power));
+            Assert.Equal(k + 1, RoundTripNumber.DigitCount(power + 1));
+        }
+        Assert.Equal(1, RoundTripNumber.DigitCount(1));
+        var random = new Random(25);
+        for (var i = 0; i < 100_000; i++)
+        {
+            var v = (ulong)random.NextInt64(1, long.MaxValue) >> random.Next(0, 62);
+            v = Math.Max(v, 1);
+            Assert.Equal(v.ToString(CultureInfo.InvariantCulture).Length, RoundTripNumber.DigitCount(v));
+        }
+    }
+
+    [Fact]
     public void Non_finite_values_are_refused()
     {
         var buffer = new char[RoundTripNumber.MaxChars];
