@@ -121,7 +121,8 @@ public static class RoundTripNumber
             var f = c >> mq;
             if (f << mq == c)
             {
-                return Layout(negative, (ulong)f, 0, destination);
+                var m = DigitCount((ulong)f);
+                return Layout(negative, (ulong)f * PowersOfTen[17 - m], m, destination);
             }
         }
         if (t == 0)
@@ -132,8 +133,10 @@ public static class RoundTripNumber
             value.TryFormat(destination, out var written, "R", CultureInfo.InvariantCulture);
             return written;
         }
+        // 10¹⁵ ≤ digits < 10¹⁷ (see Shortest): 16 or 17 of them, scaled to 17.
         var (digits, exponent) = Shortest(-mq, c);
-        return Layout(negative, (ulong)digits, exponent, destination);
+        var sixteen = digits < 10_000_000_000_000_000L;
+        return Layout(negative, (ulong)(sixteen ? digits * 10 : digits), exponent + (sixteen ? 16 : 17), destination);
     }
 
     /// <summary>
@@ -155,28 +158,28 @@ public static class RoundTripNumber
         var vbl = RoundToOdd(g1, g0, cbl << h);
         var vbr = RoundToOdd(g1, g0, cbr << h);
         var s = vb >> 2;
-        if (s >= 100)
-        {
-            // One digit fewer than s, when exactly one multiple of ten lies in the interval.
-            var sp10 = 10 * (s / 10);
-            var tp10 = sp10 + 10;
-            var upin = vbl + odd <= sp10 << 2;
-            var wpin = (tp10 << 2) + odd <= vbr;
-            if (upin != wpin)
-            {
-                return (upin ? sp10 : tp10, k);
-            }
-        }
+        // The candidates: one digit fewer than s (when exactly one multiple of ten lies in the interval), else s or
+        // s + 1 (the one in the interval, or the closer when both are, ties to even). All are computed and the
+        // choice made with arithmetic, not branches: on measured data the shorter form fits about half the time, at
+        // random, and a mispredicted branch costs a quarter of the whole conversion. (s ≥ 4.5·10¹⁵ here, so it
+        // always has a digit to drop.)
+        var sp10 = 10 * (s / 10);
+        var tp10 = sp10 + 10;
+        var upin = vbl + odd <= sp10 << 2;
+        var wpin = (tp10 << 2) + odd <= vbr;
         var tt = s + 1;
         var uin = vbl + odd <= s << 2;
         var win = (tt << 2) + odd <= vbr;
-        if (uin != win)
-        {
-            return (uin ? s : tt, k);
-        }
         var cmp = vb - ((s + tt) << 1);
-        return (cmp < 0 || (cmp == 0 && (s & 1) == 0) ? s : tt, k);
+        var pickS = (uin & !win) | ((uin == win) & ((cmp < 0) | ((cmp == 0) & ((s & 1) == 0))));
+        var longer = tt - One(pickS);
+        var shorter = tp10 - (10 * One(upin));
+        var useShorter = -One(upin != wpin);
+        return (longer + ((shorter - longer) & useShorter), k);
     }
+
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static long One(bool b) => b ? 1 : 0;
 
     /// <summary>⌊g·cp / 2^127⌋ with its lowest bit set when the rest is not zero (round to odd).</summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
@@ -209,17 +212,15 @@ public static class RoundTripNumber
     }
 
     /// <summary>
-    /// The runtime's general layout of digits·10^exponent, into a destination of <see cref="AsciiRoom"/> bytes. The
-    /// digits are scaled to exactly 17 (zeros appended) and turned into text in three words that stay in registers:
-    /// digits 0–7, 8–15 and 16. The decimal point is shifted into them, and they are stored whole; a word may carry
-    /// bytes past the number, which the next number (or the caller) overwrites. (Text put into a scratch buffer and
-    /// read back at an unaligned offset cost more than finding the digits: the loads waited for the stores.)
+    /// The runtime's general layout of a number 0.d₁…d₁₇ × 10^point (<paramref name="scaled"/> = d₁…d₁₇, 10¹⁶ ≤ scaled
+    /// &lt; 10¹⁷, zeros after the last significant digit), into a destination of <see cref="AsciiRoom"/> bytes. The
+    /// digits become text in three words that stay in registers: digits 1–8, 9–16 and 17. The decimal point is
+    /// shifted into them, and they are stored whole; a word may carry bytes past the number, which the next number
+    /// (or the caller) overwrites. (Text put into a scratch buffer and read back at an unaligned offset cost more than
+    /// finding the digits: the loads waited for the stores.)
     /// </summary>
-    private static int Layout(bool negative, ulong digits, int exponent, Span<byte> destination)
+    private static int Layout(bool negative, ulong scaled, int point, Span<byte> destination)
     {
-        var m = DigitCount(digits);
-        var point = m + exponent;
-        var scaled = digits * PowersOfTen[17 - m];
         var first8 = scaled / 1_000_000_000;
         var last9 = scaled - (first8 * 1_000_000_000);
         var next8 = last9 / 10;
