@@ -6,9 +6,11 @@ using System.Runtime.InteropServices;
 namespace BcPrep.Writing;
 
 /// <summary>
-/// Writes a double in exactly the characters of <c>value.ToString("R", CultureInfo.InvariantCulture)</c>, about five
+/// Writes a double in exactly the characters of <c>value.ToString("R", CultureInfo.InvariantCulture)</c>, several
 /// times faster: `calibrate` writes tens of millions of numbers a day, and the runtime's shortest round-trip
-/// conversion (about 200 ns a number) cost more than ten times the parsing of the day.
+/// conversion (about 200 ns a number) cost more than ten times the parsing of the day. On the values of a 1 kHz day's
+/// conditioned output this takes about 34 ns a number as ASCII bytes (<see cref="FormatAscii"/>), half the digit
+/// search and half the layout.
 /// </summary>
 /// <remarks>
 /// Digits: the shortest decimal that reads back to the same double, the closest to it when several are that short,
@@ -21,7 +23,7 @@ namespace BcPrep.Writing;
 /// plain notation when −3 ≤ p ≤ 17 (the runtime's limit for shortest digits, found by trying it: 1E+17 but
 /// 10000000000000000), otherwise d₁.d₂…dₙE±XX (at least two exponent digits); "-0" for
 /// negative zero. Subnormals and powers of two (other than integers) are rare enough to be left to the
-/// runtime's own conversion, whose digits for powers of two differ (see <see cref="Format"/>). The tests compare with the runtime on tens
+/// runtime's own conversion, whose digits for powers of two differ (see <see cref="FormatAscii"/>). The tests compare with the runtime on tens
 /// of millions of random and edge values.
 /// </remarks>
 public static class RoundTripNumber
@@ -193,10 +195,10 @@ public static class RoundTripNumber
         return vbp | (long)((ulong)((z & Mask63) + Mask63) >> 63);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static int FloorLog10Pow2(int e) => (int)((e * 661_971_961_083L) >> 41);
 
-    private static int FloorLog10ThreeQuartersPow2(int e) => (int)(((e * 661_971_961_083L) - 274_743_187_321L) >> 41);
-
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static int FloorLog2Pow10(int e) => (e * 1_741_647) >> 19;
 
     private static int Zero(bool negative, Span<byte> destination)
