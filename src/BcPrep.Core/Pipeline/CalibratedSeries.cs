@@ -48,7 +48,7 @@ public static class CalibratedSeries
                 // The tare `process` subtracts: the window statistics' mean (gaps bridged, spikes replaced).
                 result[channel] = FaultPolicy.Evaluate(rig, channel, w, times, values, plan.Start).TypeA.Mean;
             }
-        });
+        }, (w, channel) => w.Serves(channel)); // a tare window's own channel only: the other 16 of a wide day are not held
         var tared = plan with { Loggers = plan.Loggers.Where(l => l.Channels.Any(c => c.Tare is not null)).ToList() };
         DayScan.Run(rig, tared, converters, [collector], readUntil: new LoggerSeconds(windows.Max(w => w.EndS)));
         return result;
