@@ -16,7 +16,7 @@ internal static class ScratchSlots
 
     /// <summary>
     /// A window's bridged, finite sample times (window statistics). The same array as <see cref="FftReal"/>: the bridged
-    /// samples are dead once de-spiked (<see cref="Pipeline.WindowStatistics.Evaluate"/> takes every time it reports
+    /// samples are dead once de-spiked (<see cref="Pipeline.WindowStatistics.Evaluate(string, Pipeline.TimeWindow, double[], ReadOnlyMemory{double}, Conditioning.ConditioningSettings, Conditioning.SensorFaultLimits, Values.DayStart)"/> takes every time it reports
     /// before the Type A evaluation), and the autocorrelation's transforms run only in that evaluation, so a statistics
     /// thread holds one set of window-long arrays for both (30 MB less on the 1 kHz day, two threads).
     /// </summary>

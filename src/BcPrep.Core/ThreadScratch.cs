@@ -23,22 +23,4 @@ internal static class ThreadScratch
         }
         return array;
     }
-
-    /// <summary>
-    /// A thread-local array of exactly <paramref name="length"/> elements, for a callee that takes the length of the
-    /// array it is given (a <c>double[]</c>, not a span). The channels of one window usually hold the same number of
-    /// samples, so the array is usually the one of the previous call; otherwise a new one replaces it (not zeroed:
-    /// the caller writes every element). Contents are undefined.
-    /// </summary>
-    public static double[] RentExact(int slot, int length)
-    {
-        _slots ??= new double[ScratchSlots.Count][];
-        var array = _slots[slot];
-        if (array is null || array.Length != length)
-        {
-            array = GC.AllocateUninitializedArray<double>(length);
-            _slots[slot] = array;
-        }
-        return array;
-    }
 }

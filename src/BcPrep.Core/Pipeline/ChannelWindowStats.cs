@@ -51,16 +51,23 @@ public static class WindowStatistics
     /// </remarks>
     public static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, double[] values, ConditioningSettings settings, SensorFaultLimits limits, DayStart dayStart = default)
     {
+        ArgumentNullException.ThrowIfNull(values);
+        return Evaluate(channel, window, timesS, values.AsMemory(), settings, limits, dayStart);
+    }
+
+    /// <inheritdoc cref="Evaluate(string, TimeWindow, double[], double[], ConditioningSettings, SensorFaultLimits, DayStart)"/>
+    /// <remarks>The values as the first elements of a longer array (a statistics thread's scratch, <see cref="GatheredWindow.Load"/>).</remarks>
+    internal static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, ReadOnlyMemory<double> values, ConditioningSettings settings, SensorFaultLimits limits, DayStart dayStart = default)
+    {
         ArgumentNullException.ThrowIfNull(settings);
         ArgumentNullException.ThrowIfNull(timesS);
-        ArgumentNullException.ThrowIfNull(values);
-        var finite = values.Length - GapBridging.CountNonFinite(values);
+        var finite = values.Length - GapBridging.CountNonFinite(values.Span);
         if (finite < 3)
         {
             throw new BcPrepFailure(FailureKind.InputData, new SourceLocation("(logs)", Key: channel),
                 $"window '{window.Id}' ({dayStart.Since(window.Start).Value:F1}–{dayStart.Since(window.End).Value:F1} s since the first sample of the day) holds {finite} valid samples of '{channel}'; at least 3 are needed");
         }
-        var search = GapBridging.Search(timesS, values, settings.MaxBridgeS);
+        var search = GapBridging.Search(timesS, values.Span, settings.MaxBridgeS);
         var gaps = search.Report.Gaps;
         var interior = gaps.Where(g => !g.Bridged && !g.AtRecordEdge).ToList();
         var lostS = interior.Sum(g => g.DurationS);
@@ -102,12 +109,13 @@ public static class WindowStatistics
     /// The bridged series without its NaN/∞ cells (those of gaps left open), with times: the given arrays themselves
     /// when nothing is bridged or dropped (the usual case), else the thread's scratch arrays, valid until its next window.
     /// </summary>
-    private static (ReadOnlyMemory<double> TimesS, ReadOnlyMemory<double> Values) BridgedFiniteSamples(double[] timesS, double[] values, GapSearch search, int finite)
+    private static (ReadOnlyMemory<double> TimesS, ReadOnlyMemory<double> Values) BridgedFiniteSamples(double[] timesS, ReadOnlyMemory<double> valuesMemory, GapSearch search, int finite)
     {
-        if (search.BridgedPairs.Count == 0 && finite == values.Length)
+        if (search.BridgedPairs.Count == 0 && finite == valuesMemory.Length)
         {
-            return (timesS, values);
+            return (timesS, valuesMemory);
         }
+        var values = valuesMemory.Span;
         var length = values.Length + search.Report.InsertedSamples;
         var t = ThreadScratch.Rent(ScratchSlots.WindowTimes, length);
         var x = ThreadScratch.Rent(ScratchSlots.WindowValues, length);

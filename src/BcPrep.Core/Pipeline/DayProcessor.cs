@@ -192,15 +192,15 @@ public static class DayProcessor
     }
 
     /// <summary>
-    /// A detected window's channel gathered from the kept rows: its samples are loaded on the statistics thread when
+    /// A detected window's channels gathered from the kept rows, handed in together: each one's samples are loaded on the statistics thread when
     /// its statistics start and let go when they are done. The same statistics as a window read again (below).
     /// </summary>
-    internal static void Collect(RigDescription rig, DayStart dayStart, WindowStatsBook book, TimeWindow window, GatheredChannel channel) =>
-        book.Add(window, channel.Name, named => channel.Reduce((times, values) =>
+    internal static void Collect(RigDescription rig, DayStart dayStart, WindowStatsBook book, TimeWindow window, IReadOnlyList<GatheredChannel> channels) =>
+        book.AddAll(window, [.. channels.Select(channel => (channel.Name, (Func<TimeWindow, ChannelWindowStats>)(named => channel.Reduce((times, values) =>
         {
             RequireSamples(named, channel.Name, times, dayStart, null);
             return FaultPolicy.Evaluate(rig, channel.Name, named, times, values, dayStart);
-        }));
+        }))))]);
 
     internal static void Collect(RigDescription rig, DayStart dayStart, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,
         SourceLocation? pinnedAt = null)

@@ -38,7 +38,11 @@ public static class FaultPolicy
     /// each fault judged. A failing fault raises <see cref="BcPrepFailure"/> (<see cref="FailureKind.InputData"/>,
     /// exit code 3) naming channel, window and evidence.
     /// </summary>
-    public static ChannelWindowStats Evaluate(RigDescription rig, string channelId, TimeWindow window, double[] timesS, double[] values, DayStart dayStart)
+    public static ChannelWindowStats Evaluate(RigDescription rig, string channelId, TimeWindow window, double[] timesS, double[] values, DayStart dayStart) =>
+        Evaluate(rig, channelId, window, timesS, values.AsMemory(), dayStart);
+
+    /// <inheritdoc cref="Evaluate(RigDescription, string, TimeWindow, double[], double[], DayStart)"/>
+    internal static ChannelWindowStats Evaluate(RigDescription rig, string channelId, TimeWindow window, double[] timesS, ReadOnlyMemory<double> values, DayStart dayStart)
     {
         ArgumentNullException.ThrowIfNull(rig);
         ArgumentNullException.ThrowIfNull(window);

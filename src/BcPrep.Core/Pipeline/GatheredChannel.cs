@@ -12,13 +12,13 @@ internal sealed class GatheredChannel(GatheredWindow window, string name, int in
 {
     private readonly object _gate = new();
     private bool _started;
-    private (double[] TimesS, double[] Values)? _kept;
+    private (double[] TimesS, ReadOnlyMemory<double> Values)? _kept;
     private ExceptionDispatchInfo? _loadFailure;
 
     public string Name { get; } = name;
 
     /// <summary>Reduces the channel's samples (times, values), loading them the first time.</summary>
-    public T Reduce<T>(Func<double[], double[], T> reduce)
+    public T Reduce<T>(Func<double[], ReadOnlyMemory<double>, T> reduce)
     {
         bool again;
         lock (_gate)
@@ -35,7 +35,7 @@ internal sealed class GatheredChannel(GatheredWindow window, string name, int in
             _loadFailure?.Throw();
             throw new InvalidOperationException($"channel '{Name}' of a gathered window was reduced already and its samples let go");
         }
-        (double[] TimesS, double[] Values) samples;
+        (double[] TimesS, ReadOnlyMemory<double> Values) samples;
         try
         {
             samples = window.Load(index);
@@ -53,7 +53,7 @@ internal sealed class GatheredChannel(GatheredWindow window, string name, int in
         catch
         {
             // The values are the thread's scratch (GatheredWindow.Load), which its next channel overwrites.
-            _kept = (samples.TimesS, samples.Values.ToArray());
+            _kept = (samples.TimesS, samples.Values.ToArray().AsMemory());
             throw;
         }
         finally

@@ -49,7 +49,7 @@ internal sealed class GatheredWindow
     /// Loads channel <paramref name="channel"/> and the window's times; each channel is loaded once. The values are
     /// the calling thread's scratch, valid until its next load: a caller that keeps them copies them.
     /// </summary>
-    internal (double[] TimesS, double[] Values) Load(int channel)
+    internal (double[] TimesS, ReadOnlyMemory<double> Values) Load(int channel)
     {
         try
         {
@@ -58,12 +58,15 @@ internal sealed class GatheredWindow
             {
                 times = _timesS ??= ReadColumn(0, GC.AllocateUninitializedArray<double>(_count));
             }
-            // The values go into the thread's scratch (the channels of a window have one length, so one array serves
-            // them all): a fresh 8 MB array per channel of a 17-minute window at 1 kHz was large-object garbage that
-            // piled up between full collections. The reduction runs on this thread and keeps no reference to it.
-            var values = ReadColumn(channel + 1, ThreadScratch.RentExact(ScratchSlots.LoadedValues, _count));
+            // The values go into the thread's scratch, of the longest window's length so far, handed on as the first
+            // Count elements: a fresh 8 MB array per channel of a 17-minute window at 1 kHz was large-object garbage
+            // that piled up between full collections, and so was an array of each new window's exact length (every
+            // window has its own; on the 8 h day at 1 kHz, two threads × about 20 windows × 10 MB). The reduction runs
+            // on this thread and keeps no reference to it.
+            var scratch = ThreadScratch.Rent(ScratchSlots.LoadedValues, _count);
+            ReadColumn(channel + 1, scratch);
             _loaded.Add();
-            return (times, values);
+            return (times, scratch.AsMemory(0, _count));
         }
         finally
         {

@@ -34,7 +34,7 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource, IDisposable
     private readonly IReadOnlyList<string> _channels;
     private readonly PlateauScan _scan;
     private readonly double[] _means;
-    private readonly Action<TimeWindow, GatheredChannel> _onWindow;
+    private readonly Action<TimeWindow, IReadOnlyList<GatheredChannel>> _onWindow;
     private readonly RecentRows _rows;
     private readonly double _keptSpanS;
     private readonly HashSet<TimeWindow> _gathered = [];
@@ -47,11 +47,11 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource, IDisposable
     /// <param name="detectionFeed">The block sink the block means come from (directly or through conditioning).</param>
     /// <param name="blocks">The block means that sink fills.</param>
     /// <param name="pinned">Windows pinned in the rig file, which replace the detected windows whose stretch they overlap.</param>
-    /// <param name="onWindow">Receives (window interval, channel to load and reduce) of each gathered window and channel.</param>
+    /// <param name="onWindow">Receives (window interval, its channels to load and reduce) of each gathered window, all its channels at once.</param>
     /// <param name="keptSpanS">At most how far back from the latest block rows are kept (s); null for no limit but the kept values' budget.</param>
     /// <param name="store">Where the rows are kept (owned from here on); in memory when null.</param>
     public LiveDetection(RigDescription rig, DayStart dayStart, IBlockSink detectionFeed, BlockMeanSink blocks, IReadOnlyList<TimeWindow> pinned,
-        Action<TimeWindow, GatheredChannel> onWindow, double? keptSpanS = null, IRowBlockStore? store = null)
+        Action<TimeWindow, IReadOnlyList<GatheredChannel>> onWindow, double? keptSpanS = null, IRowBlockStore? store = null)
     {
         _detectionFeed = detectionFeed;
         _blocks = blocks;
@@ -147,10 +147,7 @@ internal sealed class LiveDetection : IBlockSink, IWindowSource, IDisposable
         var interval = Interval(_dayStart.OnClock(window.Start).Value, _dayStart.OnClock(window.End).Value);
         if (!_gathered.Contains(interval) && _rows.Covers(interval))
         {
-            foreach (var channel in _rows.Gather(interval).Channels)
-            {
-                _onWindow(interval, channel);
-            }
+            _onWindow(interval, _rows.Gather(interval).Channels);
             _gathered.Add(interval);
         }
     }

@@ -6,8 +6,8 @@ namespace BcPrep.Rig;
 
 /// <summary>
 /// Converts a number written with its unit ("52.5 mm", "20 degC", "4 inH2O") to SI. Parsing is UnitsNet's; this
-/// class only adds the ASCII spellings people type (degC, um, ohm) and names the SI unit of each dimension, so that
-/// no conversion factor is written by hand here.
+/// class only adds the ASCII spellings people type (degC, um, ohm) and names the SI unit of each dimension. The
+/// common units skip UnitsNet's start-up (<see cref="CommonUnits"/>, held to UnitsNet bit for bit by a test).
 /// </summary>
 public static class UnitText
 {
@@ -67,9 +67,15 @@ public static class UnitText
         {
             return TryTemperatureDifference(value, unit, text, out valueSi, out error);
         }
-        var (quantityType, siUnit) = Target(dimension);
-        if (!Quantity.TryParse(CultureInfo.InvariantCulture, quantityType, $"{value.ToString("R", CultureInfo.InvariantCulture)} {unit}", out var quantity))
+        if (CommonUnits.TryToSi(value, unit, dimension, out valueSi))
         {
+            return true;
+        }
+        var (quantityType, siUnit) = Target(dimension);
+        if (CommonUnits.BelongsElsewhere(unit, dimension)
+            || !Quantity.TryParse(CultureInfo.InvariantCulture, quantityType, $"{value.ToString("R", CultureInfo.InvariantCulture)} {unit}", out var quantity))
+        {
+            valueSi = double.NaN;
             error = $"'{unit}' in '{text}' is not a unit of {Describe(dimension)} (e.g. \"{Example(dimension)}\")";
             return false;
         }

@@ -132,9 +132,10 @@ internal static class FftAutocorrelation
     {
         var half = size / 2;
         // k = 0 and k = N/2 both come from Z[0] alone (the twiddle of N/2 is −1).
-        var p0 = Power(re[0], im[0], re[0], -im[0], twiddles.Cos(0), -twiddles.Sin(0));
+        var (cos0, sin0) = twiddles.At(0);
+        var p0 = Power(re[0], im[0], re[0], -im[0], cos0, -sin0);
         var pHalf = Power(re[0], im[0], re[0], -im[0], -1.0, 0.0);
-        (re[0], im[0]) = Packed(p0, pHalf, twiddles.Cos(0), twiddles.Sin(0));
+        (re[0], im[0]) = Packed(p0, pHalf, cos0, sin0);
         for (var k = 1; k <= half / 2; k++)
         {
             var j = half - k;
@@ -142,10 +143,8 @@ internal static class FftAutocorrelation
             var zkIm = im[k];
             var zjRe = re[j];
             var zjIm = im[j];
-            var cosK = twiddles.Cos(k);
-            var sinK = twiddles.Sin(k);
-            var cosJ = twiddles.Cos(j);
-            var sinJ = twiddles.Sin(j);
+            var (cosK, sinK) = twiddles.At(k);
+            var (cosJ, sinJ) = twiddles.At(j);
             var pk = Power(zkRe, zkIm, zjRe, -zjIm, cosK, -sinK);
             var pj = Power(zjRe, zjIm, zkRe, -zkIm, cosJ, -sinJ);
             (re[k], im[k]) = Packed(pk, pj, cosK, sinK);

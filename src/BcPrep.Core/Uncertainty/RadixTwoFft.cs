@@ -9,12 +9,14 @@ namespace BcPrep.Uncertainty;
 /// library's does) only adds contention; this one is about four times cheaper in CPU on a 2¹⁸-point transform.
 /// </summary>
 /// <remarks>
-/// Twiddles: every stage's cos, sin(2πk/L) equals, to the bit, entry k·(N/L) of the longest stage N asked for, because
-/// 2π(mk)/(mL) rounds to the same double as 2πk/L when m is a power of two (scaling by a power of two is exact). So the
-/// process keeps one table of the longest stage (N/2 entries of each) and, for the stages up to
-/// <see cref="ContiguousStages"/>, a small contiguous copy that a stage reads in order and in vectors. A longer stage
-/// reads the long table with a stride, a chunk at a time. The former table held every stage contiguously, twice the
-/// memory (64 MB for the 2²²-point spectrum of a 20-minute window at 1 kHz, now 32 MB and the 4 MB copy), with the same values.
+/// Twiddles: every stage's cos, sin(2πk/L) equals, to the bit, entry k·(N/L) of a longer stage N, because
+/// 2π(mk)/(mL) rounds to the same double as 2πk/L when m is a power of two (scaling by a power of two is exact). The
+/// stages up to <see cref="ContiguousStages"/> read a small contiguous copy of those values, in order and in vectors.
+/// A longer stage (and the real-input steps of a whole-window transform) takes its twiddles from
+/// <see cref="FactoredTwiddles"/>: two tables of about √N entries, the twiddle of index j = h·F + l being the angle
+/// sum of coarse entry h and fine entry l. A table of N/2 entries (the former way) held 32 MB at the 2²²-point
+/// spectrum of a 20-minute window at 1 kHz; the factored tables hold 48 kB, and each twiddle lies within 4.5e-16 of
+/// Math.Cos/Math.Sin of its angle and of the exact value (tested), as close to the exact value as the direct one.
 /// </remarks>
 internal static class RadixTwoFft
 {
@@ -30,13 +32,10 @@ internal static class RadixTwoFft
     private const int GatherChunk = 1024;
 
     private static readonly Lock TableLock = new();
-    private static LongStage _long = new([1.0], [0.0], 2);
+    private static FactoredTwiddles _long = FactoredTwiddles.Build(2);
 
     /// <summary>Stage L's cos, sin(2πk/L), k &lt; L/2, at [L/2, L), for L ≤ <see cref="ContiguousStages"/>.</summary>
     private static readonly (double[] Cos, double[] Sin) Contiguous = BuildContiguous();
-
-    /// <summary>cos, sin(2πk/Size) for k &lt; Size/2; one object, so a reader never pairs the cosines of one table with the sines of another.</summary>
-    private sealed record LongStage(double[] Cos, double[] Sin, int Size);
 
     /// <summary>
     /// X[k] = Σ x[j]·exp(∓2πi·jk/n) over the first <paramref name="n"/> elements (a power of two); the minus sign
@@ -71,7 +70,7 @@ internal static class RadixTwoFft
     }
 
     /// <summary>Every butterfly stage over an input in bit-reversed order.</summary>
-    private static void RunStages(Span<double> re, Span<double> im, int n, bool inverse, LongStage? longStage)
+    private static void RunStages(Span<double> re, Span<double> im, int n, bool inverse, FactoredTwiddles? longStage)
     {
         var (cos, sin) = Contiguous;
         var sign = inverse ? 1.0 : -1.0;
@@ -147,18 +146,16 @@ internal static class RadixTwoFft
     }
 
     /// <summary>
-    /// The stages longer than <see cref="ContiguousStages"/>: their twiddles are every (Size/L)-th entry of the long
-    /// table, gathered a chunk at a time into the stack and applied to that chunk of every group of the stage. The
-    /// butterflies and their twiddles are those of <see cref="Stages"/>, only visited chunk by chunk.
+    /// The stages longer than <see cref="ContiguousStages"/>: their twiddles are every (Size/L)-th index of the
+    /// factored tables, made a chunk at a time into the stack and applied to that chunk of every group of the stage.
+    /// The butterflies are those of <see cref="Stages"/>, only visited chunk by chunk.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void LongStages(Span<double> re, Span<double> im, int fromLength, int toLength, LongStage table, double sign)
+    private static void LongStages(Span<double> re, Span<double> im, int fromLength, int toLength, FactoredTwiddles table, double sign)
     {
         var n = re.Length;
         Span<double> wCos = stackalloc double[GatherChunk];
         Span<double> wSin = stackalloc double[GatherChunk];
-        var cos = table.Cos;
-        var sin = table.Sin;
         for (var length = fromLength; length <= toLength; length <<= 1)
         {
             var half = length >> 1;
@@ -166,11 +163,7 @@ internal static class RadixTwoFft
             for (var from = 0; from < half; from += GatherChunk)
             {
                 var count = Math.Min(GatherChunk, half - from);
-                for (int i = 0, j = from * stride; i < count; i++, j += stride)
-                {
-                    wCos[i] = cos[j];
-                    wSin[i] = sin[j];
-                }
+                table.Fill(from * stride, stride, wCos[..count], wSin[..count]);
                 for (var start = 0; start < n; start += length)
                 {
                     Butterflies(re.Slice(start + from, count), im.Slice(start + from, count), re.Slice(start + half + from, count), im.Slice(start + half + from, count), wCos[..count], wSin[..count], sign);
@@ -220,8 +213,8 @@ internal static class RadixTwoFft
 
     /// <summary>
     /// cos and sin of 2πk/n for k &lt; n/2 (n a power of two): the stage of length n, read in place from the contiguous
-    /// copy or the long table, never copied. The long table grows to the largest n asked for and serves every
-    /// smaller one with a stride: a day's windows use a few sizes, and at 2²² points it holds 32 MB.
+    /// copy (n ≤ <see cref="ContiguousStages"/>, the exact Math.Cos/Math.Sin values) or made from the factored tables.
+    /// These grow to the largest n asked for and serve every smaller one with a stride.
     /// </summary>
     public static StageTwiddles TwiddlesFor(int n)
     {
@@ -234,17 +227,17 @@ internal static class RadixTwoFft
             return new StageTwiddles(Contiguous.Cos, Contiguous.Sin, n / 2, 1, Math.Max(1, n / 2));
         }
         var table = LongStageFor(n);
-        return new StageTwiddles(table.Cos, table.Sin, 0, table.Size / n, n / 2);
+        return new StageTwiddles(table, table.Size / n, n / 2);
     }
 
-    private static LongStage LongStageFor(int n)
+    private static FactoredTwiddles LongStageFor(int n)
     {
         var table = Volatile.Read(ref _long);
         return table.Size >= n ? table : Grow(n);
     }
 
-    /// <summary>The long table at <paramref name="n"/> points, 2πk/n for k &lt; n/2, as the expression gives it.</summary>
-    private static LongStage Grow(int n)
+    /// <summary>The factored tables at <paramref name="n"/> points, built once for the largest size asked for.</summary>
+    private static FactoredTwiddles Grow(int n)
     {
         lock (TableLock)
         {
@@ -252,8 +245,7 @@ internal static class RadixTwoFft
             {
                 return _long;
             }
-            var (cos, sin) = StageOf(n);
-            var table = new LongStage(cos, sin, n);
+            var table = FactoredTwiddles.Build(n);
             Volatile.Write(ref _long, table);
             return table;
         }

@@ -92,10 +92,12 @@ internal static class SectionedAutocorrelation
             var aIm = im[k];
             var bRe = re[j];
             var bIm = im[j];
-            (re[k], im[k]) = Half(aRe, aIm, bRe, bIm, twiddles.Cos(k), twiddles.Sin(k));
+            var (cosK, sinK) = twiddles.At(k);
+            (re[k], im[k]) = Half(aRe, aIm, bRe, bIm, cosK, sinK);
             if (j != k)
             {
-                (re[j], im[j]) = Half(bRe, bIm, aRe, aIm, twiddles.Cos(j), twiddles.Sin(j));
+                var (cosJ, sinJ) = twiddles.At(j);
+                (re[j], im[j]) = Half(bRe, bIm, aRe, aIm, cosJ, sinJ);
             }
         }
     }
@@ -157,8 +159,7 @@ internal static class SectionedAutocorrelation
             var evenIm = 0.5 * (ci + di);
             var tr = 0.5 * (cr - dr);
             var ti = 0.5 * (ci - di);
-            var cos = twiddles.Cos(k);
-            var sin = twiddles.Sin(k);
+            var (cos, sin) = twiddles.At(k);
             var oddRe = (tr * cos) - (ti * sin);
             var oddIm = (tr * sin) + (ti * cos);
             re[k] = evenRe - oddIm;

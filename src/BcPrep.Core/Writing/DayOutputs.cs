@@ -39,7 +39,7 @@ public static class DayOutputs
             files.Add(path, content);
         }
         var names = files.Files.Select(f => f.RelativePath).Append(ManifestName).ToList();
-        files.Add(ManifestName, ManifestWriter.Write(day, provenance, names, files.Hashes()));
+        files.Add(ManifestName, ManifestWriter.WriteUtf8(day, provenance, names, files.Hashes()));
         return files;
     }
 

@@ -153,13 +153,13 @@ public sealed class DiskRowBlocksTests : IDisposable
         }
         var gathered = rows.Gather(new TimeWindow("w", 5.5, 150.5));
         var channel = gathered.Channels[1];
-        double[]? first = null;
+        ReadOnlyMemory<double>? first = null;
         Assert.Throws<InvalidOperationException>(() => channel.Reduce<int>((_, values) =>
         {
             first = values;
             throw new InvalidOperationException("fails");
         }));
-        var firstCopy = first!.ToArray();
+        var firstCopy = first!.Value.ToArray();
         // Another channel loaded on this thread reuses the scratch the failed one was loaded into.
         Assert.Equal(firstCopy.Length, gathered.Channels[2].Reduce((_, values) => values.Length));
         rows.Release();
