@@ -81,6 +81,9 @@ public static class CalibrateCommand
                 _headerWritten = true;
             }
             var slot = _columns.Select(id => channels.ToList().IndexOf(id)).ToArray();
+            // The columns as one array of arrays, read once per cell without the list's interface call (65 million
+            // cells on a 1 kHz 17-column hour); a column with no channel in this block is null.
+            var columns = slot.Select(s => s >= 0 ? valuesSi[s] : null).ToArray();
             if (output is CsvOutput csv && count >= 2 * RowsPerPart)
             {
                 // Formatting the numbers costs more than parsing them: the block's rows are formatted in parts on
@@ -96,7 +99,7 @@ public static class CalibrateCommand
                 for (var first = 0; first < parts; first += perRound)
                 {
                     var round = Math.Min(perRound, parts - first);
-                    Parallel.For(0, round, p => WriteRows(_parts[p], slot, timeS, valuesSi, (first + p) * RowsPerPart, Math.Min(count, (first + p + 1) * RowsPerPart)));
+                    Parallel.For(0, round, p => WriteRows(_parts[p], columns, timeS, (first + p) * RowsPerPart, Math.Min(count, (first + p + 1) * RowsPerPart)));
                     for (var p = 0; p < round; p++)
                     {
                         csv.Write(_parts[p]);
@@ -105,7 +108,7 @@ public static class CalibrateCommand
             }
             else
             {
-                WriteRows(output, slot, timeS, valuesSi, 0, count);
+                WriteRows(output, columns, timeS, 0, count);
             }
             output.Flush();
         }
@@ -114,18 +117,18 @@ public static class CalibrateCommand
         private const int PartsPerCore = 4;
         private readonly List<CsvOutput> _parts = [];
 
-        private void WriteRows(TabularOutput rows, int[] slot, double[] timeS, IReadOnlyList<double[]> valuesSi, int from, int to)
+        private void WriteRows(TabularOutput rows, double[]?[] columns, double[] timeS, int from, int to)
         {
             if (rows is CsvOutput csv)
             {
                 // A whole row at a time: a cell with no channel in this block is NaN, which is written empty.
-                Span<double> cells = stackalloc double[slot.Length + 1];
+                Span<double> cells = stackalloc double[columns.Length + 1];
                 for (var i = from; i < to; i++)
                 {
                     cells[0] = _start.Since(new LoggerSeconds(timeS[i])).Value;
-                    for (var c = 0; c < slot.Length; c++)
+                    for (var c = 0; c < columns.Length; c++)
                     {
-                        cells[c + 1] = slot[c] >= 0 ? valuesSi[slot[c]][i] : double.NaN;
+                        cells[c + 1] = columns[c] is { } column ? column[i] : double.NaN;
                     }
                     csv.Row(cells);
                 }
@@ -134,11 +137,11 @@ public static class CalibrateCommand
             for (var i = from; i < to; i++)
             {
                 rows.Number(_start.Since(new LoggerSeconds(timeS[i])).Value);
-                foreach (var s in slot)
+                foreach (var column in columns)
                 {
-                    if (s >= 0)
+                    if (column is not null)
                     {
-                        rows.Number(valuesSi[s][i]);
+                        rows.Number(column[i]);
                     }
                     else
                     {
