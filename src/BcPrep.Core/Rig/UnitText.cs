@@ -150,7 +150,7 @@ public static class UnitText
         return unit;
     }
 
-    private static (Type QuantityType, Enum SiUnit) Target(Dimension dimension) => dimension switch
+    internal static (Type QuantityType, Enum SiUnit) Target(Dimension dimension) => dimension switch
     {
         Dimension.Length => (typeof(Length), LengthUnit.Meter),
         Dimension.Pressure => (typeof(Pressure), PressureUnit.Pascal),

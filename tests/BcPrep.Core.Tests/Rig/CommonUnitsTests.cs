@@ -1,7 +1,6 @@
 using System.Globalization;
 using BcPrep.Rig;
 using UnitsNet;
-using UnitsNet.Units;
 
 namespace BcPrep.Tests.Rig;
 
@@ -26,7 +25,7 @@ public class CommonUnitsTests
     [MemberData(nameof(Listed))]
     public void A_listed_unit_converts_as_UnitsNet_does_bit_for_bit(Dimension dimension, string unit)
     {
-        var (quantityType, siUnit) = Target(dimension);
+        var (quantityType, siUnit) = UnitText.Target(dimension);
         foreach (var value in Values())
         {
             var text = value.ToString("R", CultureInfo.InvariantCulture) + " " + unit;
@@ -49,7 +48,7 @@ public class CommonUnitsTests
             foreach (var dimension in dimensions.Where(d => CommonUnits.BelongsElsewhere(unit, d)))
             {
                 pairs++;
-                Assert.False(Quantity.TryParse(CultureInfo.InvariantCulture, Target(dimension).QuantityType, "1 " + unit, out _),
+                Assert.False(Quantity.TryParse(CultureInfo.InvariantCulture, UnitText.Target(dimension).QuantityType, "1 " + unit, out _),
                     $"UnitsNet reads '1 {unit}' as {dimension}");
                 Assert.False(UnitText.TryToSi("1 " + unit, dimension, out _, out var error));
                 Assert.Contains($"'{unit}' in '1 {unit}' is not a unit of", error);
@@ -59,7 +58,7 @@ public class CommonUnitsTests
         foreach (var (dimension, unit) in CommonUnits.ReadElsewhereToo)
         {
             // The exceptions are real: UnitsNet reads them (Ångström, petaampere, hand, minute), so they must reach it.
-            Assert.True(Quantity.TryParse(CultureInfo.InvariantCulture, Target(dimension).QuantityType, "1 " + unit, out _), $"({dimension}, {unit})");
+            Assert.True(Quantity.TryParse(CultureInfo.InvariantCulture, UnitText.Target(dimension).QuantityType, "1 " + unit, out _), $"({dimension}, {unit})");
             Assert.False(CommonUnits.BelongsElsewhere(unit, dimension));
         }
         Assert.False(CommonUnits.BelongsElsewhere("mA", Dimension.Current));
@@ -94,19 +93,4 @@ public class CommonUnitsTests
             yield return round;
         }
     }
-
-    private static (Type QuantityType, Enum SiUnit) Target(Dimension dimension) => dimension switch
-    {
-        Dimension.Length => (typeof(Length), LengthUnit.Meter),
-        Dimension.Pressure => (typeof(Pressure), PressureUnit.Pascal),
-        Dimension.Temperature => (typeof(Temperature), TemperatureUnit.Kelvin),
-        Dimension.Voltage => (typeof(ElectricPotential), ElectricPotentialUnit.Volt),
-        Dimension.Current => (typeof(ElectricCurrent), ElectricCurrentUnit.Ampere),
-        Dimension.Resistance => (typeof(ElectricResistance), ElectricResistanceUnit.Ohm),
-        Dimension.MassFlow => (typeof(MassFlow), MassFlowUnit.KilogramPerSecond),
-        Dimension.Duration => (typeof(Duration), DurationUnit.Second),
-        Dimension.Frequency => (typeof(Frequency), FrequencyUnit.Hertz),
-        Dimension.Power => (typeof(Power), PowerUnit.Watt),
-        _ => throw new ArgumentOutOfRangeException(nameof(dimension)),
-    };
 }
