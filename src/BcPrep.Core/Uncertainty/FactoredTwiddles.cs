@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.CompilerServices;
 
 namespace BcPrep.Uncertainty;
 
@@ -60,14 +61,14 @@ internal sealed class FactoredTwiddles
     /// <summary>cos, sin(2πj/Size), j &lt; Size/2.</summary>
     public (double Cos, double Sin) At(int j)
     {
-        var h = j >> _fineBits;
         var l = j & _fineMask;
-        var c = _coarseCos[h];
-        var s = _coarseSin[h];
-        var fc = _fineCosMinusOne[l];
-        var fs = _fineSin[l];
-        return (c + ((c * fc) - (s * fs)), s + ((s * fc) + (c * fs)));
+        return AngleSum(_coarseCos[j >> _fineBits], _coarseSin[j >> _fineBits], _fineCosMinusOne[l], _fineSin[l]);
     }
+
+    /// <summary>cos and sin of a coarse angle (c, s) plus a fine one (its cosine less one, fc, and its sine, fs).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static (double Cos, double Sin) AngleSum(double c, double s, double fc, double fs) =>
+        (c + ((c * fc) - (s * fs)), s + ((s * fc) + (c * fs)));
 
     /// <summary>cos, sin(2πj/Size) for j = first, first + stride, … into <paramref name="cos"/> and <paramref name="sin"/> (one per element).</summary>
     public void Fill(int first, int stride, Span<double> cos, Span<double> sin)
@@ -80,12 +81,7 @@ internal sealed class FactoredTwiddles
         {
             var h = j >> _fineBits;
             var l = j & _fineMask;
-            var c = coarseCos[h];
-            var s = coarseSin[h];
-            var fc = fineCosMinusOne[l];
-            var fs = fineSin[l];
-            cos[i] = c + ((c * fc) - (s * fs));
-            sin[i] = s + ((s * fc) + (c * fs));
+            (cos[i], sin[i]) = AngleSum(coarseCos[h], coarseSin[h], fineCosMinusOne[l], fineSin[l]);
         }
     }
 }
