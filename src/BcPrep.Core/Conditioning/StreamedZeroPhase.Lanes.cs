@@ -97,6 +97,16 @@ internal sealed partial class StreamedZeroPhase
             StreamedSectionPass.PushLanes(first, v0, v1, v2, v3);
             return;
         }
+        if (p._segmentStart.Count == 0 && v0.Length > p._minimumPad)
+        {
+            // As Feed: a first input longer than the pad goes on where it is.
+            foreach (var lane in lanes)
+            {
+                lane._streaming = true;
+            }
+            StreamedSectionPass.PushLanes(first, v0, v1, v2, v3);
+            return;
+        }
         lanes[0]._segmentStart.AddRange(v0);
         lanes[1]._segmentStart.AddRange(v1);
         lanes[2]._segmentStart.AddRange(v2);

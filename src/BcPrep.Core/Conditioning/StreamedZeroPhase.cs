@@ -96,7 +96,14 @@ internal sealed partial class StreamedZeroPhase
             _passes[0].Push(values);
             return;
         }
-        // The first samples wait until the segment is known to be longer than the pad (else it stays unfiltered).
+        // The first samples wait until the segment is known to be longer than the pad (else it stays unfiltered); a
+        // first input already longer goes on where it is.
+        if (_segmentStart.Count == 0 && values.Length > _minimumPad)
+        {
+            _streaming = true;
+            _passes[0].Push(values);
+            return;
+        }
         _segmentStart.AddRange(values);
         if (_segmentStart.Count > _minimumPad)
         {

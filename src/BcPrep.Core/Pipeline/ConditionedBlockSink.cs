@@ -123,6 +123,12 @@ public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, i
         }
     }
 
+    /// <summary>Rows passed on per call at most: the filters emit a stretch of every channel at once (about 130 000
+    /// rows at 1 kHz, more at a segment's end), and arrays as long as the longest of those were larger than the rows
+    /// need (their pages first touched, which costs more than copying into them). A sink reads rows in order, so
+    /// how they are cut into blocks changes nothing it writes.</summary>
+    internal const int RowsPerBlock = 65536;
+
     /// <summary>Passes on the rows every channel has finished (all channels of a logger share one time axis).</summary>
     private void Drain()
     {
@@ -133,39 +139,46 @@ public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, i
             return;
         }
         var first = _conditioners[channels[0]];
-        // The rows go out in arrays kept from block to block (a sink reads a block and keeps none of it, as with
-        // the reader's blocks): a block is about 100 000 rows, and fresh arrays for each went to the large-object heap.
-        if (_times.Length < ready)
+        for (var c = 1; c < channels.Count; c++)
         {
-            var room = Math.Max(ready, _times.Length * 5 / 4);
-            _times = new double[room];
+            // Only a channel with samples inserted by gap bridging has times of its own to compare; the others sit
+            // at the same positions of the shared axis as the first channel.
+            if (!_conditioners[channels[c]].SameOutputTimes(first, ready))
+            {
+                throw new InvalidOperationException($"conditioned time axes of '{channels[0]}' and '{channels[c]}' differ");
+            }
+        }
+        // The rows go out in arrays kept from block to block (a sink reads a block and keeps none of it, as with
+        // the reader's blocks).
+        var rows = Math.Min(ready, RowsPerBlock);
+        if (_times.Length < rows)
+        {
+            _times = new double[Math.Max(rows, Math.Min(RowsPerBlock, _times.Length * 2))];
             _values = new double[channels.Count][];
         }
         if (_values.Length != channels.Count)
         {
             _values = new double[channels.Count][];
         }
-        first.CopyOutputTimes(_times.AsSpan(0, ready));
-        for (var c = 0; c < channels.Count; c++)
+        for (var from = 0; from < ready; from += RowsPerBlock)
         {
-            var s = _conditioners[channels[c]];
-            // Only a channel with samples inserted by gap bridging has times of its own to compare; the others sit
-            // at the same positions of the shared axis as the first channel.
-            if (c > 0 && !s.SameOutputTimes(first, ready))
+            var n = Math.Min(RowsPerBlock, ready - from);
+            first.CopyOutputTimes(_times.AsSpan(0, n));
+            for (var c = 0; c < channels.Count; c++)
             {
-                throw new InvalidOperationException($"conditioned time axes of '{channels[0]}' and '{channels[c]}' differ");
+                var s = _conditioners[channels[c]];
+                if (_values[c] is null || _values[c].Length < _times.Length)
+                {
+                    _values[c] = new double[_times.Length];
+                }
+                CollectionsMarshal.AsSpan(s.OutputValues).Slice(from, n).CopyTo(_values[c]);
+                s.DropOutputTimes(n);
             }
-            if (_values[c] is null || _values[c].Length < _times.Length)
-            {
-                _values[c] = new double[_times.Length];
-            }
-            CollectionsMarshal.AsSpan(s.OutputValues)[..ready].CopyTo(_values[c]);
-            s.OutputValues.RemoveRange(0, ready);
+            inner.AcceptBlock(channels, _times, _values, n);
         }
         foreach (var id in channels)
         {
-            _conditioners[id].DropOutputTimes(ready);
+            _conditioners[id].OutputValues.RemoveRange(0, ready);
         }
-        inner.AcceptBlock(channels, _times, _values, ready);
     }
 }
