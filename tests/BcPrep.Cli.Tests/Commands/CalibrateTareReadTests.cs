@@ -110,4 +110,40 @@ public sealed class CalibrateTareReadTests
         Assert.Contains("day.csv:5000:", bad.Error, StringComparison.Ordinal);
         Assert.Equal("", bad.Out);
     }
+
+    [Fact]
+    public void A_tare_refused_before_a_bad_cell_further_in_the_first_read_is_the_refusal_reported()
+    {
+        // p_in's tare (2–9 min) has no samples: its window is complete within the first block. p_out's tare moves to
+        // 60–70 min, so the first read goes on into the second block, where line 9000 holds a bad cell. The tare
+        // statistics run beside the read; the refusal of the window completed first must still be the one reported,
+        // on every run, as when each window was evaluated on the reading thread before the read went on.
+        using var temp = new TempFolder();
+        var lines = File.ReadAllLines(SampleDay.Morning);
+        for (var line = 2; line <= lines.Length; line++)
+        {
+            var t = (line - 2) * 0.5;
+            if (t >= 100.0 && t <= 560.0)
+            {
+                lines = WithCell(lines, line, "PT_IN_V", "").Split('\n')[..lines.Length];
+            }
+        }
+        var day = temp.File("day.csv");
+        File.WriteAllText(day, WithCell(lines, 9000, "TC_W1_MV", "0.1x"));
+        var rig = temp.File("rig.toml");
+        var text = RigText;
+        var second = text.LastIndexOf(SampleTare, StringComparison.Ordinal);
+        Assert.True(second > text.IndexOf(SampleTare, StringComparison.Ordinal));
+        File.WriteAllText(rig, text[..second] + "tare = { from = \"60 min\", to = \"70 min\" }" + text[(second + SampleTare.Length)..]);
+
+        for (var run = 0; run < 3; run++)
+        {
+            var bad = CliRunner.Run("calibrate", "--conditioned", rig, day);
+
+            Assert.Equal(3, bad.ExitCode);
+            Assert.Contains("the tare interval of 'p_in' holds no samples", bad.Error, StringComparison.Ordinal);
+            Assert.DoesNotContain("0.1x", bad.Error, StringComparison.Ordinal);
+            Assert.Equal("", bad.Out);
+        }
+    }
 }
