@@ -146,4 +146,48 @@ public sealed class CalibrateTareReadTests
             Assert.Equal("", bad.Out);
         }
     }
+
+    // The first read stops at the first block whose last time reaches the last tare's end. A clock that then steps
+    // back into the tare interval would put tare samples after that block, where the first read does not look; but
+    // every such day is refused where the clock steps back (times must increase within a file, and a file may not
+    // start before the previous one ends), so no day that is accepted loses tare samples. What such a refusal leaves
+    // is the rows before it, with the tare of the whole interval (the clean day's rows, bit for bit), and exit code 3.
+    [Fact]
+    public void A_clock_stepping_back_into_the_tare_interval_after_the_first_read_is_refused_with_the_tare_of_the_whole_interval()
+    {
+        using var temp = new TempFolder();
+        var lines = File.ReadAllLines(SampleDay.Morning);
+        var clean = Lines(CliRunner.Run("calibrate", SampleDay.Rig, SampleDay.Morning).Out);
+        // Line 9000 (second block) stamped 300 s after the start: inside the 2–9 min tares.
+        var day = temp.File("day.csv");
+        File.WriteAllText(day, WithCell(lines, 9000, "timestamp", "2026-11-24T09:05:00.000"));
+
+        var stepped = CliRunner.Run("calibrate", SampleDay.Rig, day);
+
+        Assert.Equal(3, stepped.ExitCode);
+        Assert.Contains("day.csv:9000:", stepped.Error, StringComparison.Ordinal);
+        Assert.Contains("goes back from", stepped.Error, StringComparison.Ordinal);
+        Assert.Equal(string.Join('\n', clean.Take(1 + 8192)) + "\n", stepped.Out);
+    }
+
+    [Fact]
+    public void A_second_file_starting_back_inside_the_tare_interval_is_refused_with_the_tare_of_the_whole_interval()
+    {
+        // The first file holds 0–749.5 s (one block, past the tares' end at 540 s: the first read stops there); the
+        // second starts again at 300 s, inside the tare interval.
+        using var temp = new TempFolder();
+        var lines = File.ReadAllLines(SampleDay.Morning);
+        var clean = Lines(CliRunner.Run("calibrate", SampleDay.Rig, SampleDay.Morning).Out);
+        var first = temp.File("first.csv");
+        File.WriteAllLines(first, lines.Take(1 + 1500));
+        var second = temp.File("second.csv");
+        File.WriteAllLines(second, lines.Take(1).Concat(lines.Skip(1 + 600).Take(2400)));
+
+        var stepped = CliRunner.Run("calibrate", SampleDay.Rig, first, second);
+
+        Assert.Equal(3, stepped.ExitCode);
+        Assert.Contains("second.csv:2:", stepped.Error, StringComparison.Ordinal);
+        Assert.Contains("the files overlap in time", stepped.Error, StringComparison.Ordinal);
+        Assert.Equal(string.Join('\n', clean.Take(1 + 1500)) + "\n", stepped.Out);
+    }
 }
