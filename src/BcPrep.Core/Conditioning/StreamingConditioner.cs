@@ -34,9 +34,13 @@ public sealed class StreamingConditioner
     private double[] _bridgedTimes = [];
     private double[] _bridgedValues = [];
     private double[] _despiked = [];
+    private int _despikedRoom;
     private bool[] _interpolated = [];
     private readonly TimeRuns _pendingRuns = new();
-    private readonly List<double> _pendingValues = [];
+    // A pending chunk keeps the de-spiked array it was written to (from its first emitted sample), instead of a copy
+    // of its values; the array comes back to the spares once the chunk is filtered.
+    private readonly List<(double[] Values, int Start)> _pendingValues = [];
+    private readonly Stack<double[]> _spareDespiked = new();
     private readonly TimeRuns _outRuns = new();
 
     /// <param name="settings">Conditioning settings (validated when the first chunk is conditioned).</param>
@@ -222,12 +226,11 @@ public sealed class StreamingConditioner
     /// <summary>Filters the pending chunks (<see cref="DeferFilters"/>) of this channel alone.</summary>
     internal void AcceptPending()
     {
-        var offset = 0;
+        var p = 0;
         foreach (var run in _pendingRuns.Runs)
         {
             _outRuns.Add(run);
-            _filters!.Accept(run.Times(_axis), CollectionsMarshal.AsSpan(_pendingValues).Slice(offset, run.Length));
-            offset += run.Length;
+            _filters!.Accept(run.Times(_axis), PendingValues(p++, run.Length));
         }
         ClearPending();
         Tidy();
@@ -241,8 +244,10 @@ public sealed class StreamingConditioner
     internal static void AcceptPending(IReadOnlyList<StreamingConditioner> group)
     {
         var first = group[0];
-        // The same pending times in every channel (on one shared axis: the same positions, found without reading them).
+        // The same pieces (the filters' stretches follow the lengths pushed) with the same times in every channel (on
+        // one shared axis: the same positions, found without reading them).
         var together = group.Count == StreamedSectionPass.Lanes && group.All(c => c._filters is not null
+            && c._pendingRuns.Runs.Select(r => r.Length).SequenceEqual(first._pendingRuns.Runs.Select(r => r.Length))
             && c._pendingRuns.SameAs(c._axis, first._pendingRuns, first._axis));
         if (!together)
         {
@@ -253,16 +258,13 @@ public sealed class StreamingConditioner
             return;
         }
         var filters = group.Select(c => c._filters!).ToArray();
-        var v0 = CollectionsMarshal.AsSpan(group[0]._pendingValues);
-        var v1 = CollectionsMarshal.AsSpan(group[1]._pendingValues);
-        var v2 = CollectionsMarshal.AsSpan(group[2]._pendingValues);
-        var v3 = CollectionsMarshal.AsSpan(group[3]._pendingValues);
-        var offset = 0;
+        var p = 0;
         foreach (var run in first._pendingRuns.Runs)
         {
             var length = run.Length;
-            StreamedZeroPhase.AcceptLanes(filters, run.Times(first._axis), v0.Slice(offset, length), v1.Slice(offset, length), v2.Slice(offset, length), v3.Slice(offset, length));
-            offset += length;
+            StreamedZeroPhase.AcceptLanes(filters, run.Times(first._axis), group[0].PendingValues(p, length), group[1].PendingValues(p, length),
+                group[2].PendingValues(p, length), group[3].PendingValues(p, length));
+            p++;
         }
         foreach (var c in group)
         {
@@ -275,9 +277,20 @@ public sealed class StreamingConditioner
         }
     }
 
+    /// <summary>The values of pending chunk <paramref name="piece"/> (in the order of the pending runs).</summary>
+    private ReadOnlySpan<double> PendingValues(int piece, int length)
+    {
+        var (values, start) = _pendingValues[piece];
+        return values.AsSpan(start, length);
+    }
+
     private void ClearPending()
     {
         _pendingRuns.Clear();
+        foreach (var (values, _) in _pendingValues)
+        {
+            _spareDespiked.Push(values);
+        }
         _pendingValues.Clear();
     }
 
@@ -291,8 +304,9 @@ public sealed class StreamingConditioner
         var n = end + search.Report.InsertedSamples;
         if (_despiked.Length < n)
         {
-            var room = Math.Max(n, _despiked.Length * 5 / 4);
+            var room = Math.Max(n, _despikedRoom * 5 / 4);
             _despiked = new double[room];
+            _despikedRoom = room;
         }
         // Nearly every chunk has nothing to bridge: then the bridged series is the chunk itself, read in place. A
         // bridged chunk without inserted samples keeps its times too; only inserted samples give it times of its own.
@@ -344,8 +358,13 @@ public sealed class StreamingConditioner
         var run = ownTimes ? new TimeRun(0, to - from, times[from..to].ToArray()) : new TimeRun(_tStart + from, to - from);
         if (DeferFilters)
         {
-            _pendingRuns.Add(run);
-            _pendingValues.AddRange(despiked[from..to]);
+            if (run.Length > 0)
+            {
+                // The runs skip empty pieces, and so do the values (they are taken piece by piece with the runs).
+                _pendingRuns.Add(run);
+                _pendingValues.Add((_despiked, from));
+                _despiked = _spareDespiked.Count > 0 ? _spareDespiked.Pop() : [];
+            }
         }
         else
         {
