@@ -17,12 +17,12 @@ namespace BcPrep.Cli;
 /// </summary>
 public sealed class EarlyFingerprints
 {
-    private readonly Task<Dictionary<string, InputFingerprint>> _work;
+    private readonly Dictionary<string, ChunkedFingerprint> _files;
 
-    private EarlyFingerprints(Task<Dictionary<string, InputFingerprint>> work) => _work = work;
+    private EarlyFingerprints(Dictionary<string, ChunkedFingerprint> files) => _files = files;
 
     /// <summary>None hashed early: every fingerprint is computed when asked for.</summary>
-    public static EarlyFingerprints None { get; } = new(Task.FromResult(new Dictionary<string, InputFingerprint>(StringComparer.Ordinal)));
+    public static EarlyFingerprints None { get; } = new(new Dictionary<string, ChunkedFingerprint>(StringComparer.Ordinal));
 
     /// <summary>Starts hashing the plain files among <paramref name="arguments"/> (LOG arguments as given).</summary>
     public static EarlyFingerprints Start(IReadOnlyList<string> arguments)
@@ -32,28 +32,30 @@ public sealed class EarlyFingerprints
         {
             return None;
         }
-        return new EarlyFingerprints(Task.Factory.StartNew(() =>
+        var files = plain.ToDictionary(path => path, path => new ChunkedFingerprint(path), StringComparer.Ordinal);
+        // Its own thread, at the lowest priority (BackgroundPriority): it takes the cores the reading, converting and
+        // window statistics leave idle. The hash is needed only for the manifest at the end, and what is left then
+        // is finished by the thread that asks (ChunkedFingerprint.Finish), at its own priority.
+        _ = Task.Factory.StartNew(() =>
         {
-            var hashed = new Dictionary<string, InputFingerprint>(StringComparer.Ordinal);
+            BackgroundPriority.LowerCurrentThread(BackgroundPriority.Idle);
             foreach (var path in plain)
             {
-                try
+                while (files[path].Advance())
                 {
-                    hashed[path] = LogArguments.Fingerprint(path, path);
-                }
-                catch (BcPrepFailure)
-                {
-                    // Hashed again when asked for, which reports it.
                 }
             }
-            return hashed;
-        }, CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default));
+        }, CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
+        return new EarlyFingerprints(files);
     }
 
-    /// <summary>The fingerprint of <paramref name="input"/>: the early one when it was hashed early, else hashed now.</summary>
+    /// <summary>
+    /// The fingerprint of <paramref name="input"/>: the early one when it was hashed early (what is left of it hashed
+    /// now), else hashed now; a file the early hash could not read is hashed again, which reports it.
+    /// </summary>
     public InputFingerprint For(LogInput input) =>
-        input.DisplayName == input.Path && _work.Result.TryGetValue(input.Path, out var early)
-            ? early
+        input.DisplayName == input.Path && _files.TryGetValue(input.Path, out var early) && early.Finish() is { } fingerprint
+            ? fingerprint
             : LogArguments.Fingerprint(input.DisplayName, input.Path);
 
     /// <summary>A regular file with bytes in it (<see cref="RegularFile"/>): never '-', a pipe, a device or a folder.</summary>
