@@ -4,26 +4,44 @@ using BcPrep.Writing;
 namespace BcPrep.Cli;
 
 /// <summary>
-/// The SHA-256 of one file, hashed a chunk at a time by whichever thread asks: the early hashing thread
-/// (<see cref="EarlyFingerprints"/>), which runs at the lowest priority, and the thread that needs the fingerprint,
-/// which finishes what is left at its own priority, so that a busy machine that starves the first never makes the
-/// second wait for it longer than one chunk. The same bytes in the same order as <see cref="LogArguments.Fingerprint"/>,
-/// so the same fingerprint.
+/// The SHA-256 of one file, hashed a chunk at a time: in the background by threads at the lowest priority
+/// (<see cref="EarlyFingerprints"/>), and, when the fingerprint is needed, by the thread that needs it, at its own
+/// priority. Once that thread asks (<see cref="Finish"/>), the background threads stop after the chunk they are
+/// hashing: a low-priority thread holding the hash while a busy machine starves it would make the asking thread wait
+/// for it chunk after chunk (measured: the 8 h day took 91 s instead of 50 s under a load average of 10). The same
+/// bytes in the same order as <see cref="LogArguments.Fingerprint"/>, so the same fingerprint, named
+/// <paramref name="displayName"/>.
 /// </summary>
-internal sealed class ChunkedFingerprint(string path)
+internal sealed class ChunkedFingerprint(string displayName, string path)
 {
-    /// <summary>One read: 1 MB, as <see cref="LogArguments.Fingerprint"/> reads (a system call a chunk).</summary>
-    private const int ChunkBytes = 1 << 20;
+    /// <summary>One read: 256 kB, so that the asking thread waits for at most a fraction of a millisecond of hashing.</summary>
+    private const int ChunkBytes = 1 << 18;
 
     private readonly Lock _gate = new();
+    private volatile bool _asked;
     private FileStream? _stream;
     private IncrementalHash? _sha;
     private byte[]? _buffer;
     private bool _done;
     private InputFingerprint? _result;
 
-    /// <summary>Hashes the next chunk; false once the file is hashed or could not be read.</summary>
-    public bool Advance()
+    /// <summary>Hashes the next chunk in the background; false once the file is hashed, could not be read, or is asked for.</summary>
+    public bool Advance() => !_asked && Step();
+
+    /// <summary>
+    /// Hashes what is left on the calling thread (the background stops after its current chunk); the fingerprint, or
+    /// null when the file could not be read.
+    /// </summary>
+    public InputFingerprint? Finish()
+    {
+        _asked = true;
+        while (Step())
+        {
+        }
+        return _result;
+    }
+
+    private bool Step()
     {
         lock (_gate)
         {
@@ -42,7 +60,7 @@ internal sealed class ChunkedFingerprint(string path)
                     _sha.AppendData(_buffer, 0, read);
                     return true;
                 }
-                _result = new InputFingerprint(path, _stream.Length, Convert.ToHexStringLower(_sha.GetHashAndReset()));
+                _result = new InputFingerprint(displayName, _stream.Length, Convert.ToHexStringLower(_sha.GetHashAndReset()));
             }
             catch (Exception e) when (e is IOException or UnauthorizedAccessException)
             {
@@ -51,15 +69,6 @@ internal sealed class ChunkedFingerprint(string path)
             Close();
             return false;
         }
-    }
-
-    /// <summary>Hashes what is left on the calling thread; the fingerprint, or null when the file could not be read.</summary>
-    public InputFingerprint? Finish()
-    {
-        while (Advance())
-        {
-        }
-        return _result;
     }
 
     private void Close()

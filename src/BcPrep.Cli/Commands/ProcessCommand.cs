@@ -46,10 +46,19 @@ public static class ProcessCommand
             // Hashing a multi-GB day is a full read. When the outputs cannot be up to date it runs beside the processing
             // from the start: the reading and the window statistics leave gaps on the two cores that it fills (measured
             // in BENCHMARKS.md against starting it after the read).
-            // On its own thread (LongRunning), not the pool's, which the processing's short parallel work needs.
-            var hashing = mayBeUpToDate ? Task.FromResult(inputs.Fingerprints(early))
-                : Task.Factory.StartNew(() => inputs.Fingerprints(early), CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
-            if (mayBeUpToDate && ExistingOutputs.IsUpToDate(outDir, Provenance(hashing.Result).Key))
+            // On its own thread (LongRunning), not the pool's, which the processing's short parallel work needs, and at
+            // the lowest priority, so that it takes only what the reader and the statistics leave (BackgroundPriority);
+            // what is left when the outputs need it is hashed then by this thread at its own priority (below).
+            IReadOnlyList<InputFingerprint>? upToDateCheck = null;
+            if (mayBeUpToDate)
+            {
+                upToDateCheck = inputs.Fingerprints(early);
+            }
+            else
+            {
+                _ = Task.Factory.StartNew(() => early.HashInBackground(inputs.Inputs), CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
+            }
+            if (upToDateCheck is not null && ExistingOutputs.IsUpToDate(outDir, Provenance(upToDateCheck).Key))
             {
                 OutputFileSet.RemoveStalePartials(outDir, ExistingOutputs.ListedFiles(outDir));
                 diagnostics.Info($"{outDir}: up to date (inputs, rig file and tool version unchanged); nothing to do. Use --force to recompute.");
@@ -62,7 +71,8 @@ public static class ProcessCommand
             using (ProgressIndicator.Start(context, diagnostics.Verbosity, "processing", reading.TotalBytes, reading))
             {
                 day = DayProcessor.Process(description, inputs.Inputs, options with { Progress = reading });
-                var provenance = Provenance(hashing.GetAwaiter().GetResult());
+                // The chunks not hashed yet are hashed now by this thread (EarlyFingerprints.For), the background stopping.
+                var provenance = Provenance(upToDateCheck ?? inputs.Fingerprints(early));
                 files = DayOutputs.Build(day, provenance, facePoints, ReportOption.Files(parse.GetValue(report), day, diagnostics));
                 folder.Commit(files);
             }
