@@ -90,4 +90,64 @@ public sealed class EarlyFingerprintsTests
         // Reading it early would take the bytes the reader needs (and block until a writer comes); .NET says it exists.
         Assert.False(EarlyFingerprints.IsPlainFile(fifo));
     }
+    // A file of several chunks, hashed in turns by two threads (the early one and the one that asks), each chunk once and
+    // in order: the fingerprint of its bytes, as hashing it in one go gives.
+    [Fact]
+    public async Task A_file_hashed_partly_early_and_finished_by_the_caller_has_the_fingerprint_of_its_bytes()
+    {
+        using var temp = new TempFolder();
+        var path = temp.File("day.csv");
+        var bytes = new byte[(5 << 20) / 2];
+        new Random(7).NextBytes(bytes);
+        File.WriteAllBytes(path, bytes);
+        var expected = new InputFingerprint(path, bytes.Length, Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(bytes)));
+
+        var partly = new ChunkedFingerprint(path, path);
+        Assert.True(partly.Advance());
+        Assert.Equal(expected, partly.Finish());
+        Assert.False(partly.Advance());
+        Assert.Equal(expected, partly.Finish());
+
+        var raced = new ChunkedFingerprint(path, path);
+        var other = Task.Run(() =>
+        {
+            while (raced.Advance())
+            {
+            }
+        });
+        Assert.Equal(expected, raced.Finish());
+        await other;
+        Assert.Equal(expected, LogArguments.Fingerprint(path, path));
+    }
+
+    // Hashed in the background (a thread of its own, lowered to the lowest priority) and asked for meanwhile: the
+    // asking thread takes over where the background stands, for a file hashed early and for standard input's copy.
+    [Fact]
+    public async Task Inputs_hashed_in_the_background_and_asked_for_have_the_fingerprints_of_their_bytes()
+    {
+        using var temp = new TempFolder();
+        var path = temp.File("day.csv");
+        var copy = temp.File("stdin-copy.csv");
+        var bytes = new byte[3 << 20];
+        new Random(8).NextBytes(bytes);
+        File.WriteAllBytes(path, bytes);
+        File.WriteAllBytes(copy, bytes[..1000]);
+        LogInput[] inputs = [LogInput.FromPath(path), new LogInput("(standard input)", copy)];
+
+        var early = EarlyFingerprints.Start([path]);
+        var background = Task.Factory.StartNew(() => early.HashInBackground(inputs), CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
+        var fingerprints = inputs.Select(early.For).ToList();
+        await background;
+
+        Assert.Equal(LogArguments.Fingerprint(path, path), fingerprints[0]);
+        Assert.Equal(new InputFingerprint("(standard input)", 1000, Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(bytes[..1000]))), fingerprints[1]);
+    }
+
+    [Fact]
+    public void A_file_the_chunks_cannot_read_gives_no_fingerprint_and_is_left_to_the_usual_report()
+    {
+        using var temp = new TempFolder();
+
+        Assert.Null(new ChunkedFingerprint("missing.csv", temp.File("missing.csv")).Finish());
+    }
 }

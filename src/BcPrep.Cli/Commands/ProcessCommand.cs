@@ -46,10 +46,19 @@ public static class ProcessCommand
             // Hashing a multi-GB day is a full read. When the outputs cannot be up to date it runs beside the processing
             // from the start: the reading and the window statistics leave gaps on the two cores that it fills (measured
             // in BENCHMARKS.md against starting it after the read).
-            // On its own thread (LongRunning), not the pool's, which the processing's short parallel work needs.
-            var hashing = mayBeUpToDate ? Task.FromResult(inputs.Fingerprints(early))
-                : Task.Factory.StartNew(() => inputs.Fingerprints(early), CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
-            if (mayBeUpToDate && ExistingOutputs.IsUpToDate(outDir, Provenance(hashing.Result).Key))
+            // On its own thread (LongRunning), not the pool's, which the processing's short parallel work needs, and at
+            // the lowest priority, so that it takes only what the reader and the statistics leave (BackgroundPriority);
+            // what is left when the outputs need it is hashed then by this thread at its own priority (below).
+            IReadOnlyList<InputFingerprint>? upToDateCheck = null;
+            if (mayBeUpToDate)
+            {
+                upToDateCheck = inputs.Fingerprints(early);
+            }
+            else
+            {
+                _ = Task.Factory.StartNew(() => early.HashInBackground(inputs.Inputs), CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
+            }
+            if (upToDateCheck is not null && ExistingOutputs.IsUpToDate(outDir, Provenance(upToDateCheck).Key))
             {
                 OutputFileSet.RemoveStalePartials(outDir, ExistingOutputs.ListedFiles(outDir));
                 diagnostics.Info($"{outDir}: up to date (inputs, rig file and tool version unchanged); nothing to do. Use --force to recompute.");
@@ -59,10 +68,21 @@ public static class ProcessCommand
             OutputFileSet files;
             DayResult day;
             var reading = new ReadProgress(inputs.Sizes().Sum());
+            using var processed = new CancellationTokenSource();
+            if (upToDateCheck is null)
+            {
+                // The background hash runs at the lowest priority; on a busy machine it may have got little by the end of
+                // the read. From there on it goes on at normal priority beside the last windows' statistics rather than
+                // on this thread after them (an 8 h day under a load average of 17 took twice as long).
+                _ = Task.Factory.StartNew(() => FinishHashAfterRead(early, inputs.Inputs, reading, processed.Token), CancellationToken.None,
+                    TaskCreationOptions.LongRunning, TaskScheduler.Default);
+            }
             using (ProgressIndicator.Start(context, diagnostics.Verbosity, "processing", reading.TotalBytes, reading))
             {
                 day = DayProcessor.Process(description, inputs.Inputs, options with { Progress = reading });
-                var provenance = Provenance(hashing.GetAwaiter().GetResult());
+                // The chunks not hashed yet are hashed now by this thread (EarlyFingerprints.For), the background stopping.
+                var provenance = Provenance(upToDateCheck ?? inputs.Fingerprints(early));
+                processed.Cancel();
                 files = DayOutputs.Build(day, provenance, facePoints, ReportOption.Files(parse.GetValue(report), day, diagnostics));
                 folder.Commit(files);
             }
@@ -85,5 +105,35 @@ public static class ProcessCommand
             return day.FailedPoints.Count > 0 ? ExitCodes.SomePointsFailed : ExitCodes.Success;
         });
         return command;
+    }
+    /// <summary>
+    /// Waits (polling, without work) until the first pass has read every byte, then hashes what the background hash has
+    /// not, at this thread's normal priority; gives up when the processing is done first. A file that cannot be hashed
+    /// is left to the caller, which reports it.
+    /// </summary>
+    private static void FinishHashAfterRead(EarlyFingerprints early, IReadOnlyList<LogInput> logs, ReadProgress reading, CancellationToken processed)
+    {
+        while (reading.Pass <= 1 && reading.PassBytes < reading.TotalBytes)
+        {
+            if (processed.WaitHandle.WaitOne(25))
+            {
+                return;
+            }
+        }
+        try
+        {
+            foreach (var log in logs)
+            {
+                if (processed.IsCancellationRequested)
+                {
+                    return;
+                }
+                early.For(log);
+            }
+        }
+        catch (BcPrepFailure)
+        {
+            // Reported by the caller, which asks for the same fingerprint.
+        }
     }
 }

@@ -46,6 +46,9 @@ internal sealed class DespikedBlockFeed : IBlockSink
     private readonly Dictionary<string, ChannelState> _states = new(StringComparer.Ordinal);
     private readonly List<(int Index, int Start, int End)> _runs = [];
 
+    /// <summary>Each run's summary of each channel (channel-major) of the read block at hand; see <see cref="SummariseRuns"/>.</summary>
+    private (double Sum, int Count, double Min, double Max)[] _summaries = [];
+
     public DespikedBlockFeed(RigDescription rig, BlockMeanSink blocks)
         : this(blocks, rig.Conditioning.HampelHalfWindow, rig.Conditioning.HampelSigmas, Floors(rig))
     {
@@ -76,6 +79,7 @@ internal sealed class DespikedBlockFeed : IBlockSink
         {
             return;
         }
+        SummariseRuns(valuesSi, channels.Count);
         for (var c = 0; c < channels.Count; c++)
         {
             var channel = channels[c];
@@ -107,7 +111,7 @@ internal sealed class DespikedBlockFeed : IBlockSink
                 }
                 else
                 {
-                    Close(channel, state, index, run);
+                    Close(channel, state, index, run, _summaries[(c * _runs.Count) + r]);
                 }
             }
             // Blocks before the first one not yet added are final: the one waiting for its right context, else the
@@ -137,13 +141,16 @@ internal sealed class DespikedBlockFeed : IBlockSink
     /// A whole block has arrived: it gives the block waiting for it its right context, and is then averaged as it is,
     /// or, when it may hold a spike, waits itself for the first samples of the next block.
     /// </summary>
-    private void Close(string channel, ChannelState state, int index, ReadOnlySpan<double> block)
+    private void Close(string channel, ChannelState state, int index, ReadOnlySpan<double> block) => Close(channel, state, index, block, Summarise(block));
+
+    /// <summary>As <see cref="Close(string, ChannelState, int, ReadOnlySpan{double})"/>, with the block's <see cref="Summarise"/> worked out beforehand (<see cref="SummariseRuns"/>).</summary>
+    private void Close(string channel, ChannelState state, int index, ReadOnlySpan<double> block, (double Sum, int Count, double Min, double Max) summary)
     {
         if (state.WaitingCount > 0)
         {
             FinishWaiting(channel, state, state.WaitingIndex == index - 1 ? block[..Math.Min(_halfWindow, block.Length)] : []);
         }
-        var (sum, n, min, max) = Summarise(block);
+        var (sum, n, min, max) = summary;
         BlocksAveraged++;
         if (n > 0)
         {
@@ -184,9 +191,94 @@ internal sealed class DespikedBlockFeed : IBlockSink
         state.WaitingCount = 0;
     }
 
+    /// <summary>
+    /// <see cref="Summarise"/> of every run but the last (which waits for the next read block) of every channel, into
+    /// <see cref="_summaries"/> (channel-major): four channels at a time, so that four sums run side by side. Each sum
+    /// adds its channel's samples in order, the same additions as <see cref="Summarise"/>, so the same bits; one sum
+    /// alone waits for each addition before the next (about half of the main thread's time in this feed).
+    /// </summary>
+    private void SummariseRuns(IReadOnlyList<double[]> valuesSi, int channels)
+    {
+        var runs = _runs.Count;
+        if (_summaries.Length < channels * runs)
+        {
+            _summaries = new (double, int, double, double)[channels * runs];
+        }
+        for (var r = 0; r < runs - 1; r++)
+        {
+            var (_, start, end) = _runs[r];
+            var c = 0;
+            for (; c + 4 <= channels; c += 4)
+            {
+                var (s0, s1, s2, s3) = SummariseFour(valuesSi[c].AsSpan(start, end - start), valuesSi[c + 1].AsSpan(start, end - start),
+                    valuesSi[c + 2].AsSpan(start, end - start), valuesSi[c + 3].AsSpan(start, end - start));
+                _summaries[(c * runs) + r] = s0;
+                _summaries[((c + 1) * runs) + r] = s1;
+                _summaries[((c + 2) * runs) + r] = s2;
+                _summaries[((c + 3) * runs) + r] = s3;
+            }
+            for (; c < channels; c++)
+            {
+                _summaries[(c * runs) + r] = Summarise(valuesSi[c].AsSpan(start, end - start));
+            }
+        }
+    }
+
+    /// <summary><see cref="Summarise"/> of four runs of the same length, each with its own sum, count, minimum and maximum.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    internal static ((double, int, double, double), (double, int, double, double), (double, int, double, double), (double, int, double, double)) SummariseFour(
+        ReadOnlySpan<double> a, ReadOnlySpan<double> b, ReadOnlySpan<double> c, ReadOnlySpan<double> d)
+    {
+        var length = a.Length;
+        if (b.Length != length || c.Length != length || d.Length != length)
+        {
+            throw new ArgumentException("The four runs must be equally long.", nameof(b));
+        }
+        double sa = 0.0, sb = 0.0, sc = 0.0, sd = 0.0;
+        int na = 0, nb = 0, nc = 0, nd = 0;
+        double mina = double.PositiveInfinity, minb = double.PositiveInfinity, minc = double.PositiveInfinity, mind = double.PositiveInfinity;
+        double maxa = double.NegativeInfinity, maxb = double.NegativeInfinity, maxc = double.NegativeInfinity, maxd = double.NegativeInfinity;
+        for (var i = 0; i < length; i++)
+        {
+            var va = a[i];
+            var vb = b[i];
+            var vc = c[i];
+            var vd = d[i];
+            if (!double.IsNaN(va))
+            {
+                sa += va;
+                na++;
+                mina = Math.Min(mina, va);
+                maxa = Math.Max(maxa, va);
+            }
+            if (!double.IsNaN(vb))
+            {
+                sb += vb;
+                nb++;
+                minb = Math.Min(minb, vb);
+                maxb = Math.Max(maxb, vb);
+            }
+            if (!double.IsNaN(vc))
+            {
+                sc += vc;
+                nc++;
+                minc = Math.Min(minc, vc);
+                maxc = Math.Max(maxc, vc);
+            }
+            if (!double.IsNaN(vd))
+            {
+                sd += vd;
+                nd++;
+                mind = Math.Min(mind, vd);
+                maxd = Math.Max(maxd, vd);
+            }
+        }
+        return ((sa, na, mina, maxa), (sb, nb, minb, maxb), (sc, nc, minc, maxc), (sd, nd, mind, maxd));
+    }
+
     /// <summary>Sum, count, minimum and maximum of the finite samples, in one pass.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static (double Sum, int Count, double Min, double Max) Summarise(ReadOnlySpan<double> values)
+    internal static (double Sum, int Count, double Min, double Max) Summarise(ReadOnlySpan<double> values)
     {
         var sum = 0.0;
         var n = 0;

@@ -61,10 +61,14 @@ public static class BlockDespike
         return scale > 0 && Math.Abs(v - median) > sigmas * scale ? median : v;
     }
 
-    internal static double Median(List<double> values)
-    {
-        values.Sort();
-        var n = values.Count;
-        return n % 2 == 1 ? values[n / 2] : 0.5 * (values[(n / 2) - 1] + values[n / 2]);
-    }
+    /// <summary>
+    /// The median of at least one finite value (the mean of the two middle ones for an even count), by selection: the
+    /// same order statistics as sorting gives, so the same value to the bit (block means and their differences are
+    /// never −0, the one value sorting and selection could place apart from +0), without sorting a day's values.
+    /// Reorders <paramref name="values"/>.
+    /// </summary>
+    internal static double Median(List<double> values) => Median(System.Runtime.InteropServices.CollectionsMarshal.AsSpan(values));
+
+    /// <inheritdoc cref="Median(List{double})"/>
+    internal static double Median(Span<double> values) => Conditioning.OrderStatistics.MedianInPlace(values);
 }

@@ -276,10 +276,21 @@ public static class PlateauDetector
     }
 
     /// <summary>Median of the absolute finite values: a channel's level.</summary>
-    internal static double MedianAbs(IReadOnlyList<double> values)
+    internal static double MedianAbs(IReadOnlyList<double> values) => MedianAbs((values as double[] ?? [.. values]).AsSpan());
+
+    /// <inheritdoc cref="MedianAbs(IReadOnlyList{double})"/>
+    internal static double MedianAbs(ReadOnlySpan<double> values)
     {
-        var finite = values.Where(double.IsFinite).Select(Math.Abs).ToList();
-        return finite.Count == 0 ? 0.0 : BlockDespike.Median(finite);
+        var finite = new double[values.Length];
+        var count = 0;
+        foreach (var v in values)
+        {
+            if (double.IsFinite(v))
+            {
+                finite[count++] = Math.Abs(v);
+            }
+        }
+        return count == 0 ? 0.0 : BlockDespike.Median(finite.AsSpan(0, count));
     }
 
     /// <summary>The 99th percentile of the absolute finite values: a channel's largest level, robust to a stray block.</summary>

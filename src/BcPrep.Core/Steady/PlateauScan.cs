@@ -257,7 +257,7 @@ public sealed class PlateauScan
         var thresholds = new double[_channels.Count];
         for (var c = 0; c < _channels.Count; c++)
         {
-            var prefix = new ArraySegment<double>(_clean[c], 0, blocks);
+            var prefix = _clean[c].AsSpan(0, blocks);
             noise[c] = StepFinder.Noise(prefix);
             thresholds[c] = PlateauDetector.StepThreshold(_channels[c], PlateauDetector.MedianAbs(prefix), noise[c], _half);
         }

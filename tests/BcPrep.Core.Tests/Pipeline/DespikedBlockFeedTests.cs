@@ -180,6 +180,28 @@ public class DespikedBlockFeedTests
         Assert.True(identical >= 0.99 * total, $"{identical} of {total} blocks identical");
     }
 
+    // Four channels' blocks summed side by side (DespikedBlockFeed.SummariseFour) must give each channel the sum, count,
+    // minimum and maximum of one channel at a time to the bit: the same additions in the same order (the block mean is
+    // the sum over the count, the definition). Gaps (NaN) are skipped, infinities are samples, as one at a time.
+    [Theory]
+    [InlineData(1000, 0.0)]
+    [InlineData(999, 0.01)]
+    [InlineData(7, 0.5)]
+    [InlineData(0, 0.0)]
+    public void Four_blocks_summed_side_by_side_equal_one_at_a_time_to_the_bit(int length, double gapFraction)
+    {
+        var random = new Random(length);
+        var runs = Enumerable.Range(0, 4).Select(c => Enumerable.Range(0, length).Select(i => random.NextDouble() < gapFraction ? double.NaN
+            : i == 3 && c == 2 ? double.PositiveInfinity : (100.0 * c) + random.NextDouble() - 0.5).ToArray()).ToArray();
+
+        var (a, b, c, d) = DespikedBlockFeed.SummariseFour(runs[0], runs[1], runs[2], runs[3]);
+
+        Assert.Equal(DespikedBlockFeed.Summarise(runs[0]), a);
+        Assert.Equal(DespikedBlockFeed.Summarise(runs[1]), b);
+        Assert.Equal(DespikedBlockFeed.Summarise(runs[2]), c);
+        Assert.Equal(DespikedBlockFeed.Summarise(runs[3]), d);
+    }
+
     [Fact]
     public void A_block_mean_is_final_once_the_sink_says_so()
     {
