@@ -38,4 +38,27 @@ public class ThreadScratchTests
         Assert.NotSame(second, third);
         Assert.True(third!.Length >= 1_400_000);
     }
+
+    [Fact]
+    public void After_release_every_thread_rents_new_arrays_and_keeps_the_ones_it_holds()
+    {
+        double[]? held = null, again = null;
+        using var rented = new ManualResetEventSlim();
+        using var released = new ManualResetEventSlim();
+        var thread = new Thread(() =>
+        {
+            held = ThreadScratch.Rent(ScratchSlots.TimeSteps, 5000);
+            held[4999] = 42.0;
+            rented.Set();
+            released.Wait();
+            again = ThreadScratch.Rent(ScratchSlots.TimeSteps, 5000);
+        });
+        thread.Start();
+        rented.Wait();
+        ThreadScratch.ReleaseAll();
+        released.Set();
+        thread.Join();
+        Assert.NotSame(held, again);
+        Assert.Equal(42.0, held![4999]);
+    }
 }

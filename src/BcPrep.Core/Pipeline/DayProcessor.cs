@@ -88,6 +88,8 @@ public static class DayProcessor
         liveBook.DrainInto(stats, lost, fromKeptRows);
         secondRead.Complete();
         book.DrainInto(stats, lost: lost);
+        // Every window's statistics are in: the statistics threads' working arrays are not needed for this day again.
+        ThreadScratch.ReleaseAll();
         var dayWarnings = DetectionWarnings(detection, windowPlan, plan.Start);
         var tareStats = TareStats(tareWindows, stats);
         var endTares = EndTares(tareWindows, stats);
