@@ -43,24 +43,34 @@ internal sealed partial class StreamedSectionPass
         var p = lanes[0];
         if (!p._started)
         {
+            // As Push: a first input longer than the edge is read where it is.
+            ReadOnlySpan<double> h0 = u0, h1 = u1, h2 = u2, h3 = u3;
+            if (p._head.Count > 0 || u0.Length < p.EdgeLength)
+            {
+                for (var j = 0; j < Lanes; j++)
+                {
+                    lanes[j]._head.AddRange(Pick(j, u0, u1, u2, u3));
+                }
+                if (p._head.Count < p.EdgeLength)
+                {
+                    return;
+                }
+                h0 = CollectionsMarshal.AsSpan(lanes[0]._head);
+                h1 = CollectionsMarshal.AsSpan(lanes[1]._head);
+                h2 = CollectionsMarshal.AsSpan(lanes[2]._head);
+                h3 = CollectionsMarshal.AsSpan(lanes[3]._head);
+            }
             for (var j = 0; j < Lanes; j++)
             {
-                lanes[j]._head.AddRange(Pick(j, u0, u1, u2, u3));
-            }
-            if (p._head.Count < p.EdgeLength)
-            {
-                return;
-            }
-            foreach (var lane in lanes)
-            {
+                var lane = lanes[j];
                 // As Push: the forward state comes from the odd extension before the segment's first sample.
-                var pad = lane.LeftExtension(CollectionsMarshal.AsSpan(lane._head));
+                var pad = lane.LeftExtension(Pick(j, h0, h1, h2, h3));
                 var (s0, s1) = lane._s.StepState();
                 (lane._z0, lane._z1) = (s0 * pad[0], s1 * pad[0]);
                 lane.FilterForward(pad, pad);
                 lane._started = true;
             }
-            ForwardLanes(lanes, CollectionsMarshal.AsSpan(lanes[0]._head), CollectionsMarshal.AsSpan(lanes[1]._head), CollectionsMarshal.AsSpan(lanes[2]._head), CollectionsMarshal.AsSpan(lanes[3]._head));
+            ForwardLanes(lanes, h0, h1, h2, h3);
             foreach (var lane in lanes)
             {
                 lane._head.Clear();
@@ -92,6 +102,7 @@ internal sealed partial class StreamedSectionPass
         for (var j = 0; j < Lanes; j++)
         {
             lanes[j].Remember(Pick(j, u0, u1, u2, u3));
+            lanes[j].ReserveForward(start + n, n);
             CollectionsMarshal.SetCount(lanes[j]._forward, start + n);
         }
         var f0 = CollectionsMarshal.AsSpan(lanes[0]._forward).Slice(start, n);

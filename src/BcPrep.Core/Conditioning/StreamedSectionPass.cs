@@ -54,12 +54,18 @@ internal sealed partial class StreamedSectionPass
     {
         if (!_started)
         {
-            _head.AddRange(u);
-            if (_head.Count < EdgeLength)
+            // A segment's first input is usually a whole stretch of the section before, longer than the edge: it is
+            // read where it is instead of being copied into the head first (about a megabyte per section and channel).
+            ReadOnlySpan<double> head = u;
+            if (_head.Count > 0 || u.Length < EdgeLength)
             {
-                return;
+                _head.AddRange(u);
+                if (_head.Count < EdgeLength)
+                {
+                    return;
+                }
+                head = CollectionsMarshal.AsSpan(_head);
             }
-            var head = CollectionsMarshal.AsSpan(_head);
             var pad = LeftExtension(head);
             var (u0, u1) = _s.StepState();
             (_z0, _z1) = (u0 * pad[0], u1 * pad[0]);
@@ -149,8 +155,22 @@ internal sealed partial class StreamedSectionPass
     {
         Remember(u);
         var start = _forward.Count;
+        ReserveForward(start + u.Length, u.Length);
         CollectionsMarshal.SetCount(_forward, start + u.Length);
         FilterForward(u, CollectionsMarshal.AsSpan(_forward)[start..]);
+    }
+
+    /// <summary>
+    /// Room for <paramref name="count"/> forward values: at first a stretch, its overlap and an input as long as this
+    /// one (the most held before a backward stretch when inputs are alike), so the list does not grow by doubling
+    /// through arrays that are copied and dropped (each new one's pages first touched, which costs more than the copy).
+    /// </summary>
+    private void ReserveForward(int count, int input)
+    {
+        if (_forward.Capacity < count)
+        {
+            _forward.Capacity = Math.Max(count, Math.Max(_forward.Capacity * 2, _core + Overlap + input));
+        }
     }
 
     /// <summary>Filters forward from the carried state, carrying it on (<paramref name="u"/> and <paramref name="f"/> may be the same span).</summary>

@@ -61,7 +61,7 @@ internal sealed partial class StreamedZeroPhase
         {
             if (lane._passes.Length != p._passes.Length || lane._open != p._open || lane._streaming != p._streaming
                 || lane._lastS.CompareTo(p._lastS) != 0 || lane._jumpS.CompareTo(p._jumpS) != 0 || lane._minimumPad != p._minimumPad
-                || lane._segmentStart.Count != p._segmentStart.Count || lane._times.Count != p._times.Count)
+                || lane._segmentStart.Count != p._segmentStart.Count || lane._held != p._held)
             {
                 return false;
             }
@@ -88,12 +88,22 @@ internal sealed partial class StreamedZeroPhase
         {
             lane._open = true;
             lane._lastS = timesS[^1];
-            lane._times.AddRange(timesS);
+            lane._held += timesS.Length;
         }
         var first = lanes.Select(l => l._passes[0]).ToArray();
         var p = lanes[0];
         if (p._streaming)
         {
+            StreamedSectionPass.PushLanes(first, v0, v1, v2, v3);
+            return;
+        }
+        if (p._segmentStart.Count == 0 && v0.Length > p._minimumPad)
+        {
+            // As Feed: a first input longer than the pad goes on where it is.
+            foreach (var lane in lanes)
+            {
+                lane._streaming = true;
+            }
             StreamedSectionPass.PushLanes(first, v0, v1, v2, v3);
             return;
         }

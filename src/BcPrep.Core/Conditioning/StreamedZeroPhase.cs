@@ -7,16 +7,16 @@ namespace BcPrep.Conditioning;
 /// segments as <see cref="ChannelConditioner.Condition"/> cuts them (a missing value or a time step longer than
 /// <see cref="GapBridging.JumpFactor"/> nominal intervals), each segment filtered zero-phase one section after the
 /// other (<see cref="StreamedSectionPass"/>), a segment not longer than the default pad set to NaN. Conditioned
-/// samples are appended to the output lists in order, with a delay of about the sections' cores and overlaps.
+/// values are appended to the output list in order, one per sample accepted, with a delay of about the sections'
+/// cores and overlaps; the caller keeps their times (<see cref="TimeRuns"/>), which the filters do not change.
 /// </summary>
 internal sealed partial class StreamedZeroPhase
 {
     private readonly StreamedSectionPass[] _passes;
     private readonly int _minimumPad;
     private readonly double _jumpS;
-    private readonly List<double> _outTimes;
     private readonly List<double> _outValues;
-    private readonly List<double> _times = [];
+    private long _held;
     private readonly List<double> _segmentStart = [];
     private bool _open;
     private bool _streaming;
@@ -26,11 +26,9 @@ internal sealed partial class StreamedZeroPhase
     /// <param name="nominalIntervalS">The sample interval, for the jump that cuts a segment.</param>
     /// <param name="core">Samples emitted per backward stretch of a section (at least its overlap).</param>
     /// <param name="coreOverlaps">A stretch is also at least this many of the section's overlaps long.</param>
-    /// <param name="outTimes">Receives the times of conditioned samples.</param>
-    /// <param name="outValues">Receives the conditioned values.</param>
-    public StreamedZeroPhase(IReadOnlyList<SecondOrderSection> sections, double nominalIntervalS, int core, int coreOverlaps, List<double> outTimes, List<double> outValues)
+    /// <param name="outValues">Receives the conditioned values, in the order the samples were accepted.</param>
+    public StreamedZeroPhase(IReadOnlyList<SecondOrderSection> sections, double nominalIntervalS, int core, int coreOverlaps, List<double> outValues)
     {
-        _outTimes = outTimes;
         _outValues = outValues;
         _jumpS = GapBridging.JumpFactor * nominalIntervalS;
         _minimumPad = sections.Count > 0 ? ZeroPhaseFilter.DefaultPadLength(sections) : 0;
@@ -58,7 +56,6 @@ internal sealed partial class StreamedZeroPhase
     {
         if (_passes.Length == 0)
         {
-            _outTimes.AddRange(timesS);
             _outValues.AddRange(values);
             return;
         }
@@ -68,7 +65,6 @@ internal sealed partial class StreamedZeroPhase
             if (!double.IsFinite(values[i]))
             {
                 EndSegment();
-                _outTimes.Add(timesS[i]);
                 _outValues.Add(values[i]);
                 i++;
                 continue;
@@ -94,13 +90,20 @@ internal sealed partial class StreamedZeroPhase
     {
         _open = true;
         _lastS = timesS[^1];
-        _times.AddRange(timesS);
+        _held += timesS.Length;
         if (_streaming)
         {
             _passes[0].Push(values);
             return;
         }
-        // The first samples wait until the segment is known to be longer than the pad (else it stays unfiltered).
+        // The first samples wait until the segment is known to be longer than the pad (else it stays unfiltered); a
+        // first input already longer goes on where it is.
+        if (_segmentStart.Count == 0 && values.Length > _minimumPad)
+        {
+            _streaming = true;
+            _passes[0].Push(values);
+            return;
+        }
         _segmentStart.AddRange(values);
         if (_segmentStart.Count > _minimumPad)
         {
@@ -130,9 +133,9 @@ internal sealed partial class StreamedZeroPhase
             Emit(nan);
             _segmentStart.Clear();
         }
-        if (_times.Count != 0)
+        if (_held != 0)
         {
-            throw new InvalidOperationException($"{_times.Count} samples of a segment were not emitted");
+            throw new InvalidOperationException($"{_held} samples of a segment were not emitted");
         }
         _open = false;
         _streaming = false;
@@ -140,9 +143,11 @@ internal sealed partial class StreamedZeroPhase
 
     private void Emit(ReadOnlySpan<double> values)
     {
-        var times = CollectionsMarshal.AsSpan(_times)[..values.Length];
-        _outTimes.AddRange(times);
+        if (values.Length > _held)
+        {
+            throw new InvalidOperationException($"{values.Length} samples emitted of {_held} held");
+        }
         _outValues.AddRange(values);
-        _times.RemoveRange(0, values.Length);
+        _held -= values.Length;
     }
 }

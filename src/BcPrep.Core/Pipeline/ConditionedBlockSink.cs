@@ -12,6 +12,8 @@ namespace BcPrep.Pipeline;
 /// filter section, whatever the length of the day. A chunk's core is at least <see cref="CoreOverlaps"/> of its
 /// overlaps long, and a filter section's backward stretch at least that many of its settling lengths (at 1 kHz a
 /// 0.5 Hz low-pass settles over about 27 000 samples), so repeated context costs at most a quarter of the samples emitted.
+/// The logger's times are kept once (<see cref="SlidingDoubles"/>) and read by every channel's conditioner, which
+/// carries positions on them rather than a copy; the rows' times are copied from them once per block.
 /// </summary>
 /// <param name="rig">The rig: each channel's conditioning settings.</param>
 /// <param name="inner">Receives the conditioned rows.</param>
@@ -29,6 +31,7 @@ public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, i
 
     private readonly Dictionary<string, StreamingConditioner> _conditioners = new(StringComparer.Ordinal);
     private IReadOnlyList<string>? _channels;
+    private SlidingDoubles _axis = new();
     private double[] _times = [];
     private double[][] _values = [];
 
@@ -48,16 +51,19 @@ public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, i
         if (_channels is null)
         {
             _channels = channels.ToList();
+            _axis = new SlidingDoubles();
             foreach (var id in channels)
             {
                 var spec = rig.Channel(id) ?? throw new InvalidOperationException($"channel '{id}' is not in the rig description");
-                _conditioners[id] = new StreamingConditioner(ChannelConditioningPlan.Settings(rig, spec), coreLength, CoreOverlaps) { DeferFilters = parallelChannels };
+                _conditioners[id] = new StreamingConditioner(ChannelConditioningPlan.Settings(rig, spec), coreLength, CoreOverlaps, _axis) { DeferFilters = parallelChannels };
             }
         }
         var conditioners = channels.Select(id => _conditioners[id]).ToArray();
-        ForEachChannel(conditioners.Length, c => conditioners[c].Push(timeS.AsSpan(0, count), valuesSi[c].AsSpan(0, count)));
+        _axis.Append(timeS.AsSpan(0, count));
+        ForEachChannel(conditioners.Length, c => conditioners[c].PushValues(valuesSi[c].AsSpan(0, count)));
         FilterPending(conditioners);
         Drain();
+        _axis.DropBefore(conditioners.Min(c => c.OldestTimeNeeded));
     }
 
     /// <summary>Conditions and passes on what is left of the current logger.</summary>
@@ -117,45 +123,62 @@ public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, i
         }
     }
 
+    /// <summary>Rows passed on per call at most: the filters emit a stretch of every channel at once (about 130 000
+    /// rows at 1 kHz, more at a segment's end), and arrays as long as the longest of those were larger than the rows
+    /// need (their pages first touched, which costs more than copying into them). A sink reads rows in order, so
+    /// how they are cut into blocks changes nothing it writes.</summary>
+    internal const int RowsPerBlock = 65536;
+
     /// <summary>Passes on the rows every channel has finished (all channels of a logger share one time axis).</summary>
     private void Drain()
     {
         var channels = _channels!;
-        var ready = channels.Min(id => _conditioners[id].OutputTimesS.Count);
+        var ready = channels.Min(id => _conditioners[id].OutputValues.Count);
         if (ready == 0)
         {
             return;
         }
-        var first = _conditioners[channels[0]].OutputTimesS;
-        // The rows go out in arrays kept from block to block (a sink reads a block and keeps none of it, as with
-        // the reader's blocks): a block is about 100 000 rows, and fresh arrays for each went to the large-object heap.
-        if (_times.Length < ready)
+        var first = _conditioners[channels[0]];
+        for (var c = 1; c < channels.Count; c++)
         {
-            var room = Math.Max(ready, _times.Length * 5 / 4);
-            _times = new double[room];
+            // Only a channel with samples inserted by gap bridging has times of its own to compare; the others sit
+            // at the same positions of the shared axis as the first channel.
+            if (!_conditioners[channels[c]].SameOutputTimes(first, ready))
+            {
+                throw new InvalidOperationException($"conditioned time axes of '{channels[0]}' and '{channels[c]}' differ");
+            }
+        }
+        // The rows go out in arrays kept from block to block (a sink reads a block and keeps none of it, as with
+        // the reader's blocks).
+        var rows = Math.Min(ready, RowsPerBlock);
+        if (_times.Length < rows)
+        {
+            _times = new double[Math.Max(rows, Math.Min(RowsPerBlock, _times.Length * 2))];
             _values = new double[channels.Count][];
         }
         if (_values.Length != channels.Count)
         {
             _values = new double[channels.Count][];
         }
-        CollectionsMarshal.AsSpan(first)[..ready].CopyTo(_times);
-        var times = _times.AsSpan(0, ready);
-        for (var c = 0; c < channels.Count; c++)
+        for (var from = 0; from < ready; from += RowsPerBlock)
         {
-            var s = _conditioners[channels[c]];
-            if (!CollectionsMarshal.AsSpan(s.OutputTimesS)[..ready].SequenceEqual(times))
+            var n = Math.Min(RowsPerBlock, ready - from);
+            first.CopyOutputTimes(_times.AsSpan(0, n));
+            for (var c = 0; c < channels.Count; c++)
             {
-                throw new InvalidOperationException($"conditioned time axes of '{channels[0]}' and '{channels[c]}' differ");
+                var s = _conditioners[channels[c]];
+                if (_values[c] is null || _values[c].Length < _times.Length)
+                {
+                    _values[c] = new double[_times.Length];
+                }
+                CollectionsMarshal.AsSpan(s.OutputValues).Slice(from, n).CopyTo(_values[c]);
+                s.DropOutputTimes(n);
             }
-            if (_values[c] is null || _values[c].Length < _times.Length)
-            {
-                _values[c] = new double[_times.Length];
-            }
-            CollectionsMarshal.AsSpan(s.OutputValues)[..ready].CopyTo(_values[c]);
-            s.OutputTimesS.RemoveRange(0, ready);
-            s.OutputValues.RemoveRange(0, ready);
+            inner.AcceptBlock(channels, _times, _values, n);
         }
-        inner.AcceptBlock(channels, _times, _values, ready);
+        foreach (var id in channels)
+        {
+            _conditioners[id].OutputValues.RemoveRange(0, ready);
+        }
     }
 }

@@ -110,4 +110,84 @@ public sealed class CalibrateTareReadTests
         Assert.Contains("day.csv:5000:", bad.Error, StringComparison.Ordinal);
         Assert.Equal("", bad.Out);
     }
+
+    [Fact]
+    public void A_tare_refused_before_a_bad_cell_further_in_the_first_read_is_the_refusal_reported()
+    {
+        // p_in's tare (2–9 min) has no samples: its window is complete within the first block. p_out's tare moves to
+        // 60–70 min, so the first read goes on into the second block, where line 9000 holds a bad cell. The tare
+        // statistics run beside the read; the refusal of the window completed first must still be the one reported,
+        // on every run, as when each window was evaluated on the reading thread before the read went on.
+        using var temp = new TempFolder();
+        var lines = File.ReadAllLines(SampleDay.Morning);
+        for (var line = 2; line <= lines.Length; line++)
+        {
+            var t = (line - 2) * 0.5;
+            if (t >= 100.0 && t <= 560.0)
+            {
+                lines = WithCell(lines, line, "PT_IN_V", "").Split('\n')[..lines.Length];
+            }
+        }
+        var day = temp.File("day.csv");
+        File.WriteAllText(day, WithCell(lines, 9000, "TC_W1_MV", "0.1x"));
+        var rig = temp.File("rig.toml");
+        var text = RigText;
+        var second = text.LastIndexOf(SampleTare, StringComparison.Ordinal);
+        Assert.True(second > text.IndexOf(SampleTare, StringComparison.Ordinal));
+        File.WriteAllText(rig, text[..second] + "tare = { from = \"60 min\", to = \"70 min\" }" + text[(second + SampleTare.Length)..]);
+
+        for (var run = 0; run < 3; run++)
+        {
+            var bad = CliRunner.Run("calibrate", "--conditioned", rig, day);
+
+            Assert.Equal(3, bad.ExitCode);
+            Assert.Contains("the tare interval of 'p_in' holds no samples", bad.Error, StringComparison.Ordinal);
+            Assert.DoesNotContain("0.1x", bad.Error, StringComparison.Ordinal);
+            Assert.Equal("", bad.Out);
+        }
+    }
+
+    // The first read stops at the first block whose last time reaches the last tare's end. A clock that then steps
+    // back into the tare interval would put tare samples after that block, where the first read does not look; but
+    // every such day is refused where the clock steps back (times must increase within a file, and a file may not
+    // start before the previous one ends), so no day that is accepted loses tare samples. What such a refusal leaves
+    // is the rows before it, with the tare of the whole interval (the clean day's rows, bit for bit), and exit code 3.
+    [Fact]
+    public void A_clock_stepping_back_into_the_tare_interval_after_the_first_read_is_refused_with_the_tare_of_the_whole_interval()
+    {
+        using var temp = new TempFolder();
+        var lines = File.ReadAllLines(SampleDay.Morning);
+        var clean = Lines(CliRunner.Run("calibrate", SampleDay.Rig, SampleDay.Morning).Out);
+        // Line 9000 (second block) stamped 300 s after the start: inside the 2–9 min tares.
+        var day = temp.File("day.csv");
+        File.WriteAllText(day, WithCell(lines, 9000, "timestamp", "2026-11-24T09:05:00.000"));
+
+        var stepped = CliRunner.Run("calibrate", SampleDay.Rig, day);
+
+        Assert.Equal(3, stepped.ExitCode);
+        Assert.Contains("day.csv:9000:", stepped.Error, StringComparison.Ordinal);
+        Assert.Contains("goes back from", stepped.Error, StringComparison.Ordinal);
+        Assert.Equal(string.Join('\n', clean.Take(1 + 8192)) + "\n", stepped.Out);
+    }
+
+    [Fact]
+    public void A_second_file_starting_back_inside_the_tare_interval_is_refused_with_the_tare_of_the_whole_interval()
+    {
+        // The first file holds 0–749.5 s (one block, past the tares' end at 540 s: the first read stops there); the
+        // second starts again at 300 s, inside the tare interval.
+        using var temp = new TempFolder();
+        var lines = File.ReadAllLines(SampleDay.Morning);
+        var clean = Lines(CliRunner.Run("calibrate", SampleDay.Rig, SampleDay.Morning).Out);
+        var first = temp.File("first.csv");
+        File.WriteAllLines(first, lines.Take(1 + 1500));
+        var second = temp.File("second.csv");
+        File.WriteAllLines(second, lines.Take(1).Concat(lines.Skip(1 + 600).Take(2400)));
+
+        var stepped = CliRunner.Run("calibrate", SampleDay.Rig, first, second);
+
+        Assert.Equal(3, stepped.ExitCode);
+        Assert.Contains("second.csv:2:", stepped.Error, StringComparison.Ordinal);
+        Assert.Contains("the files overlap in time", stepped.Error, StringComparison.Ordinal);
+        Assert.Equal(string.Join('\n', clean.Take(1 + 1500)) + "\n", stepped.Out);
+    }
 }
