@@ -117,8 +117,12 @@ public static class WindowStatistics
         }
         var values = valuesMemory.Span;
         var length = values.Length + search.Report.InsertedSamples;
-        var t = ThreadScratch.Rent(ScratchSlots.WindowTimes, length);
-        var x = ThreadScratch.Rent(ScratchSlots.WindowValues, length);
+        // These slots are the Type A transform's arrays (ScratchSlots.WindowTimes), which a slow channel of a window
+        // this long grows to the transform's length: asked for at that length at once, they are made once, not once
+        // at the window's length and again (the first pair then large-object garbage) for the transform.
+        var capacity = Math.Max(length, LazyAutocorrelation.WholeWindowPoints(length));
+        var t = ThreadScratch.Rent(ScratchSlots.WindowTimes, capacity);
+        var x = ThreadScratch.Rent(ScratchSlots.WindowValues, capacity);
         var o = 0;
         if (search.BridgedPairs.Count == 0)
         {

@@ -88,6 +88,12 @@ public static class DayProcessor
         liveBook.DrainInto(stats, lost, fromKeptRows);
         secondRead.Complete();
         book.DrainInto(stats, lost: lost);
+        // Every window's statistics are in: the statistics threads' working arrays are not needed for this day again.
+        // Collected at once: they are large-object garbage that only a full collection frees, and the points'
+        // evaluation and writing allocate little of that kind, so without it they stayed until the end of the run,
+        // whose peak they made (8 h 1 kHz day). One blocking collection of a heap of mostly number arrays is brief.
+        ThreadScratch.ReleaseAll();
+        GC.Collect();
         var dayWarnings = DetectionWarnings(detection, windowPlan, plan.Start);
         var tareStats = TareStats(tareWindows, stats);
         var endTares = EndTares(tareWindows, stats);

@@ -37,13 +37,19 @@ internal static class FftAutocorrelation
     /// (re[0]), the same bits as <see cref="Compute(ReadOnlySpan{double}, double, Span{double})"/> writes, without an
     /// array of the window's length for them.
     /// </summary>
-    public static (double[] Re, double[] Im) UnnormalisedLags(ReadOnlySpan<double> samples, double mean)
+    public static (double[] Re, double[] Im) UnnormalisedLags(ReadOnlySpan<double> samples, double mean) =>
+        UnnormalisedLags(samples, mean, 2 * ComplexPoints(samples.Length));
+
+    /// <summary>
+    /// As <see cref="UnnormalisedLags(ReadOnlySpan{double}, double)"/> with a transform of <paramref name="size"/> real
+    /// points (a power of two ≥ n): the circular sums at lag k are r(k) + r(size − k), so only the lags
+    /// k ≤ size − n are the linear ones (r(size − k) = 0 there). Stored as there, at <paramref name="size"/> / 2 complex points.
+    /// </summary>
+    public static (double[] Re, double[] Im) UnnormalisedLags(ReadOnlySpan<double> samples, double mean, int size)
     {
-        var n = samples.Length;
-        var size = 2;
-        while (size < 2 * n)
+        if (size < 2 || (size & (size - 1)) != 0 || size < samples.Length)
         {
-            size <<= 1;
+            throw new ArgumentException($"Transform size {size} must be a power of two ≥ 2 and ≥ the window's {samples.Length} samples.", nameof(size));
         }
         var half = size / 2;
         var re = ThreadScratch.Rent(ScratchSlots.FftReal, half);
@@ -56,6 +62,20 @@ internal static class FftAutocorrelation
         PowerSpectrumPacked(re, im, size, twiddles);
         RadixTwoFft.Transform(re, im, half, inverse: true);
         return (re, im);
+    }
+
+    /// <summary>
+    /// Complex points of the transform of <paramref name="n"/> samples, the length of each of its two arrays: half the
+    /// smallest power of two ≥ 2n (at least 1).
+    /// </summary>
+    public static int ComplexPoints(int n)
+    {
+        var size = 2;
+        while (size < 2 * n)
+        {
+            size <<= 1;
+        }
+        return size / 2;
     }
 
     /// <summary>

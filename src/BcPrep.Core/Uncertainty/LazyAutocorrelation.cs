@@ -32,10 +32,26 @@ internal sealed class LazyAutocorrelation
     private double[] _rho;
     private int _known;
 
+    /// <summary>
+    /// Windows longer than this take their whole-window lags from two shorter transforms when that needs fewer
+    /// points (<see cref="SplitsWholeWindow"/>); shorter ones keep the one transform of 2n, whose arrays are small.
+    /// </summary>
+    internal const int SplitFrom = 1 << 16;
+
     // The whole window's lags stay in the FFT's scratch (no array of the window's length): lag k is
     // (k even ? re[k/2] : im[k/2]) / re[0]. Null until that route is taken; it is the last route (all lags known).
     private double[]? _wholeRe;
     private double[]? _wholeIm;
+
+    // A split whole window (SplitsWholeWindow): the lags from _farFrom on are FarLagSums' (lag k at
+    // re[k − _farFrom]·_farScale / _zeroLag), computed into the same scratch when first read, and the near ones computed
+    // again if read after them. _farFrom is the window's length when the whole window is one transform.
+    private int _farFrom;
+    private int _wholeSize;
+    private int _farPoints;
+    private double _farScale;
+    private double _zeroLag;
+    private bool _holdsFar;
 
     public LazyAutocorrelation(double[] samples, double mean)
         : this(samples, mean, SumOfSquares(samples, mean))
@@ -82,11 +98,20 @@ internal sealed class LazyAutocorrelation
             {
                 Extend(lag);
             }
-            if (_wholeRe is { } re)
+            if (_wholeRe is null)
             {
-                return ((lag & 1) == 0 ? re[lag >> 1] : _wholeIm![lag >> 1]) / re[0];
+                return _rho[lag];
             }
-            return _rho[lag];
+            if (lag >= _farFrom)
+            {
+                return FarLag(lag);
+            }
+            if (_holdsFar)
+            {
+                NearLags();
+            }
+            var re = _wholeRe;
+            return ((lag & 1) == 0 ? re[lag >> 1] : _wholeIm![lag >> 1]) / re[0];
         }
     }
 
@@ -116,7 +141,20 @@ internal sealed class LazyAutocorrelation
         // two or three section transforms cost what the whole window's two do.
         if (block >= PowerOfTwoAtLeast(n) / 2)
         {
-            (_wholeRe, _wholeIm) = FftAutocorrelation.UnnormalisedLags(_samples.Span, _mean);
+            if (SplitsWholeWindow(n, out var size, out var farPoints))
+            {
+                _wholeSize = size;
+                _farFrom = size - n + 1;
+                _farPoints = farPoints;
+                // The near transform leaves (size/2)·r(k), the far one M·r(k): both powers of two, so the ratio is exact.
+                _farScale = (size / 2) / (double)farPoints;
+                NearLags();
+            }
+            else
+            {
+                _farFrom = n;
+                (_wholeRe, _wholeIm) = FftAutocorrelation.UnnormalisedLags(_samples.Span, _mean);
+            }
             _known = n;
             LastRoute = AutocorrelationRoute.WholeWindow;
             return;
@@ -128,6 +166,50 @@ internal sealed class LazyAutocorrelation
         LastRoute = AutocorrelationRoute.Sectioned;
         SectionPasses++;
     }
+
+    /// <summary>
+    /// Whether a whole window of <paramref name="n"/> samples takes its lags from two transforms: the lags below
+    /// size − n + 1 from one of <paramref name="size"/> = the smallest power of two ≥ n real points (half the 2n of
+    /// the single transform), the far ones from <see cref="FarLagSums"/> at <paramref name="farPoints"/> complex points.
+    /// It does when the far transform needs no more than the near one's size/2 (n ≤ about 5/8 of size; a 20-minute
+    /// window at 1 kHz, 1.2 M samples, needs two arrays of 2²⁰ values instead of 2²¹: 34 MB less per statistics
+    /// thread); each lag is then computed once when read in order, as the cut-offs read them.
+    /// </summary>
+    internal static bool SplitsWholeWindow(int n, out int size, out int farPoints)
+    {
+        size = PowerOfTwoAtLeast(n);
+        var farLags = n - (size - n + 1);
+        farPoints = PowerOfTwoAtLeast(2 * Math.Max(farLags, 1));
+        return n > SplitFrom && farLags >= 1 && farPoints <= size / 2;
+    }
+
+    /// <summary>Complex points in each of the two arrays the whole-window route of <paramref name="n"/> samples needs.</summary>
+    internal static int WholeWindowPoints(int n) =>
+        SplitsWholeWindow(n, out var size, out _) ? size / 2 : FftAutocorrelation.ComplexPoints(n);
+
+    private void NearLags()
+    {
+        (_wholeRe, _wholeIm) = FftAutocorrelation.UnnormalisedLags(_samples.Span, _mean, _wholeSize);
+        _zeroLag = _wholeRe[0];
+        _holdsFar = false;
+    }
+
+    private double FarLag(int lag)
+    {
+        if (!_holdsFar)
+        {
+            var re = ThreadScratch.Rent(ScratchSlots.FftReal, _farPoints);
+            var im = ThreadScratch.Rent(ScratchSlots.FftImaginary, _farPoints);
+            FarLagSums.Compute(_samples.Span, _mean, _farFrom, re, im, _farPoints);
+            (_wholeRe, _wholeIm) = (re, im);
+            _holdsFar = true;
+            FarPasses++;
+        }
+        return _wholeRe![lag - _farFrom] * _farScale / _zeroLag;
+    }
+
+    /// <summary>How many times the far lags of a split whole window were computed (for tests).</summary>
+    internal int FarPasses { get; private set; }
 
     /// <summary>
     /// Lags the cut-off will probably read, from how ρ̂ decays between the means over two ranges of the known lags,

@@ -82,6 +82,57 @@ public class LazyAutocorrelationTests
         Assert.Equal(1, decaying.SectionPasses);
     }
 
+    // Reference: the estimator's definition (summed directly) and the single transform that zero-pads to 2n
+    // (FftAutocorrelation.Compute, held to the definition in its own tests), within 1e-12 of ρ̂(0) = 1. A window above
+    // SplitFrom whose length is under 5/8 of a power of two takes its whole-window lags from a transform of that power
+    // of two (the lags below size − n + 1) and the far ones from FarLagSums: every lag read in order, as the cut-offs
+    // read them, each part computed once; a near lag read after the far ones is computed again, not taken from the
+    // arrays the far lags overwrote.
+    [Theory]
+    [InlineData("ramp", 70_001)]
+    [InlineData("drift", 81_000)]
+    [InlineData("ar1-tau300", 66_000)]
+    public void A_split_whole_window_equals_the_single_transform_and_the_definition(string series, int n)
+    {
+        var x = CorrelatedSeries.Named(series, n, 7);
+        var mean = x.Average();
+        Assert.True(LazyAutocorrelation.SplitsWholeWindow(n, out var size, out _));
+        var farFrom = size - n + 1;
+        var single = FftAutocorrelation.Compute(x, mean);
+        var lazy = new LazyAutocorrelation(x, mean);
+        // A lag past the sections' reach sends it to the whole window.
+        _ = lazy[n / 2];
+        Assert.Equal(AutocorrelationRoute.WholeWindow, lazy.LastRoute);
+        for (var k = 0; k < n; k++)
+        {
+            Assert.Equal(single[k], lazy[k], 1e-12);
+        }
+        Assert.Equal(1, lazy.FarPasses);
+
+        var zeroLag = CorrelatedSeries.LaggedProduct(x, mean, 0);
+        foreach (var k in new[] { 1, 2, 1000, farFrom - 2, farFrom - 1, farFrom, farFrom + 1, farFrom + ((n - farFrom) / 2), n - 2, n - 1, 3 })
+        {
+            Assert.Equal(CorrelatedSeries.LaggedProduct(x, mean, k) / zeroLag, lazy[k], 1e-12);
+        }
+        Assert.Equal(2, lazy.FarPasses);
+    }
+
+    // Where the split applies: above SplitFrom and when the far lags' transform needs no more points than the near
+    // one (n up to about 5/8 of a power of two). The 8 h 1 kHz day's 20-minute windows (1 221 001 samples) split:
+    // two arrays of 2²⁰ complex points instead of 2²¹.
+    [Fact]
+    public void Splits_only_long_windows_whose_far_lags_are_few()
+    {
+        Assert.True(LazyAutocorrelation.SplitsWholeWindow(1_221_001, out var size, out var far));
+        Assert.Equal(1 << 21, size);
+        Assert.True(far <= size / 2);
+        Assert.Equal(1 << 20, LazyAutocorrelation.WholeWindowPoints(1_221_001));
+        Assert.False(LazyAutocorrelation.SplitsWholeWindow(100_000, out _, out _));
+        Assert.Equal(1 << 17, LazyAutocorrelation.WholeWindowPoints(100_000));
+        Assert.False(LazyAutocorrelation.SplitsWholeWindow(LazyAutocorrelation.SplitFrom, out _, out _));
+        Assert.False(LazyAutocorrelation.SplitsWholeWindow(4097, out _, out _));
+    }
+
     [Fact]
     public void Refuses_a_lag_outside_the_window()
     {
