@@ -1,3 +1,4 @@
+using System.Globalization;
 using System.Runtime.InteropServices;
 using BcPrep.Conditioning;
 using BcPrep.Rig;
@@ -52,6 +53,9 @@ public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, i
         {
             _channels = channels.ToList();
             _axis = new SlidingDoubles();
+            _lastRowS = double.NaN;
+            _lastChannelS = new double[channels.Count];
+            Array.Fill(_lastChannelS, double.NaN);
             foreach (var id in channels)
             {
                 var spec = rig.Channel(id) ?? throw new InvalidOperationException($"channel '{id}' is not in the rig description");
@@ -129,7 +133,13 @@ public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, i
     /// how they are cut into blocks changes nothing it writes.</summary>
     internal const int RowsPerBlock = 65536;
 
-    /// <summary>Passes on the rows every channel has finished (all channels of a logger share one time axis).</summary>
+    /// <summary>
+    /// Passes on the rows every channel has finished. The channels of a logger share one time axis, and nearly always
+    /// their conditioned times too; where gap bridging inserted samples into a time jump in some channels and left the
+    /// gap open in another (its cells were empty beside the jump, so its gap is longer than the bridge), the rows
+    /// are the union of their times and that channel's cells in the inserted rows are NaN (written empty), as the
+    /// cells of a gap left open are (<see cref="DrainMerged"/>).
+    /// </summary>
     private void Drain()
     {
         var channels = _channels!;
@@ -145,21 +155,13 @@ public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, i
             // at the same positions of the shared axis as the first channel.
             if (!_conditioners[channels[c]].SameOutputTimes(first, ready))
             {
-                throw new InvalidOperationException($"conditioned time axes of '{channels[0]}' and '{channels[c]}' differ");
+                DrainMerged();
+                return;
             }
         }
         // The rows go out in arrays kept from block to block (a sink reads a block and keeps none of it, as with
         // the reader's blocks).
-        var rows = Math.Min(ready, RowsPerBlock);
-        if (_times.Length < rows)
-        {
-            _times = new double[Math.Max(rows, Math.Min(RowsPerBlock, _times.Length * 2))];
-            _values = new double[channels.Count][];
-        }
-        if (_values.Length != channels.Count)
-        {
-            _values = new double[channels.Count][];
-        }
+        RowArrays(Math.Min(ready, RowsPerBlock), channels.Count);
         for (var from = 0; from < ready; from += RowsPerBlock)
         {
             var n = Math.Min(RowsPerBlock, ready - from);
@@ -167,18 +169,130 @@ public sealed class ConditionedBlockSink(RigDescription rig, IBlockSink inner, i
             for (var c = 0; c < channels.Count; c++)
             {
                 var s = _conditioners[channels[c]];
-                if (_values[c] is null || _values[c].Length < _times.Length)
-                {
-                    _values[c] = new double[_times.Length];
-                }
                 CollectionsMarshal.AsSpan(s.OutputValues).Slice(from, n).CopyTo(_values[c]);
                 s.DropOutputTimes(n);
             }
             inner.AcceptBlock(channels, _times, _values, n);
+            _lastRowS = _times[n - 1];
         }
         foreach (var id in channels)
         {
             _conditioners[id].OutputValues.RemoveRange(0, ready);
         }
+        Array.Fill(_lastChannelS, _lastRowS);
+    }
+
+    /// <summary>The time of the last row passed on for the current logger (NaN before its first).</summary>
+    private double _lastRowS = double.NaN;
+
+    /// <summary>Per channel of the current logger, the time of its last value passed on (NaN before its first).</summary>
+    private double[] _lastChannelS = [];
+
+    /// <summary>Row arrays for at least <paramref name="rows"/> rows of <paramref name="channelCount"/> channels, kept from block to block.</summary>
+    private void RowArrays(int rows, int channelCount)
+    {
+        if (_times.Length < rows)
+        {
+            _times = new double[Math.Max(rows, Math.Min(RowsPerBlock, _times.Length * 2))];
+            _values = new double[channelCount][];
+        }
+        if (_values.Length != channelCount)
+        {
+            _values = new double[channelCount][];
+        }
+        for (var c = 0; c < channelCount; c++)
+        {
+            if (_values[c] is null || _values[c].Length < _times.Length)
+            {
+                _values[c] = new double[_times.Length];
+            }
+        }
+    }
+
+    /// <summary>
+    /// Passes on, in time order, every row up to the earliest of the channels' last finished times (a channel emits
+    /// its times in increasing order, so no channel can still add a row before it): one row per time of any channel,
+    /// each channel's value where it has that time, else NaN. A channel may lack a row's time only inside a time
+    /// jump of its own series (a gap it left open where another channel inserted samples); anything else would be
+    /// channels out of step, which is refused rather than written out of line.
+    /// </summary>
+    private void DrainMerged()
+    {
+        var channels = _channels!;
+        var conditioners = channels.Select(id => _conditioners[id]).ToArray();
+        var times = new double[conditioners.Length][];
+        var taken = new int[conditioners.Length];
+        var untilS = double.PositiveInfinity;
+        var total = 0;
+        for (var c = 0; c < conditioners.Length; c++)
+        {
+            var count = conditioners[c].OutputValues.Count;
+            times[c] = new double[count];
+            conditioners[c].CopyOutputTimes(times[c]);
+            untilS = Math.Min(untilS, times[c][count - 1]);
+            total += count;
+        }
+        RowArrays(Math.Min(total, RowsPerBlock), conditioners.Length);
+        var n = 0;
+        while (true)
+        {
+            var rowS = double.PositiveInfinity;
+            for (var c = 0; c < conditioners.Length; c++)
+            {
+                if (taken[c] < times[c].Length)
+                {
+                    rowS = Math.Min(rowS, times[c][taken[c]]);
+                }
+            }
+            if (!(rowS <= untilS))
+            {
+                break;
+            }
+            for (var c = 0; c < conditioners.Length; c++)
+            {
+                var i = taken[c];
+                if (times[c][i] == rowS)
+                {
+                    _values[c][n] = conditioners[c].OutputValues[i];
+                    taken[c]++;
+                    continue;
+                }
+                // Not this channel's time: it must lie inside a time jump of its own series, a step longer than a
+                // jump (GapBridging.JumpFactor) of the rows' step into this row.
+                var beforeS = i > 0 ? times[c][i - 1] : _lastChannelS[c];
+                var rowStepS = rowS - (n > 0 ? _times[n - 1] : _lastRowS);
+                if (!(times[c][i] - beforeS > GapBridging.JumpFactor * rowStepS))
+                {
+                    throw new InvalidOperationException(string.Create(CultureInfo.InvariantCulture,
+                        $"conditioned time axes of '{channels[0]}' and '{channels[c]}' differ: '{channels[c]}' has no sample at {rowS:R} s but no time jump there ({beforeS:R} s, {times[c][i]:R} s)"));
+                }
+                _values[c][n] = double.NaN;
+            }
+            _times[n++] = rowS;
+            if (n == _times.Length)
+            {
+                PassOn(channels, n);
+                n = 0;
+            }
+        }
+        if (n > 0)
+        {
+            PassOn(channels, n);
+        }
+        for (var c = 0; c < conditioners.Length; c++)
+        {
+            if (taken[c] > 0)
+            {
+                _lastChannelS[c] = times[c][taken[c] - 1];
+            }
+            conditioners[c].DropOutputTimes(taken[c]);
+            conditioners[c].OutputValues.RemoveRange(0, taken[c]);
+        }
+    }
+
+    private void PassOn(IReadOnlyList<string> channels, int n)
+    {
+        inner.AcceptBlock(channels, _times, _values, n);
+        _lastRowS = _times[n - 1];
     }
 }

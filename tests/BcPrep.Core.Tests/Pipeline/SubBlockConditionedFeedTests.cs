@@ -109,4 +109,61 @@ public class SubBlockConditionedFeedTests
         Assert.True(worst <= 0.25 * NoiseSigma, $"interior block means differ by {worst} at {at}");
         Assert.True(worstEdge <= HumAmplitude, $"edge block means differ by {worstEdge}");
     }
+
+    // process with a notch and a low-pass at 1 kHz conditions sub-block means. A logger that lost 0.5 s of rows
+    // (bridged by the default max_bridge of 2 s, sub-blocks inserted) while one channel's cells were empty for the
+    // 2 s before: that channel's gap (2.5 s) stays open while the others bridge the jump. Before, the chain stopped
+    // with an internal error here. The channels are conditioned independently, so the other channels' block means
+    // are those of the same day without the empty cells, to the rounding of a block's sum (the rows reach the block
+    // means in pieces cut elsewhere once the channels' counts differ: 1e-12 relative, common practice), and the open
+    // channel has no mean in the blocks its gap covers (README: a block with no sample stays empty).
+    [Fact]
+    public void A_channel_left_open_beside_a_jump_the_others_bridge_changes_no_other_channel()
+    {
+        var rig = Rig("mains = \"50 Hz\"\nlowpass_cutoff = \"0.5 Hz\"");
+        var (channels, allTimes, allValues) = Day(11);
+        var kept = Enumerable.Range(0, allTimes.Length).Where(i => allTimes[i] - StartS is < 100.0 or >= 100.5).ToArray();
+        var times = kept.Select(i => allTimes[i]).ToArray();
+        var clean = allValues.Select(v => kept.Select(i => v[i]).ToArray()).ToArray();
+        var open = clean.Select(v => (double[])v.Clone()).ToArray();
+        const int Open = 2;
+        for (var i = 0; i < times.Length; i++)
+        {
+            if (times[i] - StartS is >= 98.0 and < 100.0)
+            {
+                open[Open][i] = double.NaN;
+            }
+        }
+
+        BlockMeanSink Means(double[][] values)
+        {
+            var sink = new BlockMeanSink(StartS, 1.0);
+            var feed = new SubBlockConditionedFeed(rig, sink);
+            Feed(feed, channels, times, values);
+            feed.Complete();
+            Assert.Equal(25, feed.SubBlocksPerBlock);
+            return sink;
+        }
+
+        var withOpenGap = Means(open);
+        var reference = Means(clean);
+
+        Assert.Equal(reference.Length, withOpenGap.Length);
+        for (var c = 0; c < channels.Length; c++)
+        {
+            var a = reference.Means(channels[c], reference.Length);
+            var b = withOpenGap.Means(channels[c], withOpenGap.Length);
+            if (c != Open)
+            {
+                for (var k = 0; k < a.Length; k++)
+                {
+                    Assert.True(Math.Abs(a[k] - b[k]) <= 1e-12 * Math.Abs(a[k]), $"{channels[c]} block {k}: {a[k]:R} without the empty cells, {b[k]:R} with them");
+                }
+                Assert.True(double.IsFinite(b[100]), $"{channels[c]} block 100: {b[100]}");
+                continue;
+            }
+            Assert.True(double.IsNaN(b[98]) && double.IsNaN(b[99]), $"{channels[c]} blocks 98, 99: {b[98]}, {b[99]}");
+            Assert.True(double.IsFinite(b[97]) && double.IsFinite(b[100]), $"{channels[c]} blocks 97, 100: {b[97]}, {b[100]}");
+        }
+    }
 }
