@@ -167,4 +167,32 @@ public class ConditionedBlockSinkTests
         Assert.Equal(4, inserted.Count);
         Assert.All(inserted, time => Assert.InRange(time, 1.0e9 + 11.9995, 1.0e9 + 12.0035));
     }
+
+    // A channel whose empty cells outlast the bridge (no time jump: the logger kept its rows) ends a filter segment
+    // there and starts another after it, while the other channels of its vector-lane group filter on through the same
+    // times. Its rows, and theirs, must still be each channel's rows conditioned alone, bit for bit, with the gap's
+    // cells left empty (the first channel of the group, and one further in, carry the gap).
+    [Theory]
+    [InlineData(0, 777)]
+    [InlineData(2, 777)]
+    [InlineData(2, 4096)]
+    public void A_channel_with_a_gap_of_its_own_in_a_lane_group_gives_its_rows_alone(int gapChannel, int rows)
+    {
+        var rig = Rig("max_bridge = \"0.02 s\"\nmains = \"50 Hz\"\nlowpass_cutoff = \"20 Hz\"");
+        var (channels, t, x) = Record(rig, 60_000);
+        for (var i = 25_000; i < 25_050; i++)
+        {
+            x[gapChannel][i] = double.NaN; // 0.05 s of empty cells against a 0.02 s bridge
+        }
+
+        var shared = Shared(rig, channels, t, x, rows, parallel: true);
+
+        for (var c = 0; c < channels.Length; c++)
+        {
+            var (times, values) = Alone(rig, channels[c], t, x[c], rows);
+            AssertBits(times, shared.Times, $"times of '{channels[c]}'");
+            AssertBits(values, shared.Values[channels[c]], $"'{channels[c]}'");
+        }
+        Assert.True(double.IsNaN(shared.Values[channels[gapChannel]][Array.IndexOf(shared.Times.ToArray(), t[25_020])]), "the gap stays open");
+    }
 }
