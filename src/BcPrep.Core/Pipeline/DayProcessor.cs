@@ -92,6 +92,8 @@ public static class DayProcessor
         // Collected at once: they are large-object garbage that only a full collection frees, and the points'
         // evaluation and writing allocate little of that kind, so without it they stayed until the end of the run,
         // whose peak they made (8 h 1 kHz day). One blocking collection of a heap of mostly number arrays is brief.
+        // Not mirrored in Live/DaySoFar on purpose: a followed day goes on reducing windows as they close, on the same
+        // statistics threads, which reuse these arrays.
         ThreadScratch.ReleaseAll();
         GC.Collect();
         var dayWarnings = DetectionWarnings(detection, windowPlan, plan.Start);
