@@ -31,6 +31,9 @@ internal static class ScratchSlots
     /// <summary>A gathered window's channel, loaded from the kept rows for its reduction (<see cref="Pipeline.GatheredWindow"/>).</summary>
     public const int LoadedValues = 11;
 
+    /// <summary>A block of original samples for the in-place Hampel rule (<see cref="Conditioning.InPlaceHampel"/>).</summary>
+    public const int HampelOriginals = 12;
+
     /// <summary>Number of slots.</summary>
-    public const int Count = 12;
+    public const int Count = 13;
 }

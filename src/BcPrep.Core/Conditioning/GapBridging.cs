@@ -185,6 +185,32 @@ public static class GapBridging
         return o + rest;
     }
 
+    /// <summary>
+    /// The bridged series written over <paramref name="values"/> itself, when no samples are inserted (the gaps are
+    /// cells without a value, not missing rows): the series keeps its length and times, and only the cells inside the
+    /// bridged gaps are written, with the values <see cref="AssembleInto"/> gives them, each cell's old value recorded
+    /// in <paramref name="edits"/>. Returns how many non-finite cells were bridged, or −1 (nothing written) when samples
+    /// would be inserted.
+    /// </summary>
+    internal static int BridgeInPlace(ReadOnlySpan<double> timesS, Span<double> values, GapSearch search, SampleEdits edits)
+    {
+        if (search.Report.InsertedSamples != 0)
+        {
+            return -1;
+        }
+        int bridged = 0;
+        foreach (var (a, b) in search.BridgedPairs)
+        {
+            for (int j = a + 1; j < b; j++)
+            {
+                bridged += double.IsFinite(values[j]) ? 0 : 1;
+                edits.Record(j, values[j]);
+                values[j] = Line(timesS[a], values[a], timesS[b], values[b], timesS[j]);
+            }
+        }
+        return bridged;
+    }
+
     /// <summary>The number of NaN/∞ values.</summary>
     internal static int CountNonFinite(ReadOnlySpan<double> values)
     {

@@ -150,7 +150,7 @@ public static class HampelFilter
     }
 
     /// <summary>The rule for the centres <paramref name="from"/> … <paramref name="to"/> − 1 by the general sorted window.</summary>
-    private static void TruncatedEnd(ReadOnlySpan<double> x, int from, int to, int k, double sigmaThreshold, double scaleFloor, Span<double> output, List<int> replaced)
+    internal static void TruncatedEnd(ReadOnlySpan<double> x, int from, int to, int k, double sigmaThreshold, double scaleFloor, Span<double> output, List<int> replaced)
     {
         for (int i = from; i < to; i++)
         {
@@ -235,7 +235,7 @@ public static class HampelFilter
         return (median, window.MedianAbsoluteDeviation(median));
     }
 
-    private static bool AllFinite(ReadOnlySpan<double> x)
+    internal static bool AllFinite(ReadOnlySpan<double> x)
     {
         foreach (var v in x)
         {
@@ -248,7 +248,7 @@ public static class HampelFilter
         return true;
     }
 
-    private static void Validate(int halfWindow, double sigmaThreshold, double scaleFloor)
+    internal static void Validate(int halfWindow, double sigmaThreshold, double scaleFloor)
     {
         if (halfWindow < 1)
         {

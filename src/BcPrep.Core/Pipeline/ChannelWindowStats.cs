@@ -57,7 +57,25 @@ public static class WindowStatistics
 
     /// <inheritdoc cref="Evaluate(string, TimeWindow, double[], double[], ConditioningSettings, SensorFaultLimits, DayStart)"/>
     /// <remarks>The values as the first elements of a longer array (a statistics thread's scratch, <see cref="GatheredWindow.Load"/>).</remarks>
-    internal static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, ReadOnlyMemory<double> values, ConditioningSettings settings, SensorFaultLimits limits, DayStart dayStart = default)
+    internal static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, ReadOnlyMemory<double> values, ConditioningSettings settings, SensorFaultLimits limits, DayStart dayStart = default) =>
+        Evaluate(channel, window, timesS, values, default, null, settings, limits, dayStart);
+
+    /// <inheritdoc cref="Evaluate(string, TimeWindow, double[], double[], ConditioningSettings, SensorFaultLimits, DayStart)"/>
+    /// <remarks>
+    /// The values are the caller's to write over (a statistics thread's loaded channel, <see cref="GatheredWindow.Load"/>):
+    /// when the gaps are cells without a value and the Hampel window is the usual one, the gaps are bridged and the
+    /// spikes replaced in <paramref name="values"/> itself, each cell written recorded in <paramref name="edits"/>
+    /// (so that the caller can put the loaded samples back for a second reduction), instead of in a second window-long
+    /// array. The statistics are the same, bit for bit.
+    /// </remarks>
+    internal static ChannelWindowStats EvaluateInPlace(string channel, TimeWindow window, double[] timesS, Memory<double> values, SampleEdits edits, ConditioningSettings settings, SensorFaultLimits limits, DayStart dayStart = default)
+    {
+        ArgumentNullException.ThrowIfNull(edits);
+        return Evaluate(channel, window, timesS, values, values, edits, settings, limits, dayStart);
+    }
+
+    private static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, ReadOnlyMemory<double> values, Memory<double> writable, SampleEdits? edits,
+        ConditioningSettings settings, SensorFaultLimits limits, DayStart dayStart)
     {
         ArgumentNullException.ThrowIfNull(settings);
         ArgumentNullException.ThrowIfNull(timesS);
@@ -77,10 +95,22 @@ public static class WindowStatistics
             throw new WindowLostFailure(new SourceLocation("(logs)", Key: channel), string.Create(System.Globalization.CultureInfo.InvariantCulture,
                 $"channel '{channel}' lost {lostS:F1} s of window '{window.Id}' ({dayStart.Since(window.Start).Value:F1}–{dayStart.Since(window.End).Value:F1} s since the first sample of the day) to {interior.Count} gap(s) longer than the {settings.MaxBridgeS:G} s that may be bridged, the longest {gap.DurationS:F1} s from {dayStart.Since(new LoggerSeconds(gap.StartS)).Value:F1} s; more than {LostFractionLimit:P0} of the window is too little left to stand for it"));
         }
-        var (keptTimes, kept) = BridgedFiniteSamples(timesS, values, search, finite);
-        // Scratch of the thread's current length or longer (no new array when the next channel keeps a sample more).
-        var clean = ThreadScratch.Rent(ScratchSlots.CleanSamples, kept.Length).AsMemory(0, kept.Length);
-        var replaced = HampelFilter.ApplyInto(kept.Span, clean.Span, settings.HampelHalfWindow, settings.HampelSigmas, settings.HampelScaleFloor);
+        ReadOnlyMemory<double> keptTimes;
+        ReadOnlyMemory<double> clean;
+        IReadOnlyList<int> replaced;
+        if (edits is not null && InPlace(timesS, writable, search, finite, settings, edits) is { } inPlace)
+        {
+            (keptTimes, clean, replaced) = (timesS, writable, inPlace);
+        }
+        else
+        {
+            ReadOnlyMemory<double> kept;
+            (keptTimes, kept) = BridgedFiniteSamples(timesS, values, search, finite);
+            // Scratch of the thread's current length or longer (no new array when the next channel keeps a sample more).
+            var into = ThreadScratch.Rent(ScratchSlots.CleanSamples, kept.Length).AsMemory(0, kept.Length);
+            replaced = HampelFilter.ApplyInto(kept.Span, into.Span, settings.HampelHalfWindow, settings.HampelSigmas, settings.HampelScaleFloor);
+            clean = into;
+        }
         var faults = SensorFaults.Check(clean.Span, limits, out var min, out var max).Flags;
         // Every time reported is taken before the Type A evaluation: the bridged times and values share their arrays
         // with its transforms (ScratchSlots.WindowTimes).
@@ -104,6 +134,39 @@ public static class WindowStatistics
     /// carries the smaller sample count. Common practice, no standard behind the number.
     /// </summary>
     public const double LostFractionLimit = 0.25;
+
+    /// <summary>
+    /// Bridges and de-spikes <paramref name="valuesMemory"/> where they are, recording each cell written in
+    /// <paramref name="edits"/>, and returns the replaced indices; or returns null with the values as they were
+    /// (the caller then takes the copying path) when the series would change length (inserted samples, or cells
+    /// left without a value) or the Hampel window is not the one done in place.
+    /// </summary>
+    private static List<int>? InPlace(double[] timesS, Memory<double> valuesMemory, GapSearch search, int finite, ConditioningSettings settings, SampleEdits edits)
+    {
+        var values = valuesMemory.Span;
+        var nonFinite = values.Length - finite;
+        if (search.Report.InsertedSamples != 0 || (nonFinite > 0 && search.BridgedPairs.Count == 0)
+            || settings.HampelHalfWindow != TwentyOnePointWindow.HalfWindow || !TwentyOnePointWindow.IsAccelerated)
+        {
+            return null;
+        }
+        if (nonFinite > 0 && GapBridging.BridgeInPlace(timesS, values, search, edits) != nonFinite)
+        {
+            // Some cells stay without a value (a gap left open): the copying path drops them.
+            edits.Undo(values);
+            return null;
+        }
+        if (!InPlaceHampel.Applies(values, settings.HampelHalfWindow))
+        {
+            edits.Undo(values);
+            return null;
+        }
+        var replaced = new List<int>();
+        var originals = new List<double>();
+        InPlaceHampel.Apply(values, settings.HampelSigmas, settings.HampelScaleFloor, replaced, originals);
+        edits.Record(replaced, originals);
+        return replaced;
+    }
 
     /// <summary>
     /// The bridged series without its NaN/∞ cells (those of gaps left open), with times: the given arrays themselves

@@ -204,10 +204,14 @@ public static class DayProcessor
     /// its statistics start and let go when they are done. The same statistics as a window read again (below).
     /// </summary>
     internal static void Collect(RigDescription rig, DayStart dayStart, WindowStatsBook book, TimeWindow window, IReadOnlyList<GatheredChannel> channels) =>
-        book.AddAll(window, [.. channels.Select(channel => (channel.Name, (Func<TimeWindow, ChannelWindowStats>)(named => channel.Reduce((times, values) =>
+        book.AddAll(window, [.. channels.Select(channel => (channel.Name, (Func<TimeWindow, ChannelWindowStats>)(named => channel.Reduce((times, values, edits) =>
         {
             RequireSamples(named, channel.Name, times, dayStart, null);
-            return FaultPolicy.Evaluate(rig, channel.Name, named, times, values, dayStart);
+            // The first reduction works in the loaded values (the thread's scratch) where it can: no second
+            // window-long array for the de-spiked samples on each statistics thread.
+            return edits is null
+                ? FaultPolicy.Evaluate(rig, channel.Name, named, times, values, dayStart)
+                : FaultPolicy.EvaluateInPlace(rig, channel.Name, named, times, values, edits, dayStart);
         }))))]);
 
     internal static void Collect(RigDescription rig, DayStart dayStart, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,

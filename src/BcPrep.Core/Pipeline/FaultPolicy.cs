@@ -42,17 +42,26 @@ public static class FaultPolicy
         Evaluate(rig, channelId, window, timesS, values.AsMemory(), dayStart);
 
     /// <inheritdoc cref="Evaluate(RigDescription, string, TimeWindow, double[], double[], DayStart)"/>
-    internal static ChannelWindowStats Evaluate(RigDescription rig, string channelId, TimeWindow window, double[] timesS, ReadOnlyMemory<double> values, DayStart dayStart)
+    internal static ChannelWindowStats Evaluate(RigDescription rig, string channelId, TimeWindow window, double[] timesS, ReadOnlyMemory<double> values, DayStart dayStart) =>
+        Evaluate(rig, channelId, window, dayStart, (settings, limits) => WindowStatistics.Evaluate(channelId, window, timesS, values, settings, limits, dayStart));
+
+    /// <inheritdoc cref="Evaluate(RigDescription, string, TimeWindow, double[], double[], DayStart)"/>
+    /// <remarks>The values are the caller's to write over, each cell written recorded in <paramref name="edits"/> (<see cref="WindowStatistics.EvaluateInPlace"/>).</remarks>
+    internal static ChannelWindowStats EvaluateInPlace(RigDescription rig, string channelId, TimeWindow window, double[] timesS, Memory<double> values, SampleEdits edits, DayStart dayStart) =>
+        Evaluate(rig, channelId, window, dayStart, (settings, limits) => WindowStatistics.EvaluateInPlace(channelId, window, timesS, values, edits, settings, limits, dayStart));
+
+    private static ChannelWindowStats Evaluate(RigDescription rig, string channelId, TimeWindow window, DayStart dayStart,
+        Func<ConditioningSettings, SensorFaultLimits, ChannelWindowStats> statistics)
     {
         ArgumentNullException.ThrowIfNull(rig);
         ArgumentNullException.ThrowIfNull(window);
         var channel = rig.Channel(channelId);
         if (channel is null)
         {
-            return WindowStatistics.Evaluate(channelId, window, timesS, values, new ConditioningSettings(MaxBridgeS: rig.Conditioning.MaxBridgeS, HampelHalfWindow: rig.Conditioning.HampelHalfWindow, HampelSigmas: rig.Conditioning.HampelSigmas), new SensorFaultLimits(), dayStart);
+            return statistics(new ConditioningSettings(MaxBridgeS: rig.Conditioning.MaxBridgeS, HampelHalfWindow: rig.Conditioning.HampelHalfWindow, HampelSigmas: rig.Conditioning.HampelSigmas), new SensorFaultLimits());
         }
         var limits = ChannelConditioningPlan.Limits(channel);
-        var stats = WindowStatistics.Evaluate(channelId, window, timesS, values, ChannelConditioningPlan.Settings(rig, channel), limits, dayStart);
+        var stats = statistics(ChannelConditioningPlan.Settings(rig, channel), limits);
         var report = stats.Conditioning!;
         var verdicts = report.Faults.Select(v => v with { Severity = Judge(channel, v.Flag, limits) }).ToList();
         if (verdicts.FirstOrDefault(v => v.Severity == FaultSeverity.Failure) is { } failing)

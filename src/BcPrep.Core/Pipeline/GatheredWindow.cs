@@ -47,9 +47,10 @@ internal sealed class GatheredWindow
 
     /// <summary>
     /// Loads channel <paramref name="channel"/> and the window's times; each channel is loaded once. The values are
-    /// the calling thread's scratch, valid until its next load: a caller that keeps them copies them.
+    /// the calling thread's scratch, valid until its next load: a caller that keeps them copies them, and may write over
+    /// them (<see cref="GatheredChannel"/>).
     /// </summary>
-    internal (double[] TimesS, ReadOnlyMemory<double> Values) Load(int channel)
+    internal (double[] TimesS, Memory<double> Values) Load(int channel)
     {
         try
         {
