@@ -1,3 +1,4 @@
+using BcPrep.Conditioning;
 using BcPrep.Lab;
 using BcPrep.Physics;
 using BcPrep.Reading;
@@ -214,6 +215,26 @@ public static class DayProcessor
                 : FaultPolicy.EvaluateInPlace(rig, channel.Name, named, times, values, edits, dayStart);
         }))))]);
 
+    /// <summary>
+    /// The statistics of a channel's window from arrays handed over for them alone (the collector makes each window's
+    /// own): they may work in the values, as a gathered channel's do in its scratch (no de-spiked copy, which stayed on
+    /// each statistics thread for the rest of the day). Should they fail, the samples are put back first, because the
+    /// failure is evaluated again from the same arrays for its message (<see cref="WindowStatsBook.DrainInto"/>).
+    /// </summary>
+    private static ChannelWindowStats EvaluateInOwnArray(RigDescription rig, string channel, TimeWindow window, double[] times, double[] values, DayStart dayStart)
+    {
+        var edits = new SampleEdits();
+        try
+        {
+            return FaultPolicy.EvaluateInPlace(rig, channel, window, times, values, edits, dayStart);
+        }
+        catch
+        {
+            edits.Undo(values);
+            throw;
+        }
+    }
+
     internal static void Collect(RigDescription rig, DayStart dayStart, WindowStatsBook book, TimeWindow window, string channel, double[] times, double[] values,
         SourceLocation? pinnedAt = null)
     {
@@ -224,7 +245,7 @@ public static class DayProcessor
             book.Add(window, channel, named =>
             {
                 RequireSamples(named, channel, times, dayStart, null);
-                return FaultPolicy.Evaluate(rig, channel, named, times, values, dayStart);
+                return EvaluateInOwnArray(rig, channel, named, times, values, dayStart);
             });
             return;
         }
@@ -234,7 +255,7 @@ public static class DayProcessor
         {
             try
             {
-                return FaultPolicy.Evaluate(rig, channel, window, times, values, dayStart);
+                return EvaluateInOwnArray(rig, channel, window, times, values, dayStart);
             }
             catch (WindowLostFailure failure)
             {

@@ -134,4 +134,55 @@ public class FaultPolicyTests
         Assert.Equal(FailureKind.InputData, failure.Kind);
         Assert.Contains("more than 25 % of the window", failure.Problems[0].Message, StringComparison.Ordinal);
     }
+
+    // Common practice: the statistics of a collected window work in the arrays the collector hands over; a point that
+    // fails is evaluated again from the same arrays under its id (WindowStatsBook.DrainInto), so the bridged cell and
+    // the replaced spikes must be put back first: the message is the one the untouched samples give, and the arrays
+    // are as they were handed in.
+    [Fact]
+    public void A_collected_window_that_fails_after_de_spiking_is_evaluated_again_from_the_samples_as_handed_in()
+    {
+        var (t, x) = Series(1200.0);
+        for (var i = 400; i < t.Length; i++)
+        {
+            x[i] = 5000.0; // saturated, as above
+        }
+        x[100] += 400.0; // spikes, replaced in place before the fault policy refuses the channel
+        x[250] -= 400.0;
+        x[180] = double.NaN; // one empty cell, bridged in place
+        var handedIn = (double[])x.Clone();
+        var expected = Assert.Throws<BcPrepFailure>(() => FaultPolicy.Evaluate(Rig(), "p_in", Window, t, (double[])x.Clone(), Start));
+        var book = new WindowStatsBook();
+        var detected = new TimeWindow("", Window.StartS, Window.EndS);
+
+        DayProcessor.Collect(Rig(), Start, book, detected, "p_in", t, x);
+        var failure = Assert.Throws<BcPrepFailure>(() => book.DrainInto([], named: new Dictionary<TimeWindow, TimeWindow> { [detected] = Window }));
+
+        Assert.Equal(expected.Problems[0].Message, failure.Problems[0].Message);
+        Assert.Contains("window 'OP1'", failure.Problems[0].Message, StringComparison.Ordinal);
+        Assert.Equal(handedIn.Select(BitConverter.DoubleToInt64Bits), x.Select(BitConverter.DoubleToInt64Bits));
+    }
+
+    // Common practice: a collected window that succeeds gives the statistics of the copying path, bit for bit.
+    [Fact]
+    public void A_collected_window_gives_the_statistics_of_the_untouched_samples()
+    {
+        var (t, x) = Series(1200.0);
+        x[100] += 400.0;
+        x[180] = double.NaN;
+        var expected = FaultPolicy.Evaluate(Rig(), "p_in", Window, t, (double[])x.Clone(), Start);
+        var book = new WindowStatsBook();
+
+        DayProcessor.Collect(Rig(), Start, book, Window, "p_in", t, x, new SourceLocation("rig.toml", Key: "OP1"));
+        var stats = new Dictionary<string, Dictionary<string, ChannelWindowStats>>();
+        book.DrainInto(stats);
+
+        var actual = stats["OP1"]["p_in"];
+        Assert.Equal(1, actual.SpikesReplaced);
+        Assert.Equal(1, actual.BridgedSamples);
+        Assert.Equal(BitConverter.DoubleToInt64Bits(expected.Mean), BitConverter.DoubleToInt64Bits(actual.Mean));
+        Assert.Equal(expected.TypeA, actual.TypeA);
+        Assert.Equal(expected.Conditioning!.SpikeTimesS, actual.Conditioning!.SpikeTimesS);
+        Assert.Equal(expected.Conditioning.BridgedGaps, actual.Conditioning.BridgedGaps);
+    }
 }
