@@ -25,7 +25,7 @@ internal static class ScratchSlots
     /// <summary>A window's bridged, finite sample values (window statistics); the same array as <see cref="FftImaginary"/>, see <see cref="WindowTimes"/>.</summary>
     public const int WindowValues = FftImaginary;
 
-    /// <summary>A window's de-spiked samples (window statistics).</summary>
+    /// <summary>A window's de-spiked samples (window statistics), when they cannot be de-spiked where they were loaded (inserted samples, gaps left open, a Hampel window other than k = 10).</summary>
     public const int CleanSamples = 10;
 
     /// <summary>A gathered window's channel, loaded from the kept rows for its reduction (<see cref="Pipeline.GatheredWindow"/>).</summary>

@@ -81,6 +81,12 @@ internal sealed class GatheredWindow
         }
     }
 
+    /// <summary>
+    /// Windows of at least this many samples (4 MB of times; 8.7 min at 1 kHz) are followed by a full collection
+    /// when their last channel is done (<see cref="Finish"/>).
+    /// </summary>
+    internal const int CollectFrom = 1 << 19;
+
     /// <summary>A channel loaded (or failed to load) is done with: the times go with the last one.</summary>
     internal void Finish(bool loaded)
     {
@@ -88,12 +94,24 @@ internal sealed class GatheredWindow
         {
             _loaded.Remove();
         }
+        bool last;
         lock (_gate)
         {
-            if (--_unfinished == 0)
+            last = --_unfinished == 0;
+            if (last)
             {
                 _timesS = null;
             }
+        }
+        if (last && _count >= CollectFrom)
+        {
+            // The window's times (about 10 MB for 20 minutes at 1 kHz), made for it alone, are large-object garbage
+            // now, as are any statistics arrays its channels outgrew; only a full collection frees them, and the
+            // collector put that off until its large-object budget ran out, so on the 8 h 1 kHz day two or three
+            // windows' worth stayed at the run's peak. One blocking collection per long window (a few an hour) of a
+            // heap of a few thousand objects, mostly number arrays, is brief: measured 15-25 MB lower peak on that
+            // day, no CPU time to see.
+            GC.Collect();
         }
     }
 
