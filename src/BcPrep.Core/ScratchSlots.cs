@@ -25,10 +25,14 @@ internal static class ScratchSlots
     /// <summary>A window's bridged, finite sample values (window statistics); the same array as <see cref="FftImaginary"/>, see <see cref="WindowTimes"/>.</summary>
     public const int WindowValues = FftImaginary;
 
-    /// <summary>A window's de-spiked samples (window statistics), when they cannot be de-spiked where they were loaded (inserted samples, gaps left open, a Hampel window other than k = 10).</summary>
+    /// <summary>A window's de-spiked samples (window statistics), when they cannot be de-spiked where they were loaded (inserted samples, gaps left open, a Hampel window other than k = 10) and the caller names no slot of its own for them (<see cref="LoadedValues"/>).</summary>
     public const int CleanSamples = 10;
 
-    /// <summary>A gathered window's channel, loaded from the kept rows for its reduction (<see cref="Pipeline.GatheredWindow"/>).</summary>
+    /// <summary>
+    /// A gathered window's channel, loaded from the kept rows for its reduction (<see cref="Pipeline.GatheredWindow"/>);
+    /// also its de-spiked copy when its samples had to be bridged into the window arrays (<see cref="WindowValues"/>),
+    /// after which the loaded ones are dead (a failed reduction loads them again).
+    /// </summary>
     public const int LoadedValues = 11;
 
     /// <summary>A block of original samples for the in-place Hampel rule (<see cref="Conditioning.InPlaceHampel"/>).</summary>

@@ -58,7 +58,7 @@ public static class WindowStatistics
     /// <inheritdoc cref="Evaluate(string, TimeWindow, double[], double[], ConditioningSettings, SensorFaultLimits, DayStart)"/>
     /// <remarks>The values as the first elements of a longer array (a statistics thread's scratch, <see cref="GatheredWindow.Load"/>).</remarks>
     internal static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, ReadOnlyMemory<double> values, ConditioningSettings settings, SensorFaultLimits limits, DayStart dayStart = default) =>
-        Evaluate(channel, window, timesS, values, default, null, settings, limits, dayStart);
+        Evaluate(channel, window, timesS, values, default, null, ScratchSlots.CleanSamples, settings, limits, dayStart);
 
     /// <inheritdoc cref="Evaluate(string, TimeWindow, double[], double[], ConditioningSettings, SensorFaultLimits, DayStart)"/>
     /// <remarks>
@@ -66,16 +66,20 @@ public static class WindowStatistics
     /// when the gaps are cells without a value and the Hampel window is the usual one, the gaps are bridged and the
     /// spikes replaced in <paramref name="values"/> itself, each cell written recorded in <paramref name="edits"/>
     /// (so that the caller can put the loaded samples back for a second reduction), instead of in a second window-long
-    /// array. The statistics are the same, bit for bit.
+    /// array. The statistics are the same, bit for bit. Other windows are bridged into the thread's window arrays and
+    /// de-spiked into <paramref name="copySlot"/>'s array: a caller whose values are that slot's array and who does not
+    /// need them back after a failure (<see cref="GatheredChannel"/>) names it, so that a window with inserted samples
+    /// needs no window-long array more than one without.
     /// </remarks>
-    internal static ChannelWindowStats EvaluateInPlace(string channel, TimeWindow window, double[] timesS, Memory<double> values, SampleEdits edits, ConditioningSettings settings, SensorFaultLimits limits, DayStart dayStart = default)
+    internal static ChannelWindowStats EvaluateInPlace(string channel, TimeWindow window, double[] timesS, Memory<double> values, SampleEdits edits, ConditioningSettings settings, SensorFaultLimits limits, DayStart dayStart = default,
+        int copySlot = ScratchSlots.CleanSamples)
     {
         ArgumentNullException.ThrowIfNull(edits);
-        return Evaluate(channel, window, timesS, values, values, edits, settings, limits, dayStart);
+        return Evaluate(channel, window, timesS, values, values, edits, copySlot, settings, limits, dayStart);
     }
 
     private static ChannelWindowStats Evaluate(string channel, TimeWindow window, double[] timesS, ReadOnlyMemory<double> values, Memory<double> writable, SampleEdits? edits,
-        ConditioningSettings settings, SensorFaultLimits limits, DayStart dayStart)
+        int copySlot, ConditioningSettings settings, SensorFaultLimits limits, DayStart dayStart)
     {
         ArgumentNullException.ThrowIfNull(settings);
         ArgumentNullException.ThrowIfNull(timesS);
@@ -107,7 +111,9 @@ public static class WindowStatistics
             ReadOnlyMemory<double> kept;
             (keptTimes, kept) = BridgedFiniteSamples(timesS, values, search, finite);
             // Scratch of the thread's current length or longer (no new array when the next channel keeps a sample more).
-            var into = ThreadScratch.Rent(ScratchSlots.CleanSamples, kept.Length).AsMemory(0, kept.Length);
+            // The caller's slot only when the kept samples were copied out of its values, which are dead then.
+            var slot = kept.Span.Overlaps(values.Span) ? ScratchSlots.CleanSamples : copySlot;
+            var into = ThreadScratch.Rent(slot, kept.Length).AsMemory(0, kept.Length);
             replaced = HampelFilter.ApplyInto(kept.Span, into.Span, settings.HampelHalfWindow, settings.HampelSigmas, settings.HampelScaleFloor);
             clean = into;
         }

@@ -208,11 +208,12 @@ public static class DayProcessor
         book.AddAll(window, [.. channels.Select(channel => (channel.Name, (Func<TimeWindow, ChannelWindowStats>)(named => channel.Reduce((times, values, edits) =>
         {
             RequireSamples(named, channel.Name, times, dayStart, null);
-            // The first reduction works in the loaded values (the thread's scratch) where it can: no second
-            // window-long array for the de-spiked samples on each statistics thread.
+            // The first reduction works in the loaded values (the thread's scratch) where it can, and otherwise
+            // de-spikes into their slot once they are bridged into the window arrays: no further window-long array
+            // for the de-spiked samples on each statistics thread (a failure loads them again, GatheredChannel).
             return edits is null
                 ? FaultPolicy.Evaluate(rig, channel.Name, named, times, values, dayStart)
-                : FaultPolicy.EvaluateInPlace(rig, channel.Name, named, times, values, edits, dayStart);
+                : FaultPolicy.EvaluateInPlace(rig, channel.Name, named, times, values, edits, dayStart, ScratchSlots.LoadedValues);
         }))))]);
 
     /// <summary>

@@ -46,9 +46,10 @@ public static class FaultPolicy
         Evaluate(rig, channelId, window, dayStart, (settings, limits) => WindowStatistics.Evaluate(channelId, window, timesS, values, settings, limits, dayStart));
 
     /// <inheritdoc cref="Evaluate(RigDescription, string, TimeWindow, double[], double[], DayStart)"/>
-    /// <remarks>The values are the caller's to write over, each cell written recorded in <paramref name="edits"/> (<see cref="WindowStatistics.EvaluateInPlace"/>).</remarks>
-    internal static ChannelWindowStats EvaluateInPlace(RigDescription rig, string channelId, TimeWindow window, double[] timesS, Memory<double> values, SampleEdits edits, DayStart dayStart) =>
-        Evaluate(rig, channelId, window, dayStart, (settings, limits) => WindowStatistics.EvaluateInPlace(channelId, window, timesS, values, edits, settings, limits, dayStart));
+    /// <remarks>The values are the caller's to write over, each cell written recorded in <paramref name="edits"/>, a copy made into <paramref name="copySlot"/> (<see cref="WindowStatistics.EvaluateInPlace"/>).</remarks>
+    internal static ChannelWindowStats EvaluateInPlace(RigDescription rig, string channelId, TimeWindow window, double[] timesS, Memory<double> values, SampleEdits edits, DayStart dayStart,
+        int copySlot = ScratchSlots.CleanSamples) =>
+        Evaluate(rig, channelId, window, dayStart, (settings, limits) => WindowStatistics.EvaluateInPlace(channelId, window, timesS, values, edits, settings, limits, dayStart, copySlot));
 
     private static ChannelWindowStats Evaluate(RigDescription rig, string channelId, TimeWindow window, DayStart dayStart,
         Func<ConditioningSettings, SensorFaultLimits, ChannelWindowStats> statistics)

@@ -5,9 +5,9 @@ namespace BcPrep.Pipeline;
 
 /// <summary>
 /// One channel of a <see cref="GatheredWindow"/>, reduced once on a statistics thread. Its samples are loaded when the
-/// reduction starts and let go when it succeeds; a reduction that fails keeps them (or the load's failure), so that a
-/// second reduction for the failure's message (<see cref="WindowStatsBook"/>) sees the same samples after the store
-/// has let the blocks go.
+/// reduction starts and let go when it succeeds; a reduction that fails keeps a copy loaded again (or the load's
+/// failure), so that a second reduction for the failure's message (<see cref="WindowStatsBook"/>) sees the samples as
+/// they were loaded after the store has let the blocks go.
 /// </summary>
 internal sealed class GatheredChannel(GatheredWindow window, string name, int index)
 {
@@ -24,9 +24,10 @@ internal sealed class GatheredChannel(GatheredWindow window, string name, int in
 
     /// <summary>
     /// As <see cref="Reduce{T}(Func{double[], ReadOnlyMemory{double}, T})"/>, but the first reduction may write over the
-    /// loaded values (the thread's scratch) if it records every cell it writes in the <see cref="SampleEdits"/> it is
-    /// given: should it fail, they are put back before the samples are kept for the second reduction, which gets the
-    /// kept copy read-only (null edits).
+    /// loaded values (the thread's scratch) as it likes, and over the rest of that slot's array (it is given
+    /// <see cref="SampleEdits"/> for <see cref="WindowStatistics.EvaluateInPlace"/>, not to give them back): should it
+    /// fail, the channel is loaded again from the kept rows for the second reduction, which gets that copy read-only
+    /// (null edits).
     /// </summary>
     public T Reduce<T>(Func<double[], Memory<double>, SampleEdits?, T> reduce)
     {
@@ -63,15 +64,29 @@ internal sealed class GatheredChannel(GatheredWindow window, string name, int in
         }
         catch
         {
-            // The values are the thread's scratch (GatheredWindow.Load), which its next channel overwrites; the
-            // reduction may have written over some of them, which are put back first.
-            edits.Undo(samples.Values.Span);
-            _kept = (samples.TimesS, samples.Values.ToArray().AsMemory());
+            // The values are the thread's scratch (GatheredWindow.Load), which its next channel overwrites, and the
+            // reduction may have written over them beyond repair (a de-spiked copy of a window with inserted samples
+            // goes into the same slot), so the second reduction gets them loaded again; the blocks stay until this
+            // channel is finished (below).
+            KeepLoadedAgain(samples.TimesS);
             throw;
         }
         finally
         {
             window.Finish(loaded: true);
+        }
+    }
+
+    private void KeepLoadedAgain(double[] timesS)
+    {
+        try
+        {
+            _kept = (timesS, window.LoadAgain(index));
+        }
+        catch (Exception e)
+        {
+            // The reduction's own failure goes on; the second reduction reports why the samples are not there.
+            _loadFailure = ExceptionDispatchInfo.Capture(e);
         }
     }
 }

@@ -5,7 +5,8 @@ namespace BcPrep.Pipeline;
 /// (and the window's times, loaded once and shared by its channels while any of them is unfinished) when it starts,
 /// and lets them go when it is done, so that only the channels being reduced are in memory, not the whole window
 /// (17 channels of a 17 min window at 1 kHz are 140 MB). The samples are those the collector would gather, in the
-/// same order; the blocks they come from stay in the store until every channel is loaded.
+/// same order; the blocks they come from stay in the store until every channel is finished, so that a channel whose
+/// reduction fails can be loaded again (<see cref="LoadAgain"/>).
 /// </summary>
 internal sealed class GatheredWindow
 {
@@ -15,12 +16,11 @@ internal sealed class GatheredWindow
     private readonly object _gate = new();
     private readonly int _count;
     private double[]? _timesS;
-    private int _unloaded;
     private int _unfinished;
 
     /// <param name="store">The store the blocks are in.</param>
     /// <param name="channels">The channels, in the order of the blocks' columns after the times.</param>
-    /// <param name="runs">Each block's rows inside the window, in time order; each holds a reference to its block, given back once every channel is loaded.</param>
+    /// <param name="runs">Each block's rows inside the window, in time order; each holds a reference to its block, given back once every channel is finished.</param>
     /// <param name="loaded">Counts the channels loaded and not yet reduced.</param>
     public GatheredWindow(IRowBlockStore store, IReadOnlyList<string> channels, IReadOnlyList<Run> runs, LoadedChannels loaded)
     {
@@ -28,7 +28,6 @@ internal sealed class GatheredWindow
         _runs = runs;
         _loaded = loaded;
         _count = runs.Sum(r => r.End - r.First);
-        _unloaded = channels.Count;
         _unfinished = channels.Count;
         Channels = [.. channels.Select((name, c) => new GatheredChannel(this, name, c))];
         if (channels.Count == 0)
@@ -52,34 +51,27 @@ internal sealed class GatheredWindow
     /// </summary>
     internal (double[] TimesS, Memory<double> Values) Load(int channel)
     {
-        try
+        double[] times;
+        lock (_gate)
         {
-            double[] times;
-            lock (_gate)
-            {
-                times = _timesS ??= ReadColumn(0, GC.AllocateUninitializedArray<double>(_count));
-            }
-            // The values go into the thread's scratch, of the longest window's length so far, handed on as the first
-            // Count elements: a fresh 8 MB array per channel of a 17-minute window at 1 kHz was large-object garbage
-            // that piled up between full collections, and so was an array of each new window's exact length (every
-            // window has its own; on the 8 h day at 1 kHz, two threads × about 20 windows × 10 MB). The reduction runs
-            // on this thread and keeps no reference to it.
-            var scratch = ThreadScratch.Rent(ScratchSlots.LoadedValues, _count);
-            ReadColumn(channel + 1, scratch);
-            _loaded.Add();
-            return (times, scratch.AsMemory(0, _count));
+            times = _timesS ??= ReadColumn(0, GC.AllocateUninitializedArray<double>(_count));
         }
-        finally
-        {
-            lock (_gate)
-            {
-                if (--_unloaded == 0)
-                {
-                    ReleaseRuns();
-                }
-            }
-        }
+        // The values go into the thread's scratch, of the longest window's length so far, handed on as the first
+        // Count elements: a fresh 8 MB array per channel of a 17-minute window at 1 kHz was large-object garbage
+        // that piled up between full collections, and so was an array of each new window's exact length (every
+        // window has its own; on the 8 h day at 1 kHz, two threads × about 20 windows × 10 MB). The reduction runs
+        // on this thread and keeps no reference to it.
+        var scratch = ThreadScratch.Rent(ScratchSlots.LoadedValues, _count);
+        ReadColumn(channel + 1, scratch);
+        _loaded.Add();
+        return (times, scratch.AsMemory(0, _count));
     }
+
+    /// <summary>
+    /// Channel <paramref name="channel"/>'s samples loaded again, into an array of their own, for a channel whose
+    /// reduction failed after writing over its loaded samples; only before that channel is finished.
+    /// </summary>
+    internal double[] LoadAgain(int channel) => ReadColumn(channel + 1, GC.AllocateUninitializedArray<double>(_count));
 
     /// <summary>
     /// Windows of at least this many samples (4 MB of times; 8.7 min at 1 kHz) are followed by a full collection
@@ -87,7 +79,7 @@ internal sealed class GatheredWindow
     /// </summary>
     internal const int CollectFrom = 1 << 19;
 
-    /// <summary>A channel loaded (or failed to load) is done with: the times go with the last one.</summary>
+    /// <summary>A channel loaded (or failed to load) is done with: the times and the blocks go with the last one.</summary>
     internal void Finish(bool loaded)
     {
         if (loaded)
@@ -101,6 +93,7 @@ internal sealed class GatheredWindow
             if (last)
             {
                 _timesS = null;
+                ReleaseRuns();
             }
         }
         if (last && _count >= CollectFrom)

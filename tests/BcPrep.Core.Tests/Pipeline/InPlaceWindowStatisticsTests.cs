@@ -108,6 +108,118 @@ public class InPlaceWindowStatisticsTests
         Assert.Equal(Text(expected), Text(again));
     }
 
+    /// <summary>1 kHz samples as <see cref="Series"/>, with 20 rows taken out (a 20 ms gap that bridging fills with inserted samples) every 3 000.</summary>
+    private static (double[] T, double[] X) SeriesWithMissingRows(int n, int seed)
+    {
+        var (t, x) = Series(n, seed);
+        var kept = Enumerable.Range(0, n).Where(i => i % 3000 < 2980 || i >= n - 100).ToArray();
+        return ([.. kept.Select(i => t[i])], [.. kept.Select(i => x[i])]);
+    }
+
+    private static T OnFreshThread<T>(Func<T> work)
+    {
+        T result = default!;
+        Exception? failure = null;
+        var thread = new Thread(() =>
+        {
+            try
+            {
+                result = work();
+            }
+            catch (Exception e)
+            {
+                failure = e;
+            }
+        });
+        thread.Start();
+        thread.Join();
+        return failure is null ? result : throw new InvalidOperationException("the work failed on its thread", failure);
+    }
+
+    // Reference: WindowStatistics.Evaluate (the copying path into the thread's scratch). A gathered channel whose
+    // missing rows are bridged with inserted samples cannot be de-spiked where it was loaded; its de-spiked copy goes
+    // into the loaded values' slot instead of a further window-long array, with the same statistics bit for bit.
+    [Fact]
+    public void A_gathered_window_with_missing_rows_de_spikes_into_the_loaded_slot_with_the_same_statistics()
+    {
+        var (times, values) = SeriesWithMissingRows(30_000, 5);
+        var rows = new RecentRows();
+        rows.Add(["c"], times, [values], values.Length);
+        rows.Complete();
+        var settings = new ConditioningSettings(MaxBridgeS: 2.0, HampelHalfWindow: 10, HampelSigmas: 6.0);
+        var window = new TimeWindow("w", times[0], times[^1]);
+        var expected = WindowStatistics.Evaluate("c", window, times, (double[])values.Clone(), settings, new SensorFaultLimits());
+        var gathered = rows.Gather(window).Channels.Single();
+
+        var (actual, cleanSlot, loadedSlot) = OnFreshThread(() =>
+        {
+            var stats = gathered.Reduce((t, v, edits) =>
+                WindowStatistics.EvaluateInPlace("c", window, t, v, edits!, settings, new SensorFaultLimits(), copySlot: ScratchSlots.LoadedValues));
+            return (stats, ThreadScratch.LengthOf(ScratchSlots.CleanSamples), ThreadScratch.LengthOf(ScratchSlots.LoadedValues));
+        });
+
+        Assert.True(expected.BridgedSamples >= 9 * 20, "the missing rows are bridged with inserted samples");
+        Assert.True(actual.SpikesReplaced >= 3);
+        Assert.Equal(Text(expected), Text(actual));
+        Assert.Equal(0, cleanSlot);
+        Assert.True(loadedSlot >= actual.SampleCount, "the de-spiked copy is in the loaded values' slot");
+    }
+
+    // Reference: WindowStatistics.Evaluate. With a Hampel window other than k = 10 and nothing to bridge, the samples
+    // de-spiked are the loaded ones themselves: their copy must not go into their own slot (the rule would then read
+    // samples it has already replaced).
+    [Fact]
+    public void A_gathered_window_de_spiked_from_its_loaded_samples_does_not_copy_into_their_slot()
+    {
+        var (times, values) = Series(20_000, 13);
+        var rows = new RecentRows();
+        rows.Add(["c"], times, [values], values.Length);
+        rows.Complete();
+        var settings = new ConditioningSettings(MaxBridgeS: 2.0, HampelHalfWindow: 4, HampelSigmas: 3.0);
+        var window = new TimeWindow("w", times[0], times[^1]);
+        var expected = WindowStatistics.Evaluate("c", window, times, (double[])values.Clone(), settings, new SensorFaultLimits());
+        var gathered = rows.Gather(window).Channels.Single();
+
+        var actual = OnFreshThread(() => gathered.Reduce((t, v, edits) =>
+            WindowStatistics.EvaluateInPlace("c", window, t, v, edits!, settings, new SensorFaultLimits(), copySlot: ScratchSlots.LoadedValues)));
+
+        Assert.True(expected.SpikesReplaced >= 3);
+        Assert.Equal(Text(expected), Text(actual));
+    }
+
+    // Common practice: a gathered reduction that fails after its de-spiked copy went over the loaded samples is done
+    // again for its message from the samples as loaded (loaded again from the kept rows), as the copying path gives.
+    [Fact]
+    public void A_failure_after_de_spiking_into_the_loaded_slot_is_reduced_again_from_the_samples_as_loaded()
+    {
+        var (times, values) = SeriesWithMissingRows(30_000, 9);
+        var rows = new RecentRows();
+        rows.Add(["c"], times, [values], values.Length);
+        rows.Complete();
+        var settings = new ConditioningSettings(MaxBridgeS: 2.0, HampelHalfWindow: 10, HampelSigmas: 6.0);
+        var window = new TimeWindow("OP1", times[0], times[^1]);
+        var expected = WindowStatistics.Evaluate("c", window, times, (double[])values.Clone(), settings, new SensorFaultLimits());
+        var gathered = rows.Gather(window).Channels.Single();
+
+        Assert.Throws<InvalidOperationException>(() => gathered.Reduce<int>((t, v, edits) =>
+        {
+            WindowStatistics.EvaluateInPlace("c", window, t, v, edits!, settings, new SensorFaultLimits(), copySlot: ScratchSlots.LoadedValues);
+            v.Span.Fill(-1.0); // and whatever else a failing reduction may leave in its scratch
+            throw new InvalidOperationException("refused after de-spiking");
+        }));
+        rows.Release();
+        double[]? seen = null;
+        var again = gathered.Reduce((t, v, edits) =>
+        {
+            Assert.Null(edits);
+            seen = v.ToArray();
+            return WindowStatistics.Evaluate("c", window, t, v, settings, new SensorFaultLimits());
+        });
+
+        Assert.Equal(values.Select(BitConverter.DoubleToInt64Bits), seen!.Select(BitConverter.DoubleToInt64Bits));
+        Assert.Equal(Text(expected), Text(again));
+    }
+
     // Common practice: a cell written twice (bridged, then replaced as a spike) ends with its loaded value.
     [Fact]
     public void Undo_puts_back_the_loaded_value_of_a_cell_written_twice()
