@@ -185,7 +185,7 @@ public class BufferedWindowStatisticsTests
         var expected = Previous(w, RigDefaults);
         // Twice on one thread: the first evaluation leaves the thread's arrays long enough for the transform, so the
         // second one's transform writes over the very arrays its bridged times are in.
-        var (first, second, result) = OnFreshThread(() => (Buffered(w, RigDefaults), Buffered(w, RigDefaults),
+        var (first, second, result) = FreshThread.Run(() => (Buffered(w, RigDefaults), Buffered(w, RigDefaults),
             WindowStatistics.Evaluate("x", Interval(w), w.TimesS, w.Values, RigDefaults, w.Limits, Day)));
 
         Assert.Equal(expected, first);
@@ -228,9 +228,9 @@ public class BufferedWindowStatisticsTests
                 return new SensorFaultLimits(Resolution: 0.002);
             }),
         };
-        var alone = windows.Select(w => OnFreshThread(() => Buffered(w, RigDefaults))).ToArray();
+        var alone = windows.Select(w => FreshThread.Run(() => Buffered(w, RigDefaults))).ToArray();
 
-        var inARow = OnFreshThread(() => string.Join("\n", windows.Concat(windows.Take(1)).Select(w => Buffered(w, RigDefaults))));
+        var inARow = FreshThread.Run(() => string.Join("\n", windows.Concat(windows.Take(1)).Select(w => Buffered(w, RigDefaults))));
 
         Assert.Equal(string.Join("\n", alone.Concat(alone.Take(1))), inARow);
         Assert.Equal(string.Join("\n", windows.Concat(windows.Take(1)).Select(w => Previous(w, RigDefaults))), inARow);
@@ -251,7 +251,7 @@ public class BufferedWindowStatisticsTests
             return new SensorFaultLimits(Resolution: 0.002, RailTolerance: 0.002);
         });
 
-        var (before, after) = OnFreshThread(() =>
+        var (before, after) = FreshThread.Run(() =>
         {
             var result = WindowStatistics.Evaluate("x", Interval(first), first.TimesS, first.Values, Settings, first.Limits, Day);
             var described = GeneratedWindows.Describe(result);
@@ -273,25 +273,5 @@ public class BufferedWindowStatisticsTests
 
         Assert.Equal(GeneratedWindows.Describe(w.TimesS), GeneratedWindows.Describe(t));
         Assert.Equal(GeneratedWindows.Describe(w.Values), GeneratedWindows.Describe(x));
-    }
-
-    private static T OnFreshThread<T>(Func<T> work)
-    {
-        T result = default!;
-        Exception? failure = null;
-        var thread = new Thread(() =>
-        {
-            try
-            {
-                result = work();
-            }
-            catch (Exception e)
-            {
-                failure = e;
-            }
-        });
-        thread.Start();
-        thread.Join();
-        return failure is null ? result : throw new InvalidOperationException("The work failed on its thread.", failure);
     }
 }

@@ -116,26 +116,6 @@ public class InPlaceWindowStatisticsTests
         return ([.. kept.Select(i => t[i])], [.. kept.Select(i => x[i])]);
     }
 
-    private static T OnFreshThread<T>(Func<T> work)
-    {
-        T result = default!;
-        Exception? failure = null;
-        var thread = new Thread(() =>
-        {
-            try
-            {
-                result = work();
-            }
-            catch (Exception e)
-            {
-                failure = e;
-            }
-        });
-        thread.Start();
-        thread.Join();
-        return failure is null ? result : throw new InvalidOperationException("the work failed on its thread", failure);
-    }
-
     // Reference: WindowStatistics.Evaluate (the copying path into the thread's scratch). A gathered channel whose
     // missing rows are bridged with inserted samples cannot be de-spiked where it was loaded; its de-spiked copy goes
     // into the loaded values' slot instead of a further window-long array, with the same statistics bit for bit.
@@ -151,7 +131,7 @@ public class InPlaceWindowStatisticsTests
         var expected = WindowStatistics.Evaluate("c", window, times, (double[])values.Clone(), settings, new SensorFaultLimits());
         var gathered = rows.Gather(window).Channels.Single();
 
-        var (actual, cleanSlot, loadedSlot) = OnFreshThread(() =>
+        var (actual, cleanSlot, loadedSlot) = FreshThread.Run(() =>
         {
             var stats = gathered.Reduce((t, v, edits) =>
                 WindowStatistics.EvaluateInPlace("c", window, t, v, edits!, settings, new SensorFaultLimits(), copySlot: ScratchSlots.LoadedValues));
@@ -180,7 +160,7 @@ public class InPlaceWindowStatisticsTests
         var expected = WindowStatistics.Evaluate("c", window, times, (double[])values.Clone(), settings, new SensorFaultLimits());
         var gathered = rows.Gather(window).Channels.Single();
 
-        var actual = OnFreshThread(() => gathered.Reduce((t, v, edits) =>
+        var actual = FreshThread.Run(() => gathered.Reduce((t, v, edits) =>
             WindowStatistics.EvaluateInPlace("c", window, t, v, edits!, settings, new SensorFaultLimits(), copySlot: ScratchSlots.LoadedValues)));
 
         Assert.True(expected.SpikesReplaced >= 3);
