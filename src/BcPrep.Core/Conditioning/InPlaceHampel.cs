@@ -14,23 +14,24 @@ internal static class InPlaceHampel
     /// <summary>Centres per block: the block's copy (2 blocks at most, plus 2k) stays in the second-level cache.</summary>
     internal const int BlockCentres = 1 << 14;
 
-    /// <summary>Whether <see cref="Apply"/> takes these samples; otherwise use <see cref="HampelFilter.ApplyInto"/> into a second array.</summary>
+    /// <summary>Whether <see cref="TryApply"/> takes these samples; otherwise use <see cref="HampelFilter.ApplyInto"/> into a second array.</summary>
     public static bool Applies(ReadOnlySpan<double> x, int halfWindow) =>
         halfWindow == TwentyOnePointWindow.HalfWindow && TwentyOnePointWindow.IsAccelerated
         && x.Length - (2 * halfWindow) >= TwentyOnePointWindow.Lanes && HampelFilter.AllFinite(x);
 
     /// <summary>
     /// Replaces the spikes of <paramref name="x"/> in place, with the same decisions, replacement values and order of
-    /// replaced indices as <see cref="HampelFilter.ApplyInto"/>; only when <see cref="Applies"/>. Each replaced index
-    /// is appended to <paramref name="replaced"/> and its original value to <paramref name="originals"/>.
+    /// replaced indices as <see cref="HampelFilter.ApplyInto"/>, and returns true; returns false, writing nothing, when
+    /// the samples are not for this rule (<see cref="Applies"/>), so that a caller checks them once, here. Each replaced
+    /// index is appended to <paramref name="replaced"/> and its original value to <paramref name="originals"/>.
     /// </summary>
-    public static void Apply(Span<double> x, double sigmaThreshold, double scaleFloor, List<int> replaced, List<double> originals)
+    public static bool TryApply(Span<double> x, double sigmaThreshold, double scaleFloor, List<int> replaced, List<double> originals)
     {
         const int k = TwentyOnePointWindow.HalfWindow;
         HampelFilter.Validate(k, sigmaThreshold, scaleFloor);
         if (!Applies(x, k))
         {
-            throw new ArgumentException("The in-place Hampel rule needs k = 10, finite samples and vector hardware.", nameof(x));
+            return false;
         }
         int n = x.Length;
         // The block's originals: its centres' windows, [first − k, end + k). At most two blocks of centres (the last
@@ -72,5 +73,6 @@ internal static class InPlaceHampel
             carried = 2 * k;
             first = end;
         }
+        return true;
     }
 }

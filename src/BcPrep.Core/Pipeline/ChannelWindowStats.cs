@@ -162,14 +162,13 @@ public static class WindowStatistics
             edits.Undo(values);
             return null;
         }
-        if (!InPlaceHampel.Applies(values, settings.HampelHalfWindow))
+        var replaced = new List<int>();
+        var originals = new List<double>();
+        if (!InPlaceHampel.TryApply(values, settings.HampelSigmas, settings.HampelScaleFloor, replaced, originals))
         {
             edits.Undo(values);
             return null;
         }
-        var replaced = new List<int>();
-        var originals = new List<double>();
-        InPlaceHampel.Apply(values, settings.HampelSigmas, settings.HampelScaleFloor, replaced, originals);
         edits.Record(replaced, originals);
         return replaced;
     }

@@ -53,7 +53,7 @@ public class InPlaceHampelTests
             var replaced = new List<int>();
             var originals = new List<double>();
 
-            InPlaceHampel.Apply(x, sigmas, floor, replaced, originals);
+            Assert.True(InPlaceHampel.TryApply(x, sigmas, floor, replaced, originals));
 
             Assert.Equal(expectedReplaced, replaced);
             Assert.Equal(expected.Select(BitConverter.DoubleToInt64Bits), x.Select(BitConverter.DoubleToInt64Bits));
@@ -83,7 +83,7 @@ public class InPlaceHampelTests
         var x = (double[])original.Clone();
         var replaced = new List<int>();
 
-        InPlaceHampel.Apply(x, 3.0, 0.0, replaced, []);
+        Assert.True(InPlaceHampel.TryApply(x, 3.0, 0.0, replaced, []));
 
         Assert.Equal(expectedReplaced, replaced);
         Assert.Equal(expected.Select(BitConverter.DoubleToInt64Bits), x.Select(BitConverter.DoubleToInt64Bits));
@@ -91,7 +91,7 @@ public class InPlaceHampelTests
     }
 
     // Common practice: only the usual window on finite samples long enough for one vector of centres is done in
-    // place; the rest goes through ApplyInto into a second array, and Apply refuses it.
+    // place; the rest goes through ApplyInto into a second array, and TryApply leaves it as it is.
     [Fact]
     public void Only_the_usual_window_on_finite_samples_is_taken()
     {
@@ -101,6 +101,10 @@ public class InPlaceHampelTests
         Assert.False(InPlaceHampel.Applies(x.AsSpan(0, (2 * K) + TwentyOnePointWindow.Lanes - 1), K));
         x[50] = double.NaN;
         Assert.False(InPlaceHampel.Applies(x, K));
-        Assert.Throws<ArgumentException>(() => InPlaceHampel.Apply(x, 3.0, 0.0, [], []));
+        var before = (double[])x.Clone();
+        var replaced = new List<int>();
+        Assert.False(InPlaceHampel.TryApply(x, 3.0, 0.0, replaced, []));
+        Assert.Empty(replaced);
+        Assert.Equal(before.Select(BitConverter.DoubleToInt64Bits), x.Select(BitConverter.DoubleToInt64Bits));
     }
 }
